@@ -1,0 +1,77 @@
+// `npm test`: the same set-up as `npm start` for a throwaway database, then every check:
+// typecheck, lint, Vitest (unit + integration against real MariaDB), Playwright in Debian's chromium.
+import { ensureNodeDependencies } from './lib/node-deps.mjs';
+import { startPrivateMariaDb } from './lib/private-mariadb.mjs';
+import { ensureChromium } from './lib/system-packages.mjs';
+import { runLocal, runLocalOrExit } from './lib/run.mjs';
+
+const dbPort = Number(process.env.HOTWELL_TEST_DB_PORT ?? 3418);
+const results = [];
+let database = null;
+
+async function step(name, action) {
+  const started = Date.now();
+  console.log(`\n=== ${name} ===`);
+  let ok;
+  try {
+    ok = (await action()) === 0;
+  } catch (error) {
+    console.error(error.message);
+    ok = false;
+  }
+  results.push({ name, ok, seconds: (Date.now() - started) / 1000 });
+}
+
+async function stopDatabase() {
+  if (database) await database.stop();
+  database = null;
+}
+process.on('SIGINT', async () => {
+  await stopDatabase();
+  process.exit(130);
+});
+process.on('SIGTERM', async () => {
+  await stopDatabase();
+  process.exit(143);
+});
+
+try {
+  ensureNodeDependencies();
+  const chromium = ensureChromium();
+
+  let integrationUrl = process.env.TEST_DATABASE_URL;
+  let e2eUrl = process.env.E2E_DATABASE_URL;
+  if (!integrationUrl || !e2eUrl) {
+    database = await startPrivateMariaDb({
+      dataDir: '.data/test',
+      port: dbPort,
+      databases: ['hotwell_it', 'hotwell_e2e'],
+      fresh: true,
+      label: 'throwaway test',
+    });
+    integrationUrl = database.urlFor('hotwell_it');
+    e2eUrl = database.urlFor('hotwell_e2e');
+  }
+  for (const url of [integrationUrl, e2eUrl]) {
+    await runLocalOrExit('tsx', ['server/db/migrate-cli.ts'], { DATABASE_URL: url });
+  }
+  await runLocalOrExit('tsx', ['server/db/seed/seed-cli.ts'], { DATABASE_URL: e2eUrl });
+
+  await step('typecheck', () => runLocal('tsc', ['-p', 'tsconfig.json', '--noEmit']));
+  await step('lint', () => runLocal('eslint', ['.', '--max-warnings=0']));
+  await step('vitest (unit + integration)', () => runLocal('vitest', ['run'], { TEST_DATABASE_URL: integrationUrl }));
+  await step('client build', () => runLocal('vite', ['build', '--logLevel', 'warn']));
+  await step('playwright e2e', () =>
+    runLocal('playwright', ['test'], { E2E_DATABASE_URL: e2eUrl, CHROMIUM_PATH: chromium }),
+  );
+} catch (error) {
+  console.error(`\n[test] set-up failed: ${error.message}`);
+  results.push({ name: 'set-up', ok: false, seconds: 0 });
+} finally {
+  await stopDatabase();
+}
+
+console.log('\n=== summary ===');
+for (const r of results) console.log(`${r.ok ? 'PASS' : 'FAIL'}  ${r.name}  (${r.seconds.toFixed(1)} s)`);
+const failed = results.filter((r) => !r.ok).length;
+process.exit(failed === 0 ? 0 : 1);

@@ -1,0 +1,99 @@
+// Builds the Express app without listening, so tests can drive it in-process.
+import express, { type RequestHandler } from 'express';
+import session from 'express-session';
+import helmet from 'helmet';
+import ConnectSessionSequelize from 'connect-session-sequelize';
+import { csrfSync } from 'csrf-sync';
+import path from 'node:path';
+import type { Sequelize } from 'sequelize';
+import type { AppConfig } from './config';
+import { configurePassport } from './lib/auth';
+import { NotFound, errorMiddleware } from './lib/errors';
+import { sessionRoutes } from './features/session/routes';
+import { adminUserRoutes } from './features/users/routes';
+import { makeUserService } from './features/users/service';
+import { adminAuditRoutes } from './features/audit/routes';
+import { plantRoutes } from './features/plant/routes';
+
+const SequelizeStore = ConnectSessionSequelize(session.Store);
+
+export type BuiltApp = {
+  app: express.Express;
+  /** The same session middleware, for the Socket.IO handshake. */
+  sessionMiddleware: RequestHandler;
+  close: () => void;
+};
+
+export function createApp(sequelize: Sequelize, config: Pick<AppConfig, 'sessionSecret' | 'production' | 'behindHttpsProxy' | 'signInRateLimit'>): BuiltApp {
+  const app = express();
+  const passport = configurePassport();
+  if (config.behindHttpsProxy) app.set('trust proxy', 1);
+  app.disable('x-powered-by');
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: { 'upgrade-insecure-requests': config.behindHttpsProxy ? [] : null },
+      },
+      // Plain-HTTP loopback serving must not be told to switch to HTTPS.
+      strictTransportSecurity: config.behindHttpsProxy,
+    }),
+  );
+  app.use(express.json({ limit: '1mb' }));
+
+  const store = new SequelizeStore({
+    db: sequelize,
+    table: 'Session',
+    extendDefaultFields: (defaults: { data: string; expires: Date }, sess: { passport?: { user?: number } }) => ({
+      data: defaults.data,
+      expires: defaults.expires,
+      userId: sess.passport?.user ?? null,
+    }),
+  });
+  const sessionMiddleware = session({
+    name: 'hotwell.sid',
+    secret: config.sessionSecret,
+    store,
+    resave: false,
+    saveUninitialized: false,
+    rolling: true,
+    cookie: {
+      httpOnly: true,
+      sameSite: 'lax',
+      secure: config.behindHttpsProxy,
+      maxAge: 13 * 60 * 60 * 1000, // one long shift plus handover
+    },
+  });
+  app.use(sessionMiddleware);
+  app.use(passport.initialize());
+  app.use(passport.session());
+
+  const csrf = csrfSync({
+    getTokenFromRequest: (req) => req.get('x-csrf-token'),
+    errorConfig: { statusCode: 403, code: 'EBADCSRFTOKEN', message: 'Invalid CSRF token' },
+  });
+  app.use('/api', csrf.csrfSynchronisedProtection);
+
+  const users = makeUserService(sequelize);
+  app.get('/api/health', (_req, res) => {
+    res.json({ ok: true });
+  });
+  app.use('/api', sessionRoutes(users, csrf, config.signInRateLimit));
+  app.use('/api/admin/users', adminUserRoutes(users));
+  app.use('/api/admin/audit-events', adminAuditRoutes());
+  app.use('/api/plant', plantRoutes());
+  app.use('/api', (_req, _res, next) => next(new NotFound('That API route')));
+
+  const root = process.cwd();
+  app.use('/fonts', express.static(path.join(root, 'fonts'), { maxAge: '30d', immutable: true }));
+  app.use(express.static(path.join(root, 'dist'), { index: false }));
+  // Client-side routes all load the single page.
+  app.get(/^\/(?!api\/).*/, (_req, res, next) => {
+    res.sendFile(path.join(root, 'dist', 'index.html'), (error) => {
+      if (error) next(new NotFound('The built client (run npm start, which builds it)'));
+    });
+  });
+  app.use(errorMiddleware);
+
+  return { app, sessionMiddleware, close: () => store.stopExpiringSessions() };
+}

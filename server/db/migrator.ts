@@ -1,0 +1,20 @@
+import { Umzug, SequelizeStorage } from 'umzug';
+import type { Sequelize } from 'sequelize';
+import * as foundation from './migrations/0001-foundation';
+import * as condenserDesign from './migrations/0002-condenser-design';
+
+// Listed explicitly so the order is obvious and nothing depends on globbing at run time.
+const migrations = [
+  { name: '0001-foundation', ...foundation },
+  { name: '0002-condenser-design', ...condenserDesign },
+];
+
+export function createMigrator(sequelize: Sequelize) {
+  const qi = sequelize.getQueryInterface();
+  return new Umzug({
+    migrations: migrations.map((m) => ({ name: m.name, up: () => m.up({ context: qi }), down: () => m.down({ context: qi }) })),
+    context: qi,
+    storage: new SequelizeStorage({ sequelize, tableName: 'schema_migrations' }),
+    logger: undefined,
+  });
+}

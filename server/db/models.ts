@@ -1,0 +1,13 @@
+import type { Sequelize } from 'sequelize';
+import { User } from '../features/users/model';
+import { SessionRow } from '../features/session/model';
+import { AuditEvent } from '../features/audit/model';
+import { initPlantModels } from '../features/plant/model';
+
+/** Registers every model on the instance. Schema comes from migrations, never from sync(). */
+export function initModels(sequelize: Sequelize) {
+  User.initModel(sequelize);
+  SessionRow.initModel(sequelize);
+  AuditEvent.initModel(sequelize);
+  initPlantModels(sequelize);
+}

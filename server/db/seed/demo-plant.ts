@@ -1,0 +1,57 @@
+// The fictional demo scenario: Fernhollow Station, an invented two-unit plant.
+// Every name, tag and figure here is made up for the demo.
+import type { EquipmentKind } from '../../features/plant/model';
+
+export const demoStation = { code: 'FHS', name: 'Fernhollow Station' };
+export const demoCrews = ['A', 'B', 'C', 'D'];
+
+type DemoUnit = {
+  code: string;
+  name: string;
+  equipment: { kind: EquipmentKind; tag: string; name: string }[];
+};
+
+const unitEquipment = (n: number): DemoUnit['equipment'] => [
+  { kind: 'condenser', tag: `${n}-CND-01`, name: `Unit ${n} main condenser (two shells)` },
+  { kind: 'cw_pump', tag: `${n}-CWP-A`, name: `Unit ${n} circulating-water pump A` },
+  { kind: 'cw_pump', tag: `${n}-CWP-B`, name: `Unit ${n} circulating-water pump B` },
+  { kind: 'cooling_tower', tag: `${n}-CT-01`, name: `Unit ${n} mechanical-draft cooling tower` },
+  { kind: 'air_removal', tag: `${n}-VP-A`, name: `Unit ${n} liquid-ring vacuum pump A` },
+  { kind: 'air_removal', tag: `${n}-VP-B`, name: `Unit ${n} liquid-ring vacuum pump B` },
+];
+
+export const demoUnits: DemoUnit[] = [
+  { code: 'U1', name: 'Unit 1', equipment: unitEquipment(1) },
+  { code: 'U2', name: 'Unit 2', equipment: unitEquipment(2) },
+];
+
+/**
+ * Invented condenser design data, SI. Chosen to be self-consistent: at design flow, inlet
+ * temperature and duty the NTU method returns the design backpressure at design cleanliness.
+ */
+export const demoCondenserDesign = {
+  surfaceAreaM2: 17_500,
+  tubeOdMm: 25.4,
+  tubeGaugeBwg: 22,
+  tubeMaterial: 'titanium',
+  tubeCount: 19_800,
+  passes: 1,
+  designCwFlowKgS: 15_000,
+  designCwInletK: 273.15 + 22,
+  designDutyW: 560e6,
+  designBackpressurePa: 8_000,
+  designCleanliness: 0.9,
+  designCleanUWM2K: null,
+  // backpressure (Pa) → MW lost against the design point (invented curve for the demo)
+  backpressureCorrection: [
+    [4_000, -1.8],
+    [6_000, -0.6],
+    [8_000, 0],
+    [10_000, 1.9],
+    [12_000, 4.1],
+    [15_000, 7.9],
+    [20_000, 14.6],
+  ] as [number, number][],
+  energyPricePerMwh: 85,
+  currency: 'EUR',
+};

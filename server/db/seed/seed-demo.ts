@@ -1,0 +1,64 @@
+// Loads the demo scenario once. Idempotent: rows that exist are left exactly as they are.
+import type { Sequelize } from 'sequelize';
+import { hashPassword } from '../../lib/auth';
+import { CondenserDesign, Crew, Equipment, PlantUnit, Station } from '../../features/plant/model';
+import { User } from '../../features/users/model';
+import type { Role } from '../../../shared/roles';
+import people from './demo-people.json';
+import { demoCondenserDesign, demoCrews, demoStation, demoUnits } from './demo-plant';
+
+export async function seedDemo(sequelize: Sequelize): Promise<{ created: number }> {
+  let created = 0;
+  const passwordHash = await hashPassword(people.password);
+  await sequelize.transaction(async (transaction) => {
+    const [station, stationCreated] = await Station.findOrCreate({
+      where: { code: demoStation.code },
+      defaults: demoStation,
+      transaction,
+    });
+    created += Number(stationCreated);
+    const crewIds = new Map<string, number>();
+    for (const name of demoCrews) {
+      const [crew, made] = await Crew.findOrCreate({ where: { stationId: station.id, name }, transaction });
+      crewIds.set(name, crew.id);
+      created += Number(made);
+    }
+    for (const unit of demoUnits) {
+      const [row, made] = await PlantUnit.findOrCreate({
+        where: { stationId: station.id, code: unit.code },
+        defaults: { stationId: station.id, code: unit.code, name: unit.name },
+        transaction,
+      });
+      created += Number(made);
+      for (const item of unit.equipment) {
+        const [, madeEquipment] = await Equipment.findOrCreate({
+          where: { unitId: row.id, tag: item.tag },
+          defaults: { unitId: row.id, ...item },
+          transaction,
+        });
+        created += Number(madeEquipment);
+      }
+      const [, madeDesign] = await CondenserDesign.findOrCreate({
+        where: { unitId: row.id },
+        defaults: { unitId: row.id, ...demoCondenserDesign },
+        transaction,
+      });
+      created += Number(madeDesign);
+    }
+    for (const person of people.users) {
+      const [, made] = await User.findOrCreate({
+        where: { email: person.email },
+        defaults: {
+          name: person.name,
+          email: person.email,
+          role: person.role as Role,
+          crewId: person.crew ? (crewIds.get(person.crew) ?? null) : null,
+          passwordHash,
+        },
+        transaction,
+      });
+      created += Number(made);
+    }
+  });
+  return { created };
+}

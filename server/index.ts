@@ -1,0 +1,30 @@
+// Starts Hotwell: database connection, HTTP server, graceful shutdown.
+import http from 'node:http';
+import { readConfig } from './config';
+import { createSequelize } from './db/sequelize';
+import { initModels } from './db/models';
+import { createApp } from './app';
+
+const config = readConfig();
+const sequelize = createSequelize(config.databaseUrl);
+initModels(sequelize);
+await sequelize.authenticate();
+
+const built = createApp(sequelize, config);
+const server = http.createServer(built.app);
+server.listen(config.port, config.host, () => {
+  console.log(`[server] listening on http://${config.host}:${config.port}`);
+});
+
+let closing = false;
+async function shutdown() {
+  if (closing) return;
+  closing = true;
+  server.close();
+  server.closeAllConnections();
+  built.close();
+  await sequelize.close();
+  process.exit(0);
+}
+process.on('SIGTERM', shutdown);
+process.on('SIGINT', shutdown);

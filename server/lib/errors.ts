@@ -1,0 +1,78 @@
+import type { ErrorRequestHandler } from 'express';
+import { ZodError } from 'zod';
+
+export type FieldErrors = Record<string, string>;
+
+export class HttpError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly fields?: FieldErrors,
+  ) {
+    super(message);
+  }
+}
+export class ValidationError extends HttpError {
+  constructor(fields: FieldErrors, message = 'Some fields need attention') {
+    super(400, 'VALIDATION', message, fields);
+  }
+}
+export class Unauthorized extends HttpError {
+  constructor(message = 'Sign in to continue') {
+    super(401, 'UNAUTHENTICATED', message);
+  }
+}
+export class Forbidden extends HttpError {
+  constructor(message = 'Your role does not allow this', code = 'FORBIDDEN') {
+    super(403, code, message);
+  }
+}
+export class NotFound extends HttpError {
+  constructor(what = 'That record') {
+    super(404, 'NOT_FOUND', `${what} was not found`);
+  }
+}
+export class Conflict extends HttpError {
+  constructor(message: string) {
+    super(409, 'CONFLICT', message);
+  }
+}
+
+/** Turns zod issues into { "a.b": "message" } — the first message per field. */
+export function fieldErrorsFromZod(error: ZodError): FieldErrors {
+  const fields: FieldErrors = {};
+  for (const issue of error.issues) {
+    const key = issue.path.length ? issue.path.join('.') : '_';
+    fields[key] ??= issue.message;
+  }
+  return fields;
+}
+
+type BodyParserError = Error & { type?: string; status?: number };
+
+export const errorMiddleware: ErrorRequestHandler = (error, _req, res, _next) => {
+  if (error instanceof ZodError) {
+    res.status(400).json({ error: { code: 'VALIDATION', message: 'Some fields need attention', fields: fieldErrorsFromZod(error) } });
+    return;
+  }
+  if (error instanceof HttpError) {
+    res.status(error.status).json({ error: { code: error.code, message: error.message, fields: error.fields } });
+    return;
+  }
+  const parserError = error as BodyParserError;
+  if (parserError.type === 'entity.parse.failed') {
+    res.status(400).json({ error: { code: 'MALFORMED_JSON', message: 'The request body is not valid JSON' } });
+    return;
+  }
+  if (parserError.type === 'entity.too.large') {
+    res.status(413).json({ error: { code: 'TOO_LARGE', message: 'The request body is too large' } });
+    return;
+  }
+  if ((error as { code?: string }).code === 'EBADCSRFTOKEN' || parserError.status === 403) {
+    res.status(403).json({ error: { code: 'CSRF', message: 'The form expired; reload the page and try again' } });
+    return;
+  }
+  console.error(error);
+  res.status(500).json({ error: { code: 'INTERNAL', message: 'Something went wrong on the server; nothing was saved' } });
+};

@@ -1,0 +1,75 @@
+import { NavLink, Navigate, Outlet, useLocation, useNavigate } from 'react-router';
+import { useState } from 'react';
+import { roleLabels } from '../../../shared/roles';
+import { useMe } from '../../features/session/api/get-me';
+import { useSignOut } from '../../features/session/api/sign-out';
+import { Notice } from '../../components/ui/notice';
+import { applyTheme, initialTheme, type Theme } from '../../lib/theme';
+import { navigationFor } from '../navigation';
+
+export function AppShell() {
+  const { data: me, isPending, error } = useMe();
+  const location = useLocation();
+  const navigate = useNavigate();
+  const signOut = useSignOut();
+  const [theme, setTheme] = useState<Theme>(initialTheme);
+
+  if (isPending) return <p className="p-8 text-muted">Loading…</p>;
+  if (error) return <div className="p-8"><Notice kind="error">{error.message}</Notice></div>;
+  if (!me) {
+    const next = location.pathname === '/' ? '' : `?next=${encodeURIComponent(location.pathname)}`;
+    return <Navigate to={`/sign-in${next}`} replace />;
+  }
+  if (me.mustChangePassword && location.pathname !== '/account/password') {
+    return <Navigate to="/account/password" replace />;
+  }
+
+  const toggleTheme = () => {
+    const next = theme === 'dark' ? 'light' : 'dark';
+    applyTheme(next);
+    setTheme(next);
+  };
+
+  return (
+    <div className="min-h-screen">
+      <header className="border-b border-line bg-panel">
+        <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-4 px-4 py-3">
+          <span className="text-xl font-bold tracking-wide">Hotwell</span>
+          <nav aria-label="Main" className="flex flex-wrap gap-1">
+            {navigationFor(me.role).map((item) => (
+              <NavLink
+                key={item.to}
+                to={item.to}
+                end={item.to === '/'}
+                className={({ isActive }) =>
+                  `rounded-md px-3 py-1.5 font-bold ${isActive ? 'bg-accent text-on-accent' : 'hover:bg-field'}`
+                }
+              >
+                {item.label}
+              </NavLink>
+            ))}
+          </nav>
+          <div className="ml-auto flex items-center gap-3 text-sm">
+            <span data-testid="signed-in-as">
+              {me.name} · {roleLabels[me.role]}
+              {me.crewName ? ` · Crew ${me.crewName}` : ''}
+            </span>
+            <button type="button" onClick={toggleTheme} className="rounded-md border border-line px-2 py-1">
+              {theme === 'dark' ? '☀ Light' : '☾ Dark'}
+            </button>
+            <button
+              type="button"
+              className="rounded-md border border-line px-2 py-1 font-bold"
+              onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate('/sign-in') })}
+            >
+              Sign out
+            </button>
+          </div>
+        </div>
+      </header>
+      <main className="mx-auto max-w-6xl px-4 py-6">
+        <Outlet />
+      </main>
+    </div>
+  );
+}

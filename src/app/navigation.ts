@@ -1,0 +1,14 @@
+import type { Role } from '../../shared/roles';
+
+export type NavItem = { to: string; label: string; roles: readonly Role[] | 'all' };
+
+/** What each role finds in the navigation. The server enforces the same rules on every route. */
+export const navigation: NavItem[] = [
+  { to: '/', label: 'Overview', roles: 'all' },
+  { to: '/condenser-check', label: 'Condenser check', roles: 'all' },
+  { to: '/admin/people', label: 'People', roles: ['admin'] },
+  { to: '/admin/audit', label: 'Audit trail', roles: ['admin'] },
+  { to: '/account/password', label: 'My password', roles: 'all' },
+];
+
+export const navigationFor = (role: Role) => navigation.filter((item) => item.roles === 'all' || item.roles.includes(role));

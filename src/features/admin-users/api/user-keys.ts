@@ -1,0 +1,4 @@
+export const userKeys = {
+  all: ['admin-users'] as const,
+  list: () => [...userKeys.all, 'list'] as const,
+};

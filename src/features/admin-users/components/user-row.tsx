@@ -1,0 +1,76 @@
+import type { PublicUser } from '../../../../shared/schemas/auth';
+import { roleLabels, roles, type Role } from '../../../../shared/roles';
+import type { CrewSummary } from '../../overview/api/get-crews';
+import { useChangeUser } from '../api/change-user';
+
+type Props = { user: PublicUser; crews: CrewSummary[]; isSelf: boolean; onError: (message: string) => void };
+
+export function UserRow({ user, crews, isSelf, onError }: Props) {
+  const change = useChangeUser();
+  const report = { onError: (error: Error) => onError(`${user.name}: ${error.message}`) };
+  const label = `${user.name}`;
+  return (
+    <tr className="border-t border-line" data-testid={`user-row-${user.email}`}>
+      <td className="py-2 pr-3 font-bold">{user.name}</td>
+      <td className="py-2 pr-3">{user.email}</td>
+      <td className="py-2 pr-3">
+        <select
+          aria-label={`Role of ${label}`}
+          className="rounded-md border border-line bg-field px-2 py-1"
+          value={user.role}
+          disabled={isSelf || change.isPending}
+          onChange={(e) =>
+            change.mutate({ kind: 'update', id: user.id, input: { role: e.target.value as Role, version: user.version } }, report)
+          }
+        >
+          {roles.map((role) => (
+            <option key={role} value={role}>
+              {roleLabels[role]}
+            </option>
+          ))}
+        </select>
+      </td>
+      <td className="py-2 pr-3">
+        <select
+          aria-label={`Crew of ${label}`}
+          className="rounded-md border border-line bg-field px-2 py-1"
+          value={user.crewId ?? ''}
+          disabled={change.isPending}
+          onChange={(e) =>
+            change.mutate(
+              { kind: 'update', id: user.id, input: { crewId: e.target.value ? Number(e.target.value) : null, version: user.version } },
+              report,
+            )
+          }
+        >
+          <option value="">—</option>
+          {crews.map((crew) => (
+            <option key={crew.id} value={crew.id}>
+              Crew {crew.name}
+            </option>
+          ))}
+        </select>
+      </td>
+      <td className="py-2 pr-3">
+        {user.active ? '● Active' : '○ Deactivated'}
+        {user.mustChangePassword ? <span className="block text-xs text-muted">temporary password</span> : null}
+      </td>
+      <td className="py-2">
+        {isSelf ? (
+          <span className="text-sm text-muted">you</span>
+        ) : (
+          <button
+            type="button"
+            className={`rounded-md border px-2 py-1 text-sm font-bold ${user.active ? 'border-alarm text-alarm' : 'border-line'}`}
+            disabled={change.isPending}
+            onClick={() =>
+              change.mutate({ kind: user.active ? 'deactivate' : 'reactivate', id: user.id, version: user.version }, report)
+            }
+          >
+            {user.active ? 'Deactivate' : 'Reactivate'}
+          </button>
+        )}
+      </td>
+    </tr>
+  );
+}

@@ -1,0 +1,51 @@
+import { format } from 'date-fns';
+import { Button } from '../../../components/ui/button';
+import { Notice } from '../../../components/ui/notice';
+import { useAuditEvents } from '../api/get-audit-events';
+
+const show = (value: unknown) => (value == null ? '—' : JSON.stringify(value));
+
+export function AuditPage() {
+  const events = useAuditEvents();
+  const rows = events.data?.pages.flat() ?? [];
+  return (
+    <section className="flex flex-col gap-4">
+      <h1 className="text-2xl font-bold">Audit trail</h1>
+      <p className="text-muted">Every change to people and settings, newest first. Nothing here can be edited.</p>
+      {events.error ? <Notice kind="error">{events.error.message}</Notice> : null}
+      <div className="overflow-x-auto rounded-lg border border-line bg-panel p-4">
+        <table className="w-full text-left text-sm">
+          <thead>
+            <tr className="text-muted">
+              <th className="pb-2">When (local time)</th>
+              <th className="pb-2">Who</th>
+              <th className="pb-2">What</th>
+              <th className="pb-2">Record</th>
+              <th className="pb-2">Before</th>
+              <th className="pb-2">After</th>
+            </tr>
+          </thead>
+          <tbody>
+            {rows.map((e) => (
+              <tr key={e.id} className="border-t border-line align-top">
+                <td className="py-1 pr-3 reading whitespace-nowrap">{format(new Date(e.at), 'yyyy-MM-dd HH:mm:ss')}</td>
+                <td className="py-1 pr-3">{e.actor}</td>
+                <td className="py-1 pr-3 font-bold">{e.action}</td>
+                <td className="py-1 pr-3">
+                  {e.entity} #{e.entityId}
+                </td>
+                <td className="py-1 pr-3 break-all">{show(e.before)}</td>
+                <td className="py-1 break-all">{show(e.after)}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+      {events.hasNextPage ? (
+        <Button tone="plain" onClick={() => void events.fetchNextPage()} disabled={events.isFetchingNextPage}>
+          Show older
+        </Button>
+      ) : null}
+    </section>
+  );
+}

@@ -1,0 +1,63 @@
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useNavigate } from 'react-router';
+import { changePasswordSchema, type ChangePasswordInput } from '../../../../shared/schemas/auth';
+import { TextField } from '../../../components/ui/form-field';
+import { Button } from '../../../components/ui/button';
+import { Notice } from '../../../components/ui/notice';
+import { applyServerErrors } from '../../../lib/form-errors';
+import { useMe } from '../api/get-me';
+import { useChangePassword } from '../api/change-password';
+
+export function ChangePasswordPage() {
+  const { data: me } = useMe();
+  const navigate = useNavigate();
+  const change = useChangePassword();
+  const form = useForm<ChangePasswordInput>({
+    resolver: zodResolver(changePasswordSchema),
+    defaultValues: { currentPassword: '', newPassword: '' },
+  });
+  const { errors } = form.formState;
+  const onSubmit = form.handleSubmit((values) =>
+    change.mutate(values, {
+      onSuccess: () => {
+        form.reset();
+        if (me?.mustChangePassword) navigate('/', { replace: true });
+      },
+      onError: (error) => form.setError('root', { message: applyServerErrors(error, form.setError) }),
+    }),
+  );
+
+  return (
+    <section className="max-w-md">
+      <h1 className="mb-4 text-2xl font-bold">Change your password</h1>
+      {me?.mustChangePassword ? (
+        <div className="mb-4">
+          <Notice kind="info">You signed in with a temporary password. Choose your own before you continue.</Notice>
+        </div>
+      ) : null}
+      <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4 rounded-lg border border-line bg-panel p-6">
+        {errors.root?.message ? <Notice kind="error">{errors.root.message}</Notice> : null}
+        {change.isSuccess ? <Notice kind="success">Your password is changed.</Notice> : null}
+        <TextField
+          label="Current password"
+          type="password"
+          autoComplete="current-password"
+          error={errors.currentPassword?.message}
+          {...form.register('currentPassword')}
+        />
+        <TextField
+          label="New password"
+          type="password"
+          autoComplete="new-password"
+          hint="At least 12 characters."
+          error={errors.newPassword?.message}
+          {...form.register('newPassword')}
+        />
+        <Button type="submit" disabled={change.isPending}>
+          Change password
+        </Button>
+      </form>
+    </section>
+  );
+}

@@ -1,0 +1,76 @@
+// The one fetch wrapper: JSON in and out, the CSRF header on writes, typed errors.
+
+export type FieldErrors = Record<string, string>;
+
+export class ApiError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly fields: FieldErrors = {},
+  ) {
+    super(message);
+  }
+}
+
+let csrfToken: string | null = null;
+export function rememberCsrfToken(token: string) {
+  csrfToken = token;
+}
+async function ensureCsrfToken(): Promise<string> {
+  if (csrfToken) return csrfToken;
+  const response = await fetch('/api/session/csrf', { credentials: 'same-origin' });
+  const body = (await response.json()) as { csrfToken: string };
+  csrfToken = body.csrfToken;
+  return csrfToken;
+}
+
+/** Called with the path the user was on when the server says they are signed out. */
+let onSignedOut: (() => void) | null = null;
+export function setSignedOutHandler(handler: () => void) {
+  onSignedOut = handler;
+}
+
+type Method = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
+
+async function send<T>(method: Method, path: string, body?: unknown, retried = false): Promise<T> {
+  const headers: Record<string, string> = { Accept: 'application/json' };
+  if (body !== undefined) headers['Content-Type'] = 'application/json';
+  if (method !== 'GET') headers['X-CSRF-Token'] = await ensureCsrfToken();
+  let response: Response;
+  try {
+    response = await fetch(path, {
+      method,
+      headers,
+      credentials: 'same-origin',
+      body: body === undefined ? undefined : JSON.stringify(body),
+    });
+  } catch {
+    throw new ApiError(0, 'NETWORK', 'The server could not be reached; check the connection and try again');
+  }
+  if (response.status === 204) return undefined as T;
+  const payload = (await response.json().catch(() => null)) as
+    | { error?: { code: string; message: string; fields?: FieldErrors } }
+    | null;
+  if (response.ok) return payload as T;
+  const error = payload?.error;
+  if (response.status === 403 && error?.code === 'CSRF' && !retried) {
+    // The session was renewed elsewhere (sign-in, restart): fetch a fresh token once.
+    csrfToken = null;
+    return send<T>(method, path, body, true);
+  }
+  if (response.status === 401 && path !== '/api/session' && path !== '/api/me') onSignedOut?.();
+  throw new ApiError(
+    response.status,
+    error?.code ?? 'HTTP_' + response.status,
+    error?.message ?? `The server answered ${response.status}`,
+    error?.fields ?? {},
+  );
+}
+
+export const api = {
+  get: <T>(path: string) => send<T>('GET', path),
+  post: <T>(path: string, body?: unknown) => send<T>('POST', path, body ?? {}),
+  patch: <T>(path: string, body: unknown) => send<T>('PATCH', path, body),
+  delete: <T>(path: string) => send<T>('DELETE', path),
+};
