@@ -1,0 +1,84 @@
+// Integration-test harness: the real app, in-process, against the real MariaDB test database.
+import request from 'supertest';
+import type { Sequelize } from 'sequelize';
+import { createApp, type BuiltApp } from '../../../server/app';
+import { createSequelize } from '../../../server/db/sequelize';
+import { initModels } from '../../../server/db/models';
+import { hashPassword } from '../../../server/lib/auth';
+import { User } from '../../../server/features/users/model';
+import { Crew, Station } from '../../../server/features/plant/model';
+import type { Role } from '../../../shared/roles';
+
+const url = process.env.TEST_DATABASE_URL;
+if (!url) throw new Error('TEST_DATABASE_URL is not set: run the integration tests through `npm test`.');
+
+let sequelize: Sequelize | null = null;
+export function db(): Sequelize {
+  if (!sequelize) {
+    sequelize = createSequelize(url!);
+    initModels(sequelize);
+  }
+  return sequelize;
+}
+
+export const SECRET = 'integration-test-secret';
+const opened: BuiltApp[] = [];
+
+export function buildApp(options: { signInRateLimit?: number } = {}): BuiltApp {
+  const built = createApp(db(), {
+    sessionSecret: SECRET,
+    production: false,
+    behindHttpsProxy: false,
+    signInRateLimit: options.signInRateLimit ?? 10_000,
+  });
+  opened.push(built);
+  return built;
+}
+
+export async function closeAll() {
+  for (const built of opened.splice(0)) built.close();
+  if (sequelize) await sequelize.close();
+  sequelize = null;
+}
+
+let counter = 0;
+export const PASSWORD = 'correct horse battery staple';
+
+/** Creates a person with a unique e-mail; the password is PASSWORD. */
+export async function makeUser(role: Role, overrides: Partial<{ active: boolean; mustChangePassword: boolean; crewId: number | null }> = {}) {
+  counter += 1;
+  const email = `${role}.${Date.now()}.${counter}@test.example`;
+  return User.create({
+    name: `Test ${role} ${counter}`,
+    email,
+    role,
+    crewId: overrides.crewId ?? null,
+    passwordHash: await hashPassword(PASSWORD),
+    active: overrides.active ?? true,
+    mustChangePassword: overrides.mustChangePassword ?? false,
+  });
+}
+
+export async function makeCrew() {
+  counter += 1;
+  const [station] = await Station.findOrCreate({ where: { code: 'TST' }, defaults: { code: 'TST', name: 'Test station' } });
+  return Crew.create({ stationId: station.id, name: `T${Date.now() % 100000}-${counter}` });
+}
+
+export type Agent = ReturnType<typeof request.agent> & { csrf: string };
+
+/** An agent that holds a session cookie and the matching CSRF token. */
+export async function anonymousAgent(built: BuiltApp): Promise<Agent> {
+  const agent = request.agent(built.app) as Agent;
+  const response = await agent.get('/api/session/csrf').expect(200);
+  agent.csrf = response.body.csrfToken;
+  return agent;
+}
+
+export async function signedInAgent(built: BuiltApp, email: string, password = PASSWORD): Promise<Agent> {
+  const agent = await anonymousAgent(built);
+  const response = await agent.post('/api/session').set('X-CSRF-Token', agent.csrf).send({ email, password });
+  if (response.status !== 200) throw new Error(`sign-in failed: ${response.status} ${JSON.stringify(response.body)}`);
+  agent.csrf = response.body.csrfToken;
+  return agent;
+}
