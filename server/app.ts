@@ -14,6 +14,7 @@ import { adminUserRoutes } from './features/users/routes';
 import { makeUserService } from './features/users/service';
 import { adminAuditRoutes } from './features/audit/routes';
 import { plantRoutes } from './features/plant/routes';
+import { calcRoutes } from './features/calc/routes';
 
 const SequelizeStore = ConnectSessionSequelize(session.Store);
 
@@ -82,6 +83,7 @@ export function createApp(sequelize: Sequelize, config: Pick<AppConfig, 'session
   app.use('/api/admin/users', adminUserRoutes(users));
   app.use('/api/admin/audit-events', adminAuditRoutes());
   app.use('/api/plant', plantRoutes());
+  app.use('/api/calc', calcRoutes());
   app.use('/api', (_req, _res, next) => next(new NotFound('That API route')));
 
   const root = process.cwd();

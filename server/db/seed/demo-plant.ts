@@ -1,6 +1,7 @@
 // The fictional demo scenario: Fernhollow Station, an invented two-unit plant.
 // Every name, tag and figure here is made up for the demo.
 import type { EquipmentKind } from '../../features/plant/model';
+import type { TubeMaterial } from '../../../shared/calc/hei';
 
 export const demoStation = { code: 'FHS', name: 'Fernhollow Station' };
 export const demoCrews = ['A', 'B', 'C', 'D'];
@@ -26,31 +27,31 @@ export const demoUnits: DemoUnit[] = [
 ];
 
 /**
- * Invented condenser design data, SI. Chosen to be self-consistent: at design flow, inlet
- * temperature and duty the NTU method returns the design backpressure at design cleanliness.
+ * Invented condenser design data, SI. Chosen to be self-consistent: at design flow (15 000 kg/s),
+ * inlet (22 °C) and duty (560 MW) the HEI clean U × 0.90 gives 5.53 kPa a by the NTU method.
  */
 export const demoCondenserDesign = {
-  surfaceAreaM2: 17_500,
+  surfaceAreaM2: 30_000,
   tubeOdMm: 25.4,
   tubeGaugeBwg: 22,
-  tubeMaterial: 'titanium',
+  tubeMaterial: 'titanium' as TubeMaterial,
   tubeCount: 19_800,
   passes: 1,
   designCwFlowKgS: 15_000,
   designCwInletK: 273.15 + 22,
   designDutyW: 560e6,
-  designBackpressurePa: 8_000,
+  designBackpressurePa: 5_530,
   designCleanliness: 0.9,
   designCleanUWM2K: null,
   // backpressure (Pa) → MW lost against the design point (invented curve for the demo)
   backpressureCorrection: [
-    [4_000, -1.8],
-    [6_000, -0.6],
-    [8_000, 0],
-    [10_000, 1.9],
-    [12_000, 4.1],
-    [15_000, 7.9],
-    [20_000, 14.6],
+    [3_000, -1.5],
+    [4_000, -0.9],
+    [5_530, 0],
+    [7_000, 1.6],
+    [9_000, 4.2],
+    [12_000, 8.5],
+    [16_000, 15.1],
   ] as [number, number][],
   energyPricePerMwh: 85,
   currency: 'EUR',

@@ -1,3 +1,4 @@
+import type { TubeMaterial } from '../../../shared/calc/hei';
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 
 const timestamps = { createdAt: DataTypes.DATE(3), updatedAt: DataTypes.DATE(3) };
@@ -45,7 +46,7 @@ export class CondenserDesign extends Model<InferAttributes<CondenserDesign>, Inf
   declare surfaceAreaM2: number;
   declare tubeOdMm: number;
   declare tubeGaugeBwg: number;
-  declare tubeMaterial: string;
+  declare tubeMaterial: TubeMaterial;
   declare tubeCount: number;
   declare passes: number;
   declare designCwFlowKgS: number;

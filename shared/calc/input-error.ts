@@ -1,0 +1,31 @@
+/** Thrown for physically impossible or non-numeric input; names the field so a form can show it. */
+export class CalcInputError extends Error {
+  constructor(
+    readonly field: string,
+    readonly detail: string,
+  ) {
+    super(`${field}: ${detail}`);
+    this.name = 'CalcInputError';
+  }
+}
+
+export function requireFinite(field: string, value: number): number {
+  if (typeof value !== 'number' || !Number.isFinite(value)) {
+    throw new CalcInputError(field, `must be a finite number (got ${String(value)})`);
+  }
+  return value;
+}
+
+export function requirePositive(field: string, value: number): number {
+  requireFinite(field, value);
+  if (value <= 0) throw new CalcInputError(field, `must be greater than zero (got ${value})`);
+  return value;
+}
+
+export function requireInRange(field: string, value: number, min: number, max: number, unit: string): number {
+  requireFinite(field, value);
+  if (value < min || value > max) {
+    throw new CalcInputError(field, `${value} ${unit} is outside the valid range ${min}–${max} ${unit}`);
+  }
+  return value;
+}
