@@ -3,6 +3,7 @@ export type Quantity =
   | 'temperature'
   | 'temperature_difference'
   | 'pressure'
+  | 'pressure_difference'
   | 'power'
   | 'heat_transfer_coefficient'
   | 'velocity'
@@ -16,6 +17,7 @@ export const siUnitOf: Record<Quantity, string> = {
   temperature: 'K',
   temperature_difference: 'K',
   pressure: 'Pa',
+  pressure_difference: 'Pa',
   power: 'W',
   heat_transfer_coefficient: 'W/(m²·K)',
   velocity: 'm/s',
@@ -40,7 +42,7 @@ export const checkCatalog = {
   cleanU: { label: 'Clean U (HEI)', quantity: 'heat_transfer_coefficient' },
   cleanlinessFactor: { label: 'Cleanliness factor', quantity: 'ratio' },
   expectedBackpressure: { label: 'Expected backpressure', quantity: 'pressure' },
-  backpressureDeviation: { label: 'Backpressure deviation (actual − expected)', quantity: 'pressure' },
+  backpressureDeviation: { label: 'Backpressure deviation (actual − expected)', quantity: 'pressure_difference' },
   deviationCostPower: { label: 'Output lost to the deviation', quantity: 'power' },
   deviationCostMoney: { label: 'Cost of the deviation', quantity: 'money_rate' },
   dissolvedOxygen: { label: 'Condensate dissolved oxygen', quantity: 'concentration_ppb' },

@@ -18,7 +18,12 @@ const rules: Rule[] = [
     id: 'fouling-or-air-binding',
     title: 'Tube fouling or air binding',
     detail: 'TTD is high while the CW rise is normal: heat is not getting through the tubes. Check cleanliness trend, waterbox debris and air removal.',
-    applies: (c) => raised(c.ttd.status) && c.cwRise.status === 'normal',
+    // When cleanliness and the deviation from expected are both known and normal, a high TTD is
+    // explained by load and water temperature instead.
+    applies: (c) =>
+      raised(c.ttd.status) &&
+      c.cwRise.status === 'normal' &&
+      !(c.cleanlinessFactor.status === 'normal' && c.backpressureDeviation.status === 'normal'),
     severity: (c) => worst(c.ttd.status),
   },
   {

@@ -5,10 +5,7 @@ import { sessionKeys } from '../features/session/api/session-keys';
 import { AppShell } from './layout/app-shell';
 import { RequireRole } from './layout/require-role';
 import { SignInPage } from '../features/session/routes/sign-in-page';
-import { ChangePasswordPage } from '../features/session/routes/change-password-page';
 import { OverviewPage } from '../features/overview/routes/overview-page';
-import { UsersPage } from '../features/admin-users/routes/users-page';
-import { AuditPage } from '../features/audit/routes/audit-page';
 import { NotFoundPage } from './layout/not-found-page';
 
 export function createAppRouter(queryClient: QueryClient) {
@@ -21,13 +18,20 @@ export function createAppRouter(queryClient: QueryClient) {
       element: <AppShell />,
       children: [
         { index: true, element: <OverviewPage /> },
-        { path: 'account/password', element: <ChangePasswordPage /> },
+        {
+          path: 'account/password',
+          lazy: async () => ({ Component: (await import('../features/session/routes/change-password-page')).ChangePasswordPage }),
+        },
+        {
+          path: 'condenser-check',
+          lazy: async () => ({ Component: (await import('../features/condenser-check/routes/condenser-check-page')).CondenserCheckPage }),
+        },
         {
           path: 'admin',
           element: <RequireRole roles={['admin']} />,
           children: [
-            { path: 'people', element: <UsersPage /> },
-            { path: 'audit', element: <AuditPage /> },
+            { path: 'people', lazy: async () => ({ Component: (await import('../features/admin-users/routes/users-page')).UsersPage }) },
+            { path: 'audit', lazy: async () => ({ Component: (await import('../features/audit/routes/audit-page')).AuditPage }) },
           ],
         },
         { path: '*', element: <NotFoundPage /> },

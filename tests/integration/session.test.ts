@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { SIGN_IN_FAILED } from '../../server/lib/auth';
 import { SessionRow } from '../../server/features/session/model';

@@ -1,0 +1,91 @@
+import { expect, test } from '@playwright/test';
+import { DEMO_PASSWORD, signIn, signOut } from './support';
+
+const everyone = ['Overview', 'Condenser check', 'My password'];
+const adminOnly = ['People', 'Audit trail'];
+
+const roles = [
+  { email: 'trainee.a@fernhollow.example', label: 'Trainee', admin: false },
+  { email: 'operator.a@fernhollow.example', label: 'Operator', admin: false },
+  { email: 'lead.a@fernhollow.example', label: 'Shift lead', admin: false },
+  { email: 'trainer@fernhollow.example', label: 'Trainer', admin: false },
+  { email: 'admin@fernhollow.example', label: 'Administrator', admin: true },
+];
+
+for (const role of roles) {
+  test(`a ${role.label.toLowerCase()} signs in and sees that role's navigation`, async ({ page }) => {
+    await signIn(page, role.email);
+    await expect(page.getByTestId('signed-in-as')).toContainText(role.label);
+    const nav = page.getByRole('navigation', { name: 'Main' });
+    for (const item of everyone) await expect(nav.getByRole('link', { name: item })).toBeVisible();
+    for (const item of adminOnly) {
+      if (role.admin) await expect(nav.getByRole('link', { name: item })).toBeVisible();
+      else await expect(nav.getByRole('link', { name: item })).toHaveCount(0);
+    }
+    await signOut(page);
+  });
+}
+
+test('a wrong password shows the generic message on the form', async ({ page }) => {
+  await signIn(page, 'operator.a@fernhollow.example', 'not the password');
+  await expect(page.getByRole('alert')).toContainText('do not match an active account');
+});
+
+test('an empty form shows a message beside each field', async ({ page }) => {
+  await page.goto('/sign-in');
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page.getByText('Enter your e-mail address')).toBeVisible();
+  await expect(page.getByText('Enter your password')).toBeVisible();
+});
+
+test('a non-admin who types an admin address gets no admin page', async ({ page }) => {
+  await signIn(page, 'operator.a@fernhollow.example');
+  await expect(page.getByTestId('signed-in-as')).toBeVisible();
+  await page.goto('/admin/people');
+  await expect(page.getByText('This page is not available to your role.')).toBeVisible();
+});
+
+test('an unknown address shows the not-found page', async ({ page }) => {
+  await signIn(page, 'operator.a@fernhollow.example');
+  await expect(page.getByTestId('signed-in-as')).toBeVisible();
+  await page.goto('/no-such-page');
+  await expect(page.getByRole('heading', { name: 'Nothing here' })).toBeVisible();
+});
+
+test('an admin adds a person, who then signs in and must change the password', async ({ page }) => {
+  const email = `new.starter.${Date.now()}@fernhollow.example`;
+  await signIn(page, 'admin@fernhollow.example');
+  await page.getByRole('link', { name: 'People' }).click();
+  const form = page.getByRole('form', { name: 'Add a person' });
+  await form.getByLabel('Full name').fill('Juno Halvorsen');
+  await form.getByLabel('E-mail').fill(email);
+  await form.getByLabel('Role').selectOption('trainee');
+  await form.getByLabel('Crew').selectOption({ label: 'Crew C' });
+  await form.getByLabel('Temporary password').fill('first-day-password');
+  await form.getByRole('button', { name: 'Add person' }).click();
+  await expect(page.getByText('Added Juno Halvorsen')).toBeVisible();
+  await expect(page.getByTestId(`user-row-${email}`)).toContainText('temporary password');
+  await page.getByRole('link', { name: 'Audit trail' }).click();
+  await expect(page.getByRole('cell', { name: 'user.create' }).first()).toBeVisible();
+  await signOut(page);
+
+  await signIn(page, email, 'first-day-password');
+  await expect(page.getByRole('heading', { name: 'Change your password' })).toBeVisible();
+  await expect(page.getByText('You signed in with a temporary password')).toBeVisible();
+  // The rest of the app stays closed until the password is changed.
+  await page.getByRole('link', { name: 'Overview' }).click();
+  await expect(page.getByRole('heading', { name: 'Change your password' })).toBeVisible();
+  await page.getByLabel('Current password').fill('first-day-password');
+  await page.getByLabel('New password').fill('short');
+  await page.getByRole('button', { name: 'Change password' }).click();
+  await expect(page.getByText('Use at least 12 characters')).toBeVisible();
+  await page.getByLabel('New password').fill('my own long passphrase');
+  await page.getByRole('button', { name: 'Change password' }).click();
+  await expect(page.getByRole('heading', { name: 'Overview' })).toBeVisible();
+  await expect(page.getByTestId('signed-in-as')).toContainText('Juno Halvorsen · Trainee · Crew C');
+  await signOut(page);
+
+  await signIn(page, email, 'my own long passphrase');
+  await expect(page.getByRole('heading', { name: 'Overview' })).toBeVisible();
+  expect(DEMO_PASSWORD).not.toBe('my own long passphrase');
+});

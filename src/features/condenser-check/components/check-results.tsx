@@ -1,0 +1,75 @@
+import type { CheckKey } from '../../../../shared/calc/check-catalog';
+import type { Evaluation } from '../../../../shared/calc/evaluate';
+import { displayQuantity, type DisplayPreferences } from '../../../../shared/display';
+import { StatusBadge } from '../../../components/ui/status-badge';
+
+const groups: { title: string; keys: CheckKey[] }[] = [
+  {
+    title: 'Condenser',
+    keys: [
+      'backpressure', 'saturationTemperature', 'subcooling', 'ttd', 'itd', 'cwRise', 'lmtd', 'duty', 'overallU',
+      'tubeVelocity', 'cleanU', 'cleanlinessFactor', 'expectedBackpressure', 'backpressureDeviation',
+      'deviationCostPower', 'deviationCostMoney', 'dissolvedOxygen',
+    ],
+  },
+  { title: 'Cooling tower', keys: ['wetBulb', 'towerRange', 'towerApproach', 'towerEffectiveness', 'evaporation', 'cycles', 'blowdownNeeded', 'makeupNeeded'] },
+  { title: 'Water chemistry', keys: ['langelier', 'ryznar'] },
+];
+
+export function CheckResults({ evaluation, prefs }: { evaluation: Evaluation; prefs: DisplayPreferences }) {
+  return (
+    <div className="flex flex-col gap-4">
+      {evaluation.notes.map((note) => (
+        <p key={note} className="rounded-md border border-line bg-panel px-3 py-2 text-sm">
+          ℹ {note}
+        </p>
+      ))}
+      {evaluation.hints.length ? (
+        <section aria-label="Possible causes" className="rounded-lg border-2 border-watch bg-panel p-3">
+          <h3 className="font-bold">Possible causes to look into</h3>
+          <ul className="mt-2 flex flex-col gap-2">
+            {evaluation.hints.map((hint) => (
+              <li key={hint.id}>
+                <StatusBadge status={hint.severity} /> <strong>{hint.title}</strong> — {hint.detail}
+                <span className="block text-xs text-muted">Basis: {hint.basis} A possibility, not a diagnosis.</span>
+              </li>
+            ))}
+          </ul>
+        </section>
+      ) : null}
+      {groups.map((group) => (
+        <section key={group.title} className="rounded-lg border border-line bg-panel p-3">
+          <h3 className="mb-2 font-bold">{group.title}</h3>
+          <table className="w-full text-left">
+            <tbody>
+              {group.keys.map((key) => {
+                const check = evaluation.checks[key];
+                const shown = check.value === null ? null : displayQuantity(check.value, check.quantity, prefs);
+                return (
+                  <tr key={key} className="border-t border-line align-top" data-testid={`check-${key}`}>
+                    <td className="py-1.5 pr-2">
+                      {check.label}
+                      {check.reason ? <span className="block text-xs text-muted">{check.reason}</span> : null}
+                    </td>
+                    <td className="reading py-1.5 pr-2 text-right text-lg font-semibold whitespace-nowrap">
+                      {shown ? (
+                        <>
+                          {shown.text} <span className="text-sm font-normal text-muted">{shown.unit}</span>
+                        </>
+                      ) : (
+                        '—'
+                      )}
+                    </td>
+                    <td className="py-1.5 text-right">
+                      <StatusBadge status={check.status} />
+                    </td>
+                  </tr>
+                );
+              })}
+            </tbody>
+          </table>
+        </section>
+      ))}
+    </div>
+  );
+}

@@ -1,0 +1,129 @@
+// The round form holds text as typed; this turns it into the shared reading-set contract.
+import { readingSetInputSchema, type ReadingSetInput } from '../../../../shared/schemas/reading-set';
+import type { AbsolutePressureUnit, FlowUnit, PressureUnit, TemperatureUnit } from '../../../../shared/units';
+
+export type ReadingFormValues = {
+  pressure: string;
+  pressureUnit: PressureUnit;
+  barometer: string;
+  barometerUnit: AbsolutePressureUnit;
+  temperatureUnit: TemperatureUnit;
+  hotwell: string;
+  cwInlet: string;
+  cwOutlet: string;
+  cwFlow: string;
+  flowUnit: FlowUnit;
+  steamFlowTH: string;
+  dissolvedOxygen: string;
+  basin: string;
+  wetBulb: string;
+  dryBulb: string;
+  relativeHumidity: string;
+  stationPressureKPa: string;
+  makeupConductivity: string;
+  basinConductivity: string;
+  targetCycles: string;
+  pH: string;
+  sampleTemperature: string;
+  tds: string;
+  calciumHardness: string;
+  alkalinity: string;
+};
+
+export const emptyReadingForm = (units: Pick<ReadingFormValues, 'pressureUnit' | 'temperatureUnit' | 'flowUnit' | 'barometerUnit'>): ReadingFormValues => ({
+  pressure: '',
+  barometer: '',
+  hotwell: '',
+  cwInlet: '',
+  cwOutlet: '',
+  cwFlow: '',
+  steamFlowTH: '',
+  dissolvedOxygen: '',
+  basin: '',
+  wetBulb: '',
+  dryBulb: '',
+  relativeHumidity: '',
+  stationPressureKPa: '',
+  makeupConductivity: '',
+  basinConductivity: '',
+  targetCycles: '',
+  pH: '',
+  sampleTemperature: '',
+  tds: '',
+  calciumHardness: '',
+  alkalinity: '',
+  ...units,
+});
+
+/** '' → absent; anything else → a number (NaN when it is not one, which the schema reports). */
+const num = (text: string): number | undefined => (text.trim() === '' ? undefined : Number(text.replace(',', '.')));
+const given = (...texts: string[]) => texts.some((t) => t.trim() !== '');
+
+/** Where each contract path is typed on the form, so a message lands beside the right box. */
+export const fieldForPath: Record<string, keyof ReadingFormValues> = {
+  'pressure.value': 'pressure',
+  'barometer.value': 'barometer',
+  'hotwellTemperature.value': 'hotwell',
+  'cwInletTemperature.value': 'cwInlet',
+  'cwOutletTemperature.value': 'cwOutlet',
+  'cwFlow.value': 'cwFlow',
+  'steamFlow.value': 'steamFlowTH',
+  dissolvedOxygenPpb: 'dissolvedOxygen',
+  'tower.coldWaterTemperature.value': 'basin',
+  'tower.wetBulbTemperature.value': 'wetBulb',
+  'tower.dryBulbTemperature.value': 'dryBulb',
+  'tower.relativeHumidityPercent': 'relativeHumidity',
+  'tower.stationPressure.value': 'stationPressureKPa',
+  'tower.makeupConductivity.value': 'makeupConductivity',
+  'tower.basinConductivity.value': 'basinConductivity',
+  'tower.targetCycles': 'targetCycles',
+  'chemistry.pH': 'pH',
+  'chemistry.temperature.value': 'sampleTemperature',
+  'chemistry.tdsMgL': 'tds',
+  'chemistry.calciumHardnessMgL': 'calciumHardness',
+  'chemistry.alkalinityMgL': 'alkalinity',
+};
+
+export type FormErrors = Partial<Record<keyof ReadingFormValues, string>>;
+
+export function toReadingSet(unitId: number, v: ReadingFormValues): { input: ReadingSetInput | null; errors: FormErrors } {
+  const t = (text: string) => (given(text) ? { value: num(text), unit: v.temperatureUnit } : null);
+  const raw = {
+    unitId,
+    pressure: { value: num(v.pressure), unit: v.pressureUnit },
+    barometer: given(v.barometer) ? { value: num(v.barometer), unit: v.barometerUnit } : null,
+    hotwellTemperature: { value: num(v.hotwell), unit: v.temperatureUnit },
+    cwInletTemperature: { value: num(v.cwInlet), unit: v.temperatureUnit },
+    cwOutletTemperature: { value: num(v.cwOutlet), unit: v.temperatureUnit },
+    cwFlow: given(v.cwFlow) ? { value: num(v.cwFlow), unit: v.flowUnit } : null,
+    steamFlow: given(v.steamFlowTH) ? { value: num(v.steamFlowTH), unit: 't_h' } : null,
+    dissolvedOxygenPpb: num(v.dissolvedOxygen) ?? null,
+    tower: {
+      coldWaterTemperature: t(v.basin),
+      wetBulbTemperature: t(v.wetBulb),
+      dryBulbTemperature: t(v.dryBulb),
+      relativeHumidityPercent: num(v.relativeHumidity) ?? null,
+      stationPressure: given(v.stationPressureKPa) ? { value: num(v.stationPressureKPa), unit: 'kPa_a' } : null,
+      makeupConductivity: given(v.makeupConductivity) ? { value: num(v.makeupConductivity), unit: 'uS_cm' } : null,
+      basinConductivity: given(v.basinConductivity) ? { value: num(v.basinConductivity), unit: 'uS_cm' } : null,
+      targetCycles: num(v.targetCycles) ?? null,
+    },
+    chemistry: given(v.pH, v.sampleTemperature, v.tds, v.calciumHardness, v.alkalinity)
+      ? {
+          pH: num(v.pH),
+          temperature: { value: num(v.sampleTemperature), unit: v.temperatureUnit },
+          tdsMgL: num(v.tds),
+          calciumHardnessMgL: num(v.calciumHardness),
+          alkalinityMgL: num(v.alkalinity),
+        }
+      : null,
+  };
+  const parsed = readingSetInputSchema.safeParse(raw);
+  if (parsed.success) return { input: parsed.data, errors: {} };
+  const errors: FormErrors = {};
+  for (const issue of parsed.error.issues) {
+    const field = fieldForPath[issue.path.join('.')];
+    if (field) errors[field] ??= issue.message;
+  }
+  return { input: null, errors };
+}

@@ -1,0 +1,18 @@
+import type { AbsolutePressureUnit, FlowUnit, PressureUnit, TemperatureUnit } from '../../../../shared/units';
+
+export type UnitChoices = { pressureUnit: PressureUnit; temperatureUnit: TemperatureUnit; flowUnit: FlowUnit; barometerUnit: AbsolutePressureUnit };
+const KEY = 'hotwell.unit-choices';
+const defaults: UnitChoices = { pressureUnit: 'kPa_a', temperatureUnit: 'degC', flowUnit: 'm3_h', barometerUnit: 'kPa_a' };
+
+/** Each person's unit choices are remembered on their device. */
+export function loadUnitChoices(): UnitChoices {
+  try {
+    return { ...defaults, ...(JSON.parse(localStorage.getItem(KEY) ?? '{}') as Partial<UnitChoices>) };
+  } catch {
+    return defaults;
+  }
+}
+
+export function saveUnitChoices(choices: UnitChoices) {
+  localStorage.setItem(KEY, JSON.stringify(choices));
+}
