@@ -26,7 +26,7 @@ test('an operator types a round and sees the checks, statuses and units update l
 
   // Switching to a vacuum gauge shows the barometer box and the assumption.
   await page.getByLabel('Pressure gauge').selectOption('inHg_vac');
-  await expect(page.getByLabel('Barometer')).toBeVisible();
+  await expect(page.getByLabel('Barometer', { exact: true })).toBeVisible();
   await page.getByLabel('Condenser vacuum').fill('27.55');
   await expect(page.getByText('the standard atmosphere (101.325 kPa) was assumed')).toBeVisible();
   await expect(page.getByTestId('check-backpressure')).toContainText('inHgA');
