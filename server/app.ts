@@ -15,6 +15,14 @@ import { makeUserService } from './features/users/service';
 import { adminAuditRoutes } from './features/audit/routes';
 import { plantRoutes } from './features/plant/routes';
 import { calcRoutes } from './features/calc/routes';
+import { makeVersionService } from './features/plant/versions';
+import { makeReadingService } from './features/readings/service';
+import { readingRoutes } from './features/readings/routes';
+import { makeFlagService } from './features/flags/service';
+import { flagRoutes } from './features/flags/routes';
+import { trendRoutes } from './features/trends/routes';
+import { makeImportService } from './features/imports/service';
+import { importRoutes } from './features/imports/routes';
 
 const SequelizeStore = ConnectSessionSequelize(session.Store);
 
@@ -82,7 +90,11 @@ export function createApp(sequelize: Sequelize, config: Pick<AppConfig, 'session
   app.use('/api', sessionRoutes(users, csrf, config.signInRateLimit));
   app.use('/api/admin/users', adminUserRoutes(users));
   app.use('/api/admin/audit-events', adminAuditRoutes());
-  app.use('/api/plant', plantRoutes());
+  app.use('/api/plant', plantRoutes(sequelize, makeVersionService(sequelize)));
+  app.use('/api', readingRoutes(makeReadingService(sequelize)));
+  app.use('/api', flagRoutes(makeFlagService(sequelize)));
+  app.use('/api', trendRoutes(sequelize));
+  app.use('/api', importRoutes(makeImportService(sequelize)));
   app.use('/api/calc', calcRoutes());
   app.use('/api', (_req, _res, next) => next(new NotFound('That API route')));
 

@@ -3,6 +3,9 @@ import { User } from '../features/users/model';
 import { SessionRow } from '../features/session/model';
 import { AuditEvent } from '../features/audit/model';
 import { initPlantModels } from '../features/plant/model';
+import { initReadingModels } from '../features/readings/model';
+import { initFlagModel } from '../features/flags/model';
+import { initImportModel } from '../features/imports/model';
 
 /** Registers every model on the instance. Schema comes from migrations, never from sync(). */
 export function initModels(sequelize: Sequelize) {
@@ -10,4 +13,7 @@ export function initModels(sequelize: Sequelize) {
   SessionRow.initModel(sequelize);
   AuditEvent.initModel(sequelize);
   initPlantModels(sequelize);
+  initReadingModels(sequelize);
+  initFlagModel(sequelize);
+  initImportModel(sequelize);
 }

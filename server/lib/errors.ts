@@ -60,6 +60,15 @@ export const errorMiddleware: ErrorRequestHandler = (error, _req, res, _next) =>
     res.status(error.status).json({ error: { code: error.code, message: error.message, fields: error.fields } });
     return;
   }
+  if ((error as Error).name === 'MulterError') {
+    const code = (error as { code?: string }).code;
+    if (code === 'LIMIT_FILE_SIZE') {
+      res.status(413).json({ error: { code: 'TOO_LARGE', message: 'The file is larger than 10 MB; split it and import the parts', fields: { file: 'Larger than 10 MB' } } });
+    } else {
+      res.status(400).json({ error: { code: 'VALIDATION', message: 'The upload was not understood', fields: { file: (error as Error).message } } });
+    }
+    return;
+  }
   const parserError = error as BodyParserError;
   if (parserError.type === 'entity.parse.failed') {
     res.status(400).json({ error: { code: 'MALFORMED_JSON', message: 'The request body is not valid JSON' } });

@@ -1,38 +1,12 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { CondenserDesign, PlantUnit, Station } from '../../server/features/plant/model';
-import { anonymousAgent, buildApp, closeAll, makeUser, signedInAgent } from './support/test-app';
+import { anonymousAgent, buildApp, closeAll, makeUnit, makeUser, signedInAgent } from './support/test-app';
 
 afterAll(closeAll);
 const built = buildApp();
 let unitId = 0;
 
 beforeAll(async () => {
-  const [station] = await Station.findOrCreate({ where: { code: 'TST' }, defaults: { code: 'TST', name: 'Test station' } });
-  const unit = await PlantUnit.create({ stationId: station.id, code: `C${Date.now() % 100000}`, name: 'Calc test unit' });
-  unitId = unit.id;
-  // Data-sheet design built by hand from the steam tables (see tests/unit/condenser.test.ts).
-  await CondenserDesign.create({
-    unitId,
-    surfaceAreaM2: 17_500,
-    tubeOdMm: 25.4,
-    tubeGaugeBwg: 22,
-    tubeMaterial: 'titanium',
-    tubeCount: 19_800,
-    passes: 1,
-    designCwFlowKgS: 15_000,
-    designCwInletK: 295.15,
-    designBackpressurePa: 8000,
-    designDutyW: 560e6,
-    designCleanliness: 0.9,
-    designCleanUWM2K: 2192.9 / 0.9,
-    backpressureCorrection: [
-      [4000, -1.5],
-      [8000, 0],
-      [12000, 3.5],
-    ],
-    energyPricePerMwh: 80,
-    currency: 'EUR',
-  });
+  unitId = (await makeUnit()).id;
 });
 
 const reading = () => ({

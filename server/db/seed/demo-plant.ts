@@ -55,4 +55,7 @@ export const demoCondenserDesign = {
   ] as [number, number][],
   energyPricePerMwh: 85,
   currency: 'EUR',
+  towerDesignRangeK: 9,
+  towerDesignApproachK: 6,
+  towerDesignWetBulbK: 273.15 + 19,
 };

@@ -1,7 +1,8 @@
 // Loads the demo scenario once. Idempotent: rows that exist are left exactly as they are.
 import type { Sequelize } from 'sequelize';
 import { hashPassword } from '../../lib/auth';
-import { CondenserDesign, Crew, Equipment, PlantUnit, Station } from '../../features/plant/model';
+import { Crew, Equipment, LimitSetVersion, PlantUnit, Station, UnitDesignVersion } from '../../features/plant/model';
+import { startingLimits } from '../../../shared/calc/limits';
 import { User } from '../../features/users/model';
 import type { Role } from '../../../shared/roles';
 import people from './demo-people.json';
@@ -38,12 +39,19 @@ export async function seedDemo(sequelize: Sequelize): Promise<{ created: number 
         });
         created += Number(madeEquipment);
       }
-      const [, madeDesign] = await CondenserDesign.findOrCreate({
+      // The first versions count from long ago, so imported history is judged by them too.
+      const since = new Date('2000-01-01T00:00:00Z');
+      const [, madeDesign] = await UnitDesignVersion.findOrCreate({
         where: { unitId: row.id },
-        defaults: { unitId: row.id, ...demoCondenserDesign },
+        defaults: { unitId: row.id, effectiveFrom: since, data: demoCondenserDesign, note: 'Demo design data', createdBy: null },
         transaction,
       });
-      created += Number(madeDesign);
+      const [, madeLimits] = await LimitSetVersion.findOrCreate({
+        where: { unitId: row.id },
+        defaults: { unitId: row.id, effectiveFrom: since, limits: startingLimits, note: 'Starting limits (common practice)', createdBy: null },
+        transaction,
+      });
+      created += Number(madeDesign) + Number(madeLimits);
     }
     for (const person of people.users) {
       const [, made] = await User.findOrCreate({

@@ -1,13 +1,10 @@
 import { Router } from 'express';
 import { evaluateReadingSet } from '../../../shared/calc/evaluate';
-import { CalcInputError } from '../../../shared/calc/input-error';
-import { startingLimits } from '../../../shared/calc/limits';
-import { readingSetToSi } from '../../../shared/calc/reading-set-si';
 import { readingSetInputSchema } from '../../../shared/schemas/reading-set';
 import { signedIn } from '../../lib/auth';
-import { ValidationError } from '../../lib/errors';
+import { convertReadingSet } from '../../lib/convert-readings';
 import { parseId, parseInput } from '../../lib/validate';
-import { loadCondenserDesign } from './condenser-design';
+import { designInForce, limitsInForce, requireUnit } from '../plant/versions';
 
 export function calcRoutes(): Router {
   const router = Router();
@@ -16,21 +13,19 @@ export function calcRoutes(): Router {
   /** Every check for one reading set, with units, statuses and possible-cause hints. Saves nothing. */
   router.post('/condenser', async (req, res) => {
     const input = parseInput(readingSetInputSchema, req.body);
-    let si;
-    try {
-      si = readingSetToSi(input);
-    } catch (error) {
-      if (error instanceof CalcInputError) throw new ValidationError({ [error.field]: error.detail });
-      throw error;
-    }
-    const design = await loadCondenserDesign(input.unitId);
-    // Until units carry their own limit sets, the starting limits (common practice) apply.
-    const evaluation = evaluateReadingSet(si, design, startingLimits);
-    res.json({ ...evaluation, limitsSource: 'starting limits (common practice)', inputsSi: si });
+    const si = convertReadingSet(input);
+    await requireUnit(input.unitId);
+    const [design, limits] = await Promise.all([designInForce(input.unitId), limitsInForce(input.unitId)]);
+    const evaluation = evaluateReadingSet(si, design.data, limits.limits);
+    res.json({ ...evaluation, designVersionId: design.id, limitVersionId: limits.id, inputsSi: si });
   });
 
+  /** The design data and limits in force now: what the client needs to compute live. */
   router.get('/units/:unitId/condenser-design', async (req, res) => {
-    res.json({ design: await loadCondenserDesign(parseId(req.params.unitId, 'unitId')), limits: startingLimits });
+    const unitId = parseId(req.params.unitId, 'unitId');
+    await requireUnit(unitId);
+    const [design, limits] = await Promise.all([designInForce(unitId), limitsInForce(unitId)]);
+    res.json({ design: design.data, limits: limits.limits, designVersionId: design.id, limitVersionId: limits.id });
   });
 
   return router;

@@ -1,4 +1,5 @@
-import type { TubeMaterial } from '../../../shared/calc/hei';
+import type { LimitSet } from '../../../shared/calc/limits';
+import type { UnitDesign } from '../../../shared/schemas/plant';
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 
 const timestamps = { createdAt: DataTypes.DATE(3), updatedAt: DataTypes.DATE(3) };
@@ -40,26 +41,26 @@ export class Crew extends Model<InferAttributes<Crew>, InferCreationAttributes<C
   declare updatedAt: CreationOptional<Date>;
 }
 
-export class CondenserDesign extends Model<InferAttributes<CondenserDesign>, InferCreationAttributes<CondenserDesign>> {
+/** One version of a unit's design data (condenser, tower); SI. Never updated: a change is a new version. */
+export class UnitDesignVersion extends Model<InferAttributes<UnitDesignVersion>, InferCreationAttributes<UnitDesignVersion>> {
   declare id: CreationOptional<number>;
   declare unitId: number;
-  declare surfaceAreaM2: number;
-  declare tubeOdMm: number;
-  declare tubeGaugeBwg: number;
-  declare tubeMaterial: TubeMaterial;
-  declare tubeCount: number;
-  declare passes: number;
-  declare designCwFlowKgS: number;
-  declare designCwInletK: number;
-  declare designBackpressurePa: number;
-  declare designDutyW: number;
-  declare designCleanliness: number;
-  declare designCleanUWM2K: number | null;
-  declare backpressureCorrection: [number, number][];
-  declare energyPricePerMwh: number | null;
-  declare currency: string | null;
+  declare effectiveFrom: Date;
+  declare data: UnitDesign;
+  declare note: string | null;
+  declare createdBy: number | null;
   declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
+}
+
+/** One version of a unit's watch/alarm limits; SI. Never updated: a change is a new version. */
+export class LimitSetVersion extends Model<InferAttributes<LimitSetVersion>, InferCreationAttributes<LimitSetVersion>> {
+  declare id: CreationOptional<number>;
+  declare unitId: number;
+  declare effectiveFrom: Date;
+  declare limits: LimitSet;
+  declare note: string | null;
+  declare createdBy: number | null;
+  declare createdAt: CreationOptional<Date>;
 }
 
 export function initPlantModels(sequelize: Sequelize) {
@@ -86,27 +87,20 @@ export function initPlantModels(sequelize: Sequelize) {
     { id: pk, stationId: DataTypes.INTEGER.UNSIGNED, name: DataTypes.STRING(40), ...timestamps },
     { sequelize, tableName: 'crews' },
   );
-  CondenserDesign.init(
-    {
-      id: pk,
-      unitId: DataTypes.INTEGER.UNSIGNED,
-      surfaceAreaM2: { type: DataTypes.DOUBLE, field: 'surface_area_m2' },
-      tubeOdMm: DataTypes.DOUBLE,
-      tubeGaugeBwg: DataTypes.INTEGER,
-      tubeMaterial: DataTypes.STRING(40),
-      tubeCount: DataTypes.INTEGER,
-      passes: DataTypes.INTEGER,
-      designCwFlowKgS: { type: DataTypes.DOUBLE, field: 'design_cw_flow_kg_s' },
-      designCwInletK: { type: DataTypes.DOUBLE, field: 'design_cw_inlet_k' },
-      designBackpressurePa: { type: DataTypes.DOUBLE, field: 'design_backpressure_pa' },
-      designDutyW: { type: DataTypes.DOUBLE, field: 'design_duty_w' },
-      designCleanliness: DataTypes.DOUBLE,
-      designCleanUWM2K: { type: DataTypes.DOUBLE, field: 'design_clean_u_w_m2k' },
-      backpressureCorrection: DataTypes.JSON,
-      energyPricePerMwh: DataTypes.DOUBLE,
-      currency: DataTypes.STRING(8),
-      ...timestamps,
-    },
-    { sequelize, tableName: 'condenser_designs' },
+  const versionColumns = {
+    id: pk,
+    unitId: DataTypes.INTEGER.UNSIGNED,
+    effectiveFrom: DataTypes.DATE(3),
+    note: DataTypes.STRING(500),
+    createdBy: DataTypes.INTEGER.UNSIGNED,
+    createdAt: DataTypes.DATE(3),
+  };
+  UnitDesignVersion.init(
+    { ...versionColumns, data: DataTypes.JSON },
+    { sequelize, tableName: 'unit_design_versions', updatedAt: false },
+  );
+  LimitSetVersion.init(
+    { ...versionColumns, limits: DataTypes.JSON },
+    { sequelize, tableName: 'limit_set_versions', updatedAt: false },
   );
 }

@@ -1,21 +1,100 @@
 import { Router } from 'express';
-import { signedIn } from '../../lib/auth';
-import { Crew, PlantUnit, Station } from './model';
+import { z } from 'zod';
+import { newDesignVersionSchema, newLimitVersionSchema } from '../../../shared/schemas/plant';
+import { adminOnly, signedIn } from '../../lib/auth';
+import { recordAudit } from '../../lib/audit';
+import { ValidationError } from '../../lib/errors';
+import { parseId, parseInput } from '../../lib/validate';
+import { User } from '../users/model';
+import { Crew, Equipment, LimitSetVersion, PlantUnit, Station, UnitDesignVersion } from './model';
+import { designInForce, limitsInForce, requireUnit, type VersionService } from './versions';
+import type { Sequelize } from 'sequelize';
+import { UniqueConstraintError } from 'sequelize';
 
-/** Read-only plant lists every signed-in role needs (crews for forms, units for pickers). */
-export function plantRoutes(): Router {
+const equipmentSchema = z.object({
+  kind: z.enum(['condenser', 'cw_pump', 'cooling_tower', 'air_removal', 'other'], { message: 'Choose a kind of equipment' }),
+  tag: z.string().trim().min(1, 'Enter the tag').max(32).regex(/^[A-Za-z0-9][A-Za-z0-9_.\-/]*$/, 'Letters, digits and - _ . / only'),
+  name: z.string().trim().min(2, 'Enter a name').max(120),
+});
+
+/** Plant setup: everyone signed in reads it; only administrators change it, always as a new version. */
+export function plantRoutes(sequelize: Sequelize, versions: VersionService): Router {
   const router = Router();
   router.use(signedIn);
+
   router.get('/crews', async (_req, res) => {
     const crews = await Crew.findAll({ order: [['name', 'ASC']] });
     res.json({ crews: crews.map((c) => ({ id: c.id, name: c.name, stationId: c.stationId })) });
   });
+
   router.get('/units', async (_req, res) => {
     const [units, stations] = await Promise.all([PlantUnit.findAll({ order: [['code', 'ASC']] }), Station.findAll()]);
     const stationNames = new Map(stations.map((s) => [s.id, s.name]));
+    res.json({ units: units.map((u) => ({ id: u.id, code: u.code, name: u.name, station: stationNames.get(u.stationId) ?? '' })) });
+  });
+
+  router.get('/people', async (_req, res) => {
+    // For pickers (who follows up a flag): names and roles of active people, nothing more.
+    const people = await User.findAll({ where: { active: true }, attributes: ['id', 'name', 'role'], order: [['name', 'ASC']] });
+    res.json({ people: people.map((p) => ({ id: p.id, name: p.name, role: p.role })) });
+  });
+
+  router.get('/units/:unitId/setup', async (req, res) => {
+    const unitId = parseId(req.params.unitId, 'unitId');
+    const unit = await requireUnit(unitId);
+    const [design, limits, designHistory, limitHistory, equipment] = await Promise.all([
+      designInForce(unitId),
+      limitsInForce(unitId),
+      UnitDesignVersion.findAll({ where: { unitId }, order: [['effectiveFrom', 'DESC'], ['id', 'DESC']], attributes: ['id', 'effectiveFrom', 'note', 'createdBy'] }),
+      LimitSetVersion.findAll({ where: { unitId }, order: [['effectiveFrom', 'DESC'], ['id', 'DESC']], attributes: ['id', 'effectiveFrom', 'note', 'createdBy'] }),
+      Equipment.findAll({ where: { unitId }, order: [['kind', 'ASC'], ['tag', 'ASC']] }),
+    ]);
+    const authorIds = [...new Set([...designHistory, ...limitHistory].map((v) => v.createdBy).filter((id): id is number => id !== null))];
+    const authors = new Map((await User.findAll({ where: { id: authorIds }, attributes: ['id', 'name'] })).map((u) => [u.id, u.name]));
+    const history = (v: { id: number; effectiveFrom: Date; note: string | null; createdBy: number | null }) => ({
+      id: v.id,
+      effectiveFrom: v.effectiveFrom.toISOString(),
+      note: v.note,
+      by: v.createdBy ? (authors.get(v.createdBy) ?? `#${v.createdBy}`) : 'set-up',
+    });
     res.json({
-      units: units.map((u) => ({ id: u.id, code: u.code, name: u.name, station: stationNames.get(u.stationId) ?? '' })),
+      unit: { id: unit.id, code: unit.code, name: unit.name },
+      design: { versionId: design.id, data: design.data },
+      limits: { versionId: limits.id, data: limits.limits },
+      designHistory: designHistory.map(history),
+      limitHistory: limitHistory.map(history),
+      equipment: equipment.map((e) => ({ id: e.id, kind: e.kind, tag: e.tag, name: e.name })),
     });
   });
+
+  router.post('/units/:unitId/design-versions', adminOnly, async (req, res) => {
+    const input = parseInput(newDesignVersionSchema, req.body);
+    const created = await versions.addDesignVersion(req.user!.id, parseId(req.params.unitId, 'unitId'), input.design as never, input.note);
+    res.status(201).json({ versionId: created.id });
+  });
+
+  router.post('/units/:unitId/limit-versions', adminOnly, async (req, res) => {
+    const input = parseInput(newLimitVersionSchema, req.body);
+    const created = await versions.addLimitVersion(req.user!.id, parseId(req.params.unitId, 'unitId'), input.limits, input.note);
+    res.status(201).json({ versionId: created.id });
+  });
+
+  router.post('/units/:unitId/equipment', adminOnly, async (req, res) => {
+    const unitId = parseId(req.params.unitId, 'unitId');
+    await requireUnit(unitId);
+    const input = parseInput(equipmentSchema, req.body);
+    try {
+      const created = await sequelize.transaction(async (transaction) => {
+        const row = await Equipment.create({ unitId, ...input }, { transaction });
+        await recordAudit({ actorId: req.user!.id, action: 'equipment.create', entity: 'equipment', entityId: row.id, after: input }, transaction);
+        return row;
+      });
+      res.status(201).json({ equipment: { id: created.id, ...input } });
+    } catch (error) {
+      if (error instanceof UniqueConstraintError) throw new ValidationError({ tag: 'This unit already has equipment with that tag' });
+      throw error;
+    }
+  });
+
   return router;
 }

@@ -6,7 +6,9 @@ import { createSequelize } from '../../../server/db/sequelize';
 import { initModels } from '../../../server/db/models';
 import { hashPassword } from '../../../server/lib/auth';
 import { User } from '../../../server/features/users/model';
-import { Crew, Station } from '../../../server/features/plant/model';
+import { Crew, LimitSetVersion, PlantUnit, Station, UnitDesignVersion } from '../../../server/features/plant/model';
+import { startingLimits, type LimitSet } from '../../../shared/calc/limits';
+import type { UnitDesign } from '../../../shared/schemas/plant';
 import type { Role } from '../../../shared/roles';
 
 const url = process.env.TEST_DATABASE_URL;
@@ -81,4 +83,41 @@ export async function signedInAgent(built: BuiltApp, email: string, password = P
   if (response.status !== 200) throw new Error(`sign-in failed: ${response.status} ${JSON.stringify(response.body)}`);
   agent.csrf = response.body.csrfToken;
   return agent;
+}
+
+/**
+ * A data-sheet design built by hand from the steam tables (see tests/unit/condenser.test.ts): at
+ * 15 000 kg/s, 22 °C inlet and 560 MW it holds 8 kPa a at cleanliness 0.90.
+ */
+export const handBuiltDesign: UnitDesign = {
+  surfaceAreaM2: 17_500,
+  tubeOdMm: 25.4,
+  tubeGaugeBwg: 22,
+  tubeMaterial: 'titanium',
+  tubeCount: 19_800,
+  passes: 1,
+  designCwFlowKgS: 15_000,
+  designCwInletK: 295.15,
+  designBackpressurePa: 8000,
+  designDutyW: 560e6,
+  designCleanliness: 0.9,
+  designCleanUWM2K: 2192.9 / 0.9,
+  backpressureCorrection: [
+    [4000, -1.5],
+    [8000, 0],
+    [12000, 3.5],
+  ],
+  energyPricePerMwh: 80,
+  currency: 'EUR',
+};
+
+/** A unit with design data and the starting limits in force since 2000. */
+export async function makeUnit(options: { limits?: LimitSet } = {}) {
+  counter += 1;
+  const [station] = await Station.findOrCreate({ where: { code: 'TST' }, defaults: { code: 'TST', name: 'Test station' } });
+  const unit = await PlantUnit.create({ stationId: station.id, code: `T${Date.now() % 1_000_000}${counter}`, name: `Test unit ${counter}` });
+  const since = new Date('2000-01-01T00:00:00Z');
+  await UnitDesignVersion.create({ unitId: unit.id, effectiveFrom: since, data: handBuiltDesign, note: 'test design', createdBy: null });
+  await LimitSetVersion.create({ unitId: unit.id, effectiveFrom: since, limits: options.limits ?? startingLimits, note: 'test limits', createdBy: null });
+  return unit;
 }

@@ -1,0 +1,62 @@
+import { Router, type RequestHandler } from 'express';
+import multer from 'multer';
+import { importMappingSchema } from '../../../shared/schemas/imports';
+import { authorize } from '../../lib/auth';
+import { ValidationError } from '../../lib/errors';
+import { parseId, parseInput } from '../../lib/validate';
+import { requireUnit } from '../plant/versions';
+import { MAX_IMPORT_BYTES, parseCsv } from './parse-csv';
+import { analyseImport, rememberedMappings, type ImportService } from './service';
+
+const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: MAX_IMPORT_BYTES, files: 1, fields: 5, fieldSize: 64 * 1024 } });
+const mayImport = authorize(['operator', 'shift_lead', 'admin']);
+// Authorize before reading a byte of the upload.
+const withFile: RequestHandler[] = [mayImport, upload.single('file')];
+
+function fileOf(req: Express.Request): Buffer {
+  if (!req.file) throw new ValidationError({ file: 'Choose a CSV file' });
+  return req.file.buffer;
+}
+
+function mappingOf(body: unknown) {
+  const text = (body as { mapping?: unknown })?.mapping;
+  if (typeof text !== 'string') throw new ValidationError({ mapping: 'Map the columns first' });
+  let json: unknown;
+  try {
+    json = JSON.parse(text);
+  } catch {
+    throw new ValidationError({ mapping: 'The mapping is not valid JSON' });
+  }
+  return parseInput(importMappingSchema, json);
+}
+
+export function importRoutes(imports: ImportService): Router {
+  const router = Router();
+
+  router.get('/units/:unitId/import-mappings', mayImport, async (req, res) => {
+    const unitId = parseId(req.params.unitId, 'unitId');
+    await requireUnit(unitId);
+    res.json({ mappings: await rememberedMappings(unitId) });
+  });
+
+  /** Step 1: the file's columns and a few rows, to map them. */
+  router.post('/units/:unitId/imports/inspect', ...withFile, async (req, res) => {
+    await requireUnit(parseId(req.params.unitId, 'unitId'));
+    const { headers, rows } = parseCsv(fileOf(req));
+    res.json({ headers, sample: rows.slice(0, 5), rowCount: rows.length });
+  });
+
+  /** Step 2: every row checked against the mapping; nothing stored. */
+  router.post('/units/:unitId/imports/preview', ...withFile, async (req, res) => {
+    const analysis = await analyseImport(parseId(req.params.unitId, 'unitId'), fileOf(req), mappingOf(req.body));
+    res.json({ counts: analysis.counts, rows: analysis.reports.slice(0, 1000) });
+  });
+
+  /** Step 3: store the valid rows in one transaction and report the rest. */
+  router.post('/units/:unitId/imports', ...withFile, async (req, res) => {
+    const result = await imports.commit(req.user!, parseId(req.params.unitId, 'unitId'), fileOf(req), mappingOf(req.body));
+    res.status(201).json(result);
+  });
+
+  return router;
+}

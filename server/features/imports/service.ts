@@ -1,0 +1,186 @@
+// Historian CSV import: map columns, preview every row, then store the valid ones in one transaction.
+import { Op, type Sequelize } from 'sequelize';
+import type { ReadingSetSi } from '../../../shared/calc/evaluate';
+import { importFields, type ImportField, type ImportMapping, type ImportRowReport } from '../../../shared/schemas/imports';
+import { readingSetInputSchema, type ReadingSetInput } from '../../../shared/schemas/reading-set';
+import { recordAudit } from '../../lib/audit';
+import { convertReadingSet } from '../../lib/convert-readings';
+import { ValidationError, fieldErrorsFromZod } from '../../lib/errors';
+import { requireUnit } from '../plant/versions';
+import { ReadingSet } from '../readings/model';
+import { checkTakenAt, storeReading } from '../readings/service';
+import { ImportMappingRow } from './model';
+import { parseCsv } from './parse-csv';
+
+type ValidRow = { row: number; takenAt: Date; raw: ReadingSetInput; si: ReadingSetSi };
+
+/** ISO 8601 with or without an offset; without one the time is read as UTC (shown in the preview). */
+function parseTime(text: string | undefined): Date | null {
+  if (!text) return null;
+  const trimmed = text.trim();
+  const iso = /^\d{4}-\d{2}-\d{2}[T ]\d{2}:\d{2}(:\d{2}(\.\d+)?)?(Z|[+-]\d{2}:?\d{2})?$/;
+  if (!iso.test(trimmed)) return null;
+  const hasZone = /(Z|[+-]\d{2}:?\d{2})$/.test(trimmed);
+  const date = new Date(trimmed.replace(' ', 'T') + (hasZone ? '' : 'Z'));
+  return Number.isNaN(date.getTime()) ? null : date;
+}
+
+function cell(row: Record<string, string>, column: string | undefined): string | undefined {
+  if (!column) return undefined;
+  const value = row[column];
+  return value === undefined || value.trim() === '' ? undefined : value.trim();
+}
+
+function buildReading(unitId: number, row: Record<string, string>, mapping: ImportMapping): { raw?: ReadingSetInput; errors: Record<string, string> } {
+  const errors: Record<string, string> = {};
+  const value = (field: ImportField) => {
+    const spec = mapping.columns[field];
+    const text = cell(row, spec?.column);
+    if (text === undefined) return undefined;
+    const number = Number(text.replace(',', '.'));
+    if (!Number.isFinite(number)) errors[field] = `“${text.slice(0, 40)}” is not a number`;
+    return number;
+  };
+  const quantity = (field: ImportField) => {
+    const v = value(field);
+    return v === undefined ? null : { value: v, unit: mapping.columns[field]!.unit };
+  };
+  const temperature = (field: ImportField) => quantity(field);
+  const candidate = {
+    unitId,
+    pressure: quantity('pressure'),
+    barometer: quantity('barometer'),
+    hotwellTemperature: temperature('hotwellTemperature'),
+    cwInletTemperature: temperature('cwInletTemperature'),
+    cwOutletTemperature: temperature('cwOutletTemperature'),
+    cwFlow: quantity('cwFlow'),
+    steamFlow: quantity('steamFlow'),
+    dissolvedOxygenPpb: value('dissolvedOxygenPpb') ?? null,
+    tower: {
+      coldWaterTemperature: temperature('basinTemperature'),
+      wetBulbTemperature: temperature('wetBulbTemperature'),
+      dryBulbTemperature: temperature('dryBulbTemperature'),
+      relativeHumidityPercent: value('relativeHumidityPercent') ?? null,
+    },
+  };
+  if (Object.keys(errors).length) return { errors };
+  const parsed = readingSetInputSchema.safeParse(candidate);
+  if (!parsed.success) {
+    for (const [path, message] of Object.entries(fieldErrorsFromZod(parsed.error))) {
+      const field = path.split('.')[0] === 'tower' ? path.split('.')[1]! : path.split('.')[0]!;
+      errors[field] ??= path.endsWith('.value') || !path.includes('.') ? (candidate[field as keyof typeof candidate] == null ? 'missing' : message) : message;
+    }
+    return { errors };
+  }
+  return { raw: parsed.data, errors };
+}
+
+export type ImportAnalysis = { reports: ImportRowReport[]; valid: ValidRow[]; counts: { rows: number; valid: number; invalid: number; duplicate: number } };
+
+export async function analyseImport(unitId: number, buffer: Buffer, mapping: ImportMapping): Promise<ImportAnalysis> {
+  await requireUnit(unitId);
+  const { headers, rows } = parseCsv(buffer);
+  const missing = [mapping.timeColumn, ...Object.values(mapping.columns).map((c) => c!.column)].filter((c) => !headers.includes(c));
+  if (missing.length) throw new ValidationError({ mapping: `The file has no column named ${missing.map((m) => `“${m}”`).join(', ')}` });
+
+  const reports: ImportRowReport[] = [];
+  const candidates: ValidRow[] = [];
+  const seenInFile = new Set<string>();
+  rows.forEach((row, index) => {
+    const rowNumber = index + 2; // line in the file, counting the header
+    const takenAt = parseTime(cell(row, mapping.timeColumn));
+    const errors: Record<string, string> = {};
+    if (!takenAt) errors.time = 'Not a date-time (use ISO 8601, e.g. 2026-03-01T14:00:00Z)';
+    else {
+      try {
+        checkTakenAt(takenAt, 'time');
+      } catch (error) {
+        if (error instanceof ValidationError) Object.assign(errors, error.fields);
+        else throw error;
+      }
+    }
+    const built = buildReading(unitId, row, mapping);
+    Object.assign(errors, built.errors);
+    let si: ReadingSetSi | null = null;
+    if (built.raw && !Object.keys(errors).length) {
+      try {
+        si = convertReadingSet(built.raw);
+      } catch (error) {
+        if (error instanceof ValidationError) Object.assign(errors, error.fields);
+        else throw error;
+      }
+    }
+    const key = takenAt?.toISOString() ?? '';
+    if (Object.keys(errors).length || !si || !takenAt) {
+      reports.push({ row: rowNumber, takenAt: takenAt?.toISOString() ?? null, status: 'invalid', errors });
+    } else if (seenInFile.has(key)) {
+      reports.push({ row: rowNumber, takenAt: key, status: 'duplicate', errors: { time: 'Same time as an earlier row of this file' } });
+    } else {
+      seenInFile.add(key);
+      candidates.push({ row: rowNumber, takenAt, raw: built.raw!, si });
+      reports.push({ row: rowNumber, takenAt: key, status: 'valid', errors: {} });
+    }
+  });
+
+  // Rows already imported before (same unit and time) are reported, not stored again.
+  const existing = new Set<string>();
+  if (candidates.length) {
+    const times = candidates.map((c) => c.takenAt.getTime());
+    const stored = await ReadingSet.findAll({
+      where: { unitId, importKey: { [Op.ne]: null }, takenAt: { [Op.between]: [new Date(Math.min(...times)), new Date(Math.max(...times))] } },
+      attributes: ['importKey'],
+    });
+    for (const s of stored) existing.add(s.importKey!);
+  }
+  const valid = candidates.filter((c) => !existing.has(c.takenAt.toISOString()));
+  for (const report of reports) {
+    if (report.status === 'valid' && existing.has(report.takenAt!)) {
+      report.status = 'duplicate';
+      report.errors = { time: 'Already imported' };
+    }
+  }
+  const count = (status: ImportRowReport['status']) => reports.filter((r) => r.status === status).length;
+  return { reports, valid, counts: { rows: rows.length, valid: count('valid'), invalid: count('invalid'), duplicate: count('duplicate') } };
+}
+
+export function makeImportService(sequelize: Sequelize) {
+  async function commit(actor: { id: number; role: string }, unitId: number, buffer: Buffer, mapping: ImportMapping) {
+    const analysis = await analyseImport(unitId, buffer, mapping);
+    let flagsRaised = 0;
+    // All valid rows or none: a failure part-way leaves nothing half-imported.
+    await sequelize.transaction(async (transaction) => {
+      for (const row of analysis.valid) {
+        const stored = await storeReading(
+          { unitId, takenAt: row.takenAt, raw: row.raw, si: row.si, actor, source: 'import', importKey: row.takenAt.toISOString() },
+          transaction,
+        );
+        flagsRaised += stored.flagsRaised;
+      }
+      const [mappingRow] = await ImportMappingRow.findOrCreate({
+        where: { unitId, source: mapping.source },
+        defaults: { unitId, source: mapping.source, mapping, updatedBy: actor.id, updatedAt: new Date() },
+        transaction,
+      });
+      await mappingRow.update({ mapping, updatedBy: actor.id, updatedAt: new Date() }, { transaction });
+      await recordAudit(
+        { actorId: actor.id, action: 'import.commit', entity: 'unit', entityId: unitId, after: { source: mapping.source, ...analysis.counts } },
+        transaction,
+      );
+    });
+    return {
+      imported: analysis.valid.length,
+      flagsRaised,
+      counts: analysis.counts,
+      problems: analysis.reports.filter((r) => r.status !== 'valid').slice(0, 500),
+    };
+  }
+  return { commit };
+}
+export type ImportService = ReturnType<typeof makeImportService>;
+
+export async function rememberedMappings(unitId: number) {
+  const rows = await ImportMappingRow.findAll({ where: { unitId }, order: [['updatedAt', 'DESC']] });
+  return rows.map((r) => ({ source: r.source, mapping: r.mapping, updatedAt: r.updatedAt.toISOString() }));
+}
+
+export const importFieldList = Object.entries(importFields).map(([key, spec]) => ({ key, ...spec }));

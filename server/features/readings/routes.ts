@@ -1,0 +1,48 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { amendReadingSchema, recordReadingSchema } from '../../../shared/schemas/readings';
+import { authorize, signedIn } from '../../lib/auth';
+import { parseId, parseInput } from '../../lib/validate';
+import { requireUnit } from '../plant/versions';
+import { getReading, listReadings, type ReadingService } from './service';
+
+const listQuery = z.object({
+  before: z.iso.datetime({ offset: true }).optional(),
+  limit: z.coerce.number().int().min(1).max(200).default(50),
+});
+
+// Trainees record rounds (marked for countersign); trainers review but do not record.
+const mayRecord = authorize(['trainee', 'operator', 'shift_lead', 'admin']);
+const mayCorrect = authorize(['operator', 'shift_lead', 'admin']);
+const mayCountersign = authorize(['operator', 'shift_lead']);
+
+export function readingRoutes(readings: ReadingService): Router {
+  const router = Router();
+
+  router.get('/units/:unitId/readings', signedIn, async (req, res) => {
+    const unitId = parseId(req.params.unitId, 'unitId');
+    await requireUnit(unitId);
+    const q = parseInput(listQuery, req.query);
+    res.json({ readings: await listReadings(unitId, { limit: q.limit, before: q.before ? new Date(q.before) : undefined }) });
+  });
+
+  router.post('/units/:unitId/readings', mayRecord, async (req, res) => {
+    const input = parseInput(recordReadingSchema, req.body);
+    res.status(201).json(await readings.record(req.user!, parseId(req.params.unitId, 'unitId'), input));
+  });
+
+  router.get('/readings/:id', signedIn, async (req, res) => {
+    res.json(await getReading(parseId(req.params.id)));
+  });
+
+  router.post('/readings/:id/amendments', mayCorrect, async (req, res) => {
+    const input = parseInput(amendReadingSchema, req.body);
+    res.status(201).json(await readings.amend(req.user!, parseId(req.params.id), input));
+  });
+
+  router.post('/readings/:id/countersign', mayCountersign, async (req, res) => {
+    res.json(await readings.countersign(req.user!, parseId(req.params.id)));
+  });
+
+  return router;
+}

@@ -1,0 +1,202 @@
+// Rounds: record a reading set, correct it by amendment, countersign a trainee's round.
+import { Op, type Sequelize, type Transaction } from 'sequelize';
+import type { ReadingSetSi } from '../../../shared/calc/evaluate';
+import type { ReadingSetInput } from '../../../shared/schemas/reading-set';
+import type { AmendReadingInput, RecordReadingInput } from '../../../shared/schemas/readings';
+import { recordAudit } from '../../lib/audit';
+import { Conflict, Forbidden, NotFound, ValidationError } from '../../lib/errors';
+import { convertReadingSet } from '../../lib/convert-readings';
+import { refreshAutomaticFlags } from '../flags/automatic';
+import { requireUnit } from '../plant/versions';
+import { User } from '../users/model';
+import { judgeAt, valueRows } from './evaluate-at';
+import { ReadingAmendment, ReadingCountersign, ReadingSet, ReadingValue, type ReadingSource } from './model';
+
+const FUTURE_TOLERANCE_MS = 5 * 60 * 1000;
+
+export function checkTakenAt(takenAt: Date, field = 'takenAt') {
+  if (Number.isNaN(takenAt.getTime())) throw new ValidationError({ [field]: 'Not a valid time' });
+  if (takenAt.getTime() > Date.now() + FUTURE_TOLERANCE_MS) throw new ValidationError({ [field]: 'A reading cannot be taken in the future' });
+  if (takenAt.getFullYear() < 1990) throw new ValidationError({ [field]: 'Too far in the past (before 1990)' });
+}
+
+type Actor = { id: number; role: string };
+
+export type StoreReading = {
+  unitId: number;
+  takenAt: Date;
+  raw: ReadingSetInput;
+  si: ReadingSetSi;
+  actor: Actor;
+  source: ReadingSource;
+  importKey: string | null;
+};
+
+/** Stores one reading set with its derived values and automatic flags, inside `transaction`. */
+export async function storeReading(r: StoreReading, transaction: Transaction): Promise<{ reading: ReadingSet; flagsRaised: number }> {
+  const judged = await judgeAt(r.unitId, r.takenAt, r.si, transaction);
+  const reading = await ReadingSet.create(
+    {
+      unitId: r.unitId,
+      takenAt: r.takenAt,
+      recordedAt: new Date(),
+      recordedBy: r.actor.id,
+      recordedAsTrainee: r.actor.role === 'trainee',
+      source: r.source,
+      importKey: r.importKey,
+      designVersionId: judged.designVersionId,
+      limitVersionId: judged.limitVersionId,
+      raw: r.raw,
+      si: r.si,
+      results: judged.evaluation,
+      worstStatus: judged.worstStatus,
+    },
+    { transaction },
+  );
+  await ReadingValue.bulkCreate(valueRows(reading.id, r.unitId, r.takenAt, judged.evaluation), { transaction });
+  const flagsRaised = await refreshAutomaticFlags(r.unitId, reading.id, r.takenAt, judged.evaluation, transaction);
+  return { reading, flagsRaised };
+}
+
+async function names(ids: (number | null | undefined)[]): Promise<Map<number, string>> {
+  const wanted = [...new Set(ids.filter((id): id is number => typeof id === 'number'))];
+  if (!wanted.length) return new Map();
+  const users = await User.findAll({ where: { id: wanted }, attributes: ['id', 'name'] });
+  return new Map(users.map((u) => [u.id, u.name]));
+}
+
+export function makeReadingService(sequelize: Sequelize) {
+  async function record(actor: Actor, unitId: number, input: RecordReadingInput) {
+    await requireUnit(unitId);
+    const { takenAt: takenAtText, ...readings } = input;
+    const takenAt = takenAtText ? new Date(takenAtText) : new Date();
+    checkTakenAt(takenAt);
+    const raw: ReadingSetInput = { ...readings, unitId };
+    const si = convertReadingSet(raw);
+    const { reading, flagsRaised } = await sequelize.transaction(async (transaction) => {
+      const stored = await storeReading({ unitId, takenAt, raw, si, actor, source: 'round', importKey: null }, transaction);
+      await recordAudit(
+        { actorId: actor.id, action: 'reading.record', entity: 'reading_set', entityId: stored.reading.id, after: { unitId, takenAt, worstStatus: stored.reading.worstStatus } },
+        transaction,
+      );
+      return stored;
+    });
+    return { id: reading.id, flagsRaised, ...(await getReading(reading.id)) };
+  }
+
+  async function amend(actor: Actor, readingSetId: number, input: AmendReadingInput) {
+    const original = await ReadingSet.findByPk(readingSetId);
+    if (!original) throw new NotFound('That reading set');
+    const raw: ReadingSetInput = { ...input.reading, unitId: original.unitId };
+    const si = convertReadingSet(raw);
+    await sequelize.transaction(async (transaction) => {
+      // Judged by the versions in force when the reading was taken, not today's.
+      const judged = await judgeAt(original.unitId, original.takenAt, si, transaction);
+      const amendment = await ReadingAmendment.create(
+        { readingSetId, amendedBy: actor.id, amendedAt: new Date(), reason: input.reason, raw, si, results: judged.evaluation, worstStatus: judged.worstStatus },
+        { transaction },
+      );
+      // The trend table follows the current version; the records themselves stay untouched.
+      await ReadingValue.destroy({ where: { readingSetId }, transaction });
+      await ReadingValue.bulkCreate(valueRows(readingSetId, original.unitId, original.takenAt, judged.evaluation), { transaction });
+      await refreshAutomaticFlags(original.unitId, readingSetId, original.takenAt, judged.evaluation, transaction);
+      await recordAudit(
+        { actorId: actor.id, action: 'reading.amend', entity: 'reading_set', entityId: readingSetId, after: { amendmentId: amendment.id, reason: input.reason } },
+        transaction,
+      );
+    });
+    return getReading(readingSetId);
+  }
+
+  async function countersign(actor: Actor, readingSetId: number) {
+    const reading = await ReadingSet.findByPk(readingSetId);
+    if (!reading) throw new NotFound('That reading set');
+    if (!reading.recordedAsTrainee) throw new ValidationError({ _: 'Only a trainee’s round needs a countersign' });
+    if (reading.recordedBy === actor.id) throw new Forbidden('You cannot countersign your own round');
+    await sequelize.transaction(async (transaction) => {
+      const existing = await ReadingCountersign.findByPk(readingSetId, { transaction, lock: transaction.LOCK.UPDATE });
+      if (existing) throw new Conflict('This round is already countersigned');
+      await ReadingCountersign.create({ readingSetId, signedBy: actor.id, signedAt: new Date() }, { transaction });
+      await recordAudit({ actorId: actor.id, action: 'reading.countersign', entity: 'reading_set', entityId: readingSetId }, transaction);
+    });
+    return getReading(readingSetId);
+  }
+
+  return { record, amend, countersign };
+}
+export type ReadingService = ReturnType<typeof makeReadingService>;
+
+/** One reading set as first recorded, every amendment after it, and who did what. */
+export async function getReading(id: number) {
+  const reading = await ReadingSet.findByPk(id);
+  if (!reading) throw new NotFound('That reading set');
+  const [amendments, countersign] = await Promise.all([
+    ReadingAmendment.findAll({ where: { readingSetId: id }, order: [['id', 'ASC']] }),
+    ReadingCountersign.findByPk(id),
+  ]);
+  const who = await names([reading.recordedBy, countersign?.signedBy, ...amendments.map((a) => a.amendedBy)]);
+  const current = amendments.at(-1);
+  return {
+    reading: {
+      id: reading.id,
+      unitId: reading.unitId,
+      takenAt: reading.takenAt.toISOString(),
+      recordedAt: reading.recordedAt.toISOString(),
+      recordedBy: who.get(reading.recordedBy) ?? `#${reading.recordedBy}`,
+      recordedById: reading.recordedBy,
+      recordedAsTrainee: reading.recordedAsTrainee,
+      source: reading.source,
+      designVersionId: reading.designVersionId,
+      limitVersionId: reading.limitVersionId,
+      raw: reading.raw,
+      results: reading.results,
+      worstStatus: reading.worstStatus,
+    },
+    amendments: amendments.map((a) => ({
+      id: a.id,
+      amendedAt: a.amendedAt.toISOString(),
+      amendedBy: who.get(a.amendedBy) ?? `#${a.amendedBy}`,
+      reason: a.reason,
+      raw: a.raw,
+      results: a.results,
+      worstStatus: a.worstStatus,
+    })),
+    current: { results: current?.results ?? reading.results, worstStatus: current?.worstStatus ?? reading.worstStatus, amended: Boolean(current) },
+    countersign: countersign ? { by: who.get(countersign.signedBy) ?? `#${countersign.signedBy}`, at: countersign.signedAt.toISOString() } : null,
+  };
+}
+
+/** Newest first; each with its current status, amendment count and countersign state. */
+export async function listReadings(unitId: number, options: { before?: Date; limit: number }) {
+  const where: Record<string, unknown> = { unitId };
+  if (options.before) where.takenAt = { [Op.lt]: options.before };
+  const readings = await ReadingSet.findAll({
+    where,
+    order: [['takenAt', 'DESC'], ['id', 'DESC']],
+    limit: options.limit,
+    attributes: ['id', 'takenAt', 'recordedBy', 'recordedAsTrainee', 'source', 'worstStatus', 'raw'],
+  });
+  const ids = readings.map((r) => r.id);
+  const [amendments, countersigns] = await Promise.all([
+    ids.length ? ReadingAmendment.findAll({ where: { readingSetId: ids }, attributes: ['readingSetId', 'worstStatus', 'id'], order: [['id', 'ASC']] }) : [],
+    ids.length ? ReadingCountersign.findAll({ where: { readingSetId: ids } }) : [],
+  ]);
+  const latestAmendment = new Map<number, { count: number; worstStatus: string }>();
+  for (const a of amendments) {
+    const seen = latestAmendment.get(a.readingSetId);
+    latestAmendment.set(a.readingSetId, { count: (seen?.count ?? 0) + 1, worstStatus: a.worstStatus });
+  }
+  const signed = new Set(countersigns.map((c) => c.readingSetId));
+  const who = await names(readings.map((r) => r.recordedBy));
+  return readings.map((r) => ({
+    id: r.id,
+    takenAt: r.takenAt.toISOString(),
+    recordedBy: who.get(r.recordedBy) ?? `#${r.recordedBy}`,
+    recordedAsTrainee: r.recordedAsTrainee,
+    needsCountersign: r.recordedAsTrainee && !signed.has(r.id),
+    source: r.source,
+    worstStatus: latestAmendment.get(r.id)?.worstStatus ?? r.worstStatus,
+    amendments: latestAmendment.get(r.id)?.count ?? 0,
+    raw: r.raw,
+  }));
+}

@@ -1,0 +1,54 @@
+import { Router } from 'express';
+import { Op, QueryTypes, type Sequelize } from 'sequelize';
+import { trendQuerySchema } from '../../../shared/schemas/trends';
+import { signedIn } from '../../lib/auth';
+import { parseId, parseInput } from '../../lib/validate';
+import { Flag } from '../flags/model';
+import { LimitSetVersion } from '../plant/model';
+import { requireUnit } from '../plant/versions';
+
+type Point = { t: Date; v: number; s: string };
+
+/** Time series of computed checks with the limit bands in force over the range and flag markers. */
+export function trendRoutes(sequelize: Sequelize): Router {
+  const router = Router();
+  router.get('/units/:unitId/trends', signedIn, async (req, res) => {
+    const unitId = parseId(req.params.unitId, 'unitId');
+    const q = parseInput(trendQuerySchema, req.query);
+    await requireUnit(unitId);
+    const from = new Date(q.from);
+    const to = new Date(q.to);
+    const series = await Promise.all(
+      q.parameters.map(async (parameter) => {
+        // Index range scan on (unit_id, parameter, taken_at).
+        const rows = await sequelize.query<Point>(
+          `SELECT taken_at AS t, value AS v, status AS s FROM reading_values
+           WHERE unit_id = ? AND parameter = ? AND taken_at BETWEEN ? AND ? ORDER BY taken_at`,
+          { replacements: [unitId, parameter, from, to], type: QueryTypes.SELECT },
+        );
+        return { parameter, points: rows.map((r) => ({ t: new Date(r.t).toISOString(), v: r.v, s: r.s })) };
+      }),
+    );
+    // Limit versions: the one in force at `from` and every one that starts inside the range.
+    const versions = await LimitSetVersion.findAll({ where: { unitId, effectiveFrom: { [Op.lte]: to } }, order: [['effectiveFrom', 'ASC'], ['id', 'ASC']] });
+    const bands = versions
+      .map((v, i) => ({ from: v.effectiveFrom, to: versions[i + 1]?.effectiveFrom ?? to, limits: v.limits }))
+      .filter((b) => b.to >= from)
+      .map((b) => ({
+        from: (b.from < from ? from : b.from).toISOString(),
+        to: b.to.toISOString(),
+        bands: Object.fromEntries(q.parameters.map((p) => [p, b.limits[p] ?? null])),
+      }));
+    const flags = await Flag.findAll({
+      where: { unitId, parameter: q.parameters, raisedAt: { [Op.lte]: to }, [Op.or]: [{ clearedAt: null }, { clearedAt: { [Op.gte]: from } }] },
+      order: [['raisedAt', 'ASC']],
+      limit: 500,
+    });
+    res.json({
+      series,
+      limitBands: bands,
+      flags: flags.map((f) => ({ id: f.id, parameter: f.parameter, severity: f.severity, status: f.status, origin: f.origin, raisedAt: f.raisedAt.toISOString(), clearedAt: f.clearedAt?.toISOString() ?? null })),
+    });
+  });
+  return router;
+}

@@ -1,0 +1,47 @@
+// Plant setup contracts: a unit's design data and its limit set, both in SI.
+import { z } from 'zod';
+import { checkKeys, type CheckKey } from '../calc/check-catalog';
+import { tubeGauges, tubeMaterials } from '../calc/hei';
+
+const positive = (what: string) => z.number({ message: `Enter the ${what}` }).finite().positive(`The ${what} must be above zero`);
+const optionalPositive = (what: string) => positive(what).nullable().optional();
+
+export const correctionCurveSchema = z
+  .array(z.tuple([positive('backpressure'), z.number({ message: 'Enter the MW correction' }).finite()]))
+  .min(2, 'Give at least two points')
+  .max(50)
+  .refine((points) => points.every((p, i) => i === 0 || p[0] > points[i - 1]![0]), 'Backpressures must rise from row to row');
+
+export const unitDesignSchema = z.object({
+  surfaceAreaM2: positive('surface area'),
+  tubeOdMm: positive('tube OD').max(60),
+  tubeGaugeBwg: z.number().int().refine((g) => (tubeGauges as readonly number[]).includes(g), `Gauge must be one of ${tubeGauges.join(', ')} BWG`),
+  tubeMaterial: z.enum(tubeMaterials as [string, ...string[]], { message: `Choose one of: ${tubeMaterials.join(', ')}` }),
+  tubeCount: z.number().int().positive('Enter the tube count'),
+  passes: z.number().int().min(1).max(4),
+  designCwFlowKgS: positive('design CW flow'),
+  designCwInletK: z.number().finite().min(273.15, 'Above 0 °C').max(323.15, 'At most 50 °C'),
+  designBackpressurePa: positive('design backpressure'),
+  designDutyW: positive('design duty'),
+  designCleanliness: z.number().finite().gt(0, 'Between 0 and 1').max(1, 'Between 0 and 1'),
+  designCleanUWM2K: optionalPositive('data-sheet clean U').transform((v) => v ?? null),
+  backpressureCorrection: correctionCurveSchema,
+  energyPricePerMwh: z.number().finite().nonnegative().nullable().optional().transform((v) => v ?? null),
+  currency: z.string().trim().max(8).nullable().optional().transform((v) => v || null),
+  towerDesignRangeK: optionalPositive('tower design range'),
+  towerDesignApproachK: optionalPositive('tower design approach'),
+  towerDesignWetBulbK: z.number().finite().min(233.15).max(323.15).nullable().optional(),
+});
+export type UnitDesign = z.infer<typeof unitDesignSchema> & { tubeMaterial: import('../calc/hei').TubeMaterial };
+
+const limit = z.number().finite().nullable().optional();
+export const limitBandSchema = z
+  .object({ lowAlarm: limit, lowWatch: limit, highWatch: limit, highAlarm: limit })
+  .refine((b) => b.lowAlarm == null || b.lowWatch == null || b.lowAlarm <= b.lowWatch, { message: 'Low alarm must be at or below low watch', path: ['lowAlarm'] })
+  .refine((b) => b.highAlarm == null || b.highWatch == null || b.highAlarm >= b.highWatch, { message: 'High alarm must be at or above high watch', path: ['highAlarm'] })
+  .refine((b) => b.lowWatch == null || b.highWatch == null || b.lowWatch < b.highWatch, { message: 'Low watch must be below high watch', path: ['lowWatch'] });
+
+export const limitSetSchema = z.partialRecord(z.enum(checkKeys as [CheckKey, ...CheckKey[]]), limitBandSchema);
+
+export const newDesignVersionSchema = z.object({ design: unitDesignSchema, note: z.string().trim().min(3, 'Say what changed and why').max(500) });
+export const newLimitVersionSchema = z.object({ limits: limitSetSchema, note: z.string().trim().min(3, 'Say what changed and why').max(500) });
