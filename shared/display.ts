@@ -22,6 +22,28 @@ export type Displayed = { text: string; unit: string };
 
 const fixed = (value: number, digits: number) => value.toLocaleString('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits });
 
+/** The number and unit label a person reads, before formatting (for charts and exports). */
+export function convertForDisplay(value: number, quantity: Quantity, prefs: DisplayPreferences): { value: number; unit: string } {
+  switch (quantity) {
+    case 'temperature':
+      return { value: kToTemperature(value, prefs.temperature), unit: temperatureUnits[prefs.temperature].label };
+    case 'temperature_difference':
+      return { value: kDifferenceTo(value, prefs.temperature), unit: prefs.temperature === 'degF' ? '°F' : 'K' };
+    case 'pressure':
+      return { value: paToAbsolutePressure(value, prefs.pressure), unit: absolutePressureUnits[prefs.pressure].label };
+    case 'pressure_difference':
+      return { value: paToAbsolutePressure(value, prefs.pressure), unit: absolutePressureUnits[prefs.pressure].label.replace(/ ?a$|A$/, '') };
+    case 'power':
+      return { value: value / 1e6, unit: 'MW' };
+    case 'money_rate':
+      return { value, unit: `${prefs.currency ?? 'money'}/h` };
+    case 'concentration_ppb':
+      return { value, unit: 'ppb' };
+    default:
+      return { value, unit: displayQuantity(value, quantity, prefs).unit };
+  }
+}
+
 export function displayQuantity(value: number, quantity: Quantity, prefs: DisplayPreferences): Displayed {
   switch (quantity) {
     case 'temperature':

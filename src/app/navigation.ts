@@ -5,7 +5,12 @@ export type NavItem = { to: string; label: string; roles: readonly Role[] | 'all
 /** What each role finds in the navigation. The server enforces the same rules on every route. */
 export const navigation: NavItem[] = [
   { to: '/', label: 'Overview', roles: 'all' },
+  { to: '/rounds', label: 'Rounds', roles: 'all' },
+  { to: '/flags', label: 'Flags', roles: 'all' },
+  { to: '/trends', label: 'Trends', roles: 'all' },
   { to: '/condenser-check', label: 'Condenser check', roles: 'all' },
+  { to: '/import', label: 'Import', roles: ['operator', 'shift_lead', 'admin'] },
+  { to: '/plant', label: 'Plant setup', roles: 'all' },
   { to: '/admin/people', label: 'People', roles: ['admin'] },
   { to: '/admin/audit', label: 'Audit trail', roles: ['admin'] },
   { to: '/account/password', label: 'My password', roles: 'all' },

@@ -22,6 +22,12 @@ export function createAppRouter(queryClient: QueryClient) {
           path: 'account/password',
           lazy: async () => ({ Component: (await import('../features/session/routes/change-password-page')).ChangePasswordPage }),
         },
+        { path: 'rounds', lazy: async () => ({ Component: (await import('../features/rounds/routes/rounds-page')).RoundsPage }) },
+        { path: 'rounds/:id', lazy: async () => ({ Component: (await import('../features/rounds/routes/reading-page')).ReadingPage }) },
+        { path: 'flags', lazy: async () => ({ Component: (await import('../features/flags/routes/flags-page')).FlagsPage }) },
+        { path: 'trends', lazy: async () => ({ Component: (await import('../features/trends/routes/trends-page')).TrendsPage }) },
+        { path: 'import', lazy: async () => ({ Component: (await import('../features/imports/routes/import-page')).ImportPage }) },
+        { path: 'plant', lazy: async () => ({ Component: (await import('../features/plant/routes/plant-page')).PlantPage }) },
         {
           path: 'condenser-check',
           lazy: async () => ({ Component: (await import('../features/condenser-check/routes/condenser-check-page')).CondenserCheckPage }),

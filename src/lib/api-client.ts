@@ -35,7 +35,8 @@ type Method = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
 
 async function send<T>(method: Method, path: string, body?: unknown, retried = false): Promise<T> {
   const headers: Record<string, string> = { Accept: 'application/json' };
-  if (body !== undefined) headers['Content-Type'] = 'application/json';
+  const isForm = body instanceof FormData;
+  if (body !== undefined && !isForm) headers['Content-Type'] = 'application/json';
   if (method !== 'GET') headers['X-CSRF-Token'] = await ensureCsrfToken();
   let response: Response;
   try {
@@ -43,7 +44,7 @@ async function send<T>(method: Method, path: string, body?: unknown, retried = f
       method,
       headers,
       credentials: 'same-origin',
-      body: body === undefined ? undefined : JSON.stringify(body),
+      body: body === undefined ? undefined : isForm ? body : JSON.stringify(body),
     });
   } catch {
     throw new ApiError(0, 'NETWORK', 'The server could not be reached; check the connection and try again');
@@ -73,4 +74,6 @@ export const api = {
   post: <T>(path: string, body?: unknown) => send<T>('POST', path, body ?? {}),
   patch: <T>(path: string, body: unknown) => send<T>('PATCH', path, body),
   delete: <T>(path: string) => send<T>('DELETE', path),
+  /** multipart/form-data (file uploads); the browser sets the boundary. */
+  upload: <T>(path: string, form: FormData) => send<T>('POST', path, form),
 };

@@ -40,7 +40,7 @@ describe('POST /api/units/:unitId/readings', () => {
     const stored = await ReadingSet.findByPk(res.body.id);
     expect(stored?.raw.pressure).toEqual({ value: 28.5, unit: 'inHg_vac' });
     expect(stored?.si.pressurePa).toBeCloseTo((29.92 - 28.5) * 3386.389, 6);
-    expect(stored?.results.checks.saturationTemperature.value! - 273.15).toBeCloseTo(32.0, 0);
+    expect(stored!.results.checks.saturationTemperature.value! - 273.15).toBeCloseTo(32.0, 0);
     expect(stored?.recordedAsTrainee).toBe(false);
     expect(await ReadingValue.count({ where: { readingSetId: res.body.id } })).toBeGreaterThan(10);
     expect(await AuditEvent.count({ where: { action: 'reading.record', entityId: String(res.body.id) } })).toBe(1);

@@ -6,8 +6,8 @@ import {
   pressureUnitLabels,
   temperatureUnits,
   type PressureUnit,
-} from '../../../../shared/units';
-import type { FormErrors, ReadingFormValues } from '../lib/reading-form';
+} from '../../../shared/units';
+import type { FormErrors, ReadingFormValues } from './reading-form';
 import { NumberField } from './number-field';
 
 type Props = { form: UseFormReturn<ReadingFormValues>; errors: FormErrors; values: ReadingFormValues };

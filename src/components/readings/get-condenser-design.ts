@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { CondenserDesignSi } from '../../../../shared/calc/evaluate';
-import type { LimitSet } from '../../../../shared/calc/limits';
-import { api } from '../../../lib/api-client';
+import type { CondenserDesignSi } from '../../../shared/calc/evaluate';
+import type { LimitSet } from '../../../shared/calc/limits';
+import { api } from '../../lib/api-client';
 
 export const calcKeys = {
   all: ['calc'] as const,

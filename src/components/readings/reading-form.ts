@@ -1,6 +1,6 @@
 // The round form holds text as typed; this turns it into the shared reading-set contract.
-import { readingSetInputSchema, type ReadingSetInput } from '../../../../shared/schemas/reading-set';
-import type { AbsolutePressureUnit, FlowUnit, PressureUnit, TemperatureUnit } from '../../../../shared/units';
+import { readingSetInputSchema, type ReadingSetInput } from '../../../shared/schemas/reading-set';
+import type { AbsolutePressureUnit, FlowUnit, PressureUnit, TemperatureUnit } from '../../../shared/units';
 
 export type ReadingFormValues = {
   pressure: string;
@@ -126,4 +126,48 @@ export function toReadingSet(unitId: number, v: ReadingFormValues): { input: Rea
     if (field) errors[field] ??= issue.message;
   }
   return { input: null, errors };
+}
+
+/** A stored reading's raw values back into form text, to start an amendment from them. */
+export function formValuesFromReading(raw: ReadingSetInput): ReadingFormValues {
+  const text = (q: { value: number } | null | undefined) => (q ? String(q.value) : '');
+  const tower = raw.tower ?? {};
+  const chemistry = raw.chemistry;
+  return {
+    pressure: text(raw.pressure),
+    pressureUnit: raw.pressure.unit as PressureUnit,
+    barometer: text(raw.barometer),
+    barometerUnit: (raw.barometer?.unit ?? 'kPa_a') as AbsolutePressureUnit,
+    temperatureUnit: raw.hotwellTemperature.unit as TemperatureUnit,
+    hotwell: text(raw.hotwellTemperature),
+    cwInlet: text(raw.cwInletTemperature),
+    cwOutlet: text(raw.cwOutletTemperature),
+    cwFlow: text(raw.cwFlow),
+    flowUnit: (raw.cwFlow?.unit ?? 'm3_h') as FlowUnit,
+    steamFlowTH: raw.steamFlow ? String(raw.steamFlow.unit === 't_h' ? raw.steamFlow.value : raw.steamFlow.value * 3.6) : '',
+    dissolvedOxygen: raw.dissolvedOxygenPpb == null ? '' : String(raw.dissolvedOxygenPpb),
+    basin: text(tower.coldWaterTemperature),
+    wetBulb: text(tower.wetBulbTemperature),
+    dryBulb: text(tower.dryBulbTemperature),
+    relativeHumidity: tower.relativeHumidityPercent == null ? '' : String(tower.relativeHumidityPercent),
+    stationPressureKPa: tower.stationPressure ? String(tower.stationPressure.value) : '',
+    makeupConductivity: text(tower.makeupConductivity),
+    basinConductivity: text(tower.basinConductivity),
+    targetCycles: tower.targetCycles == null ? '' : String(tower.targetCycles),
+    pH: chemistry ? String(chemistry.pH) : '',
+    sampleTemperature: chemistry ? String(chemistry.temperature.value) : '',
+    tds: chemistry ? String(chemistry.tdsMgL) : '',
+    calciumHardness: chemistry ? String(chemistry.calciumHardnessMgL) : '',
+    alkalinity: chemistry ? String(chemistry.alkalinityMgL) : '',
+  };
+}
+
+/** The server's field paths (e.g. "pressure.value") onto the form's boxes. */
+export function formErrorsFromServer(fields: Record<string, string>): FormErrors {
+  const errors: FormErrors = {};
+  for (const [path, message] of Object.entries(fields)) {
+    const field = fieldForPath[path] ?? fieldForPath[`${path}.value`];
+    if (field) errors[field] ??= message;
+  }
+  return errors;
 }

@@ -1,4 +1,6 @@
-import type { AbsolutePressureUnit, FlowUnit, PressureUnit, TemperatureUnit } from '../../../../shared/units';
+import { useEffect } from 'react';
+import type { ReadingFormValues } from './reading-form';
+import type { AbsolutePressureUnit, FlowUnit, PressureUnit, TemperatureUnit } from '../../../shared/units';
 
 export type UnitChoices = { pressureUnit: PressureUnit; temperatureUnit: TemperatureUnit; flowUnit: FlowUnit; barometerUnit: AbsolutePressureUnit };
 const KEY = 'hotwell.unit-choices';
@@ -15,4 +17,16 @@ export function loadUnitChoices(): UnitChoices {
 
 export function saveUnitChoices(choices: UnitChoices) {
   localStorage.setItem(KEY, JSON.stringify(choices));
+}
+
+/** Saves the form's unit choices whenever one changes. */
+export function useRememberUnitChoices(values: ReadingFormValues) {
+  useEffect(() => {
+    saveUnitChoices({
+      pressureUnit: values.pressureUnit,
+      temperatureUnit: values.temperatureUnit,
+      flowUnit: values.flowUnit,
+      barometerUnit: values.barometerUnit,
+    });
+  }, [values.pressureUnit, values.temperatureUnit, values.flowUnit, values.barometerUnit]);
 }

@@ -1,7 +1,8 @@
-import type { CheckKey } from '../../../../shared/calc/check-catalog';
-import type { Evaluation } from '../../../../shared/calc/evaluate';
-import { displayQuantity, type DisplayPreferences } from '../../../../shared/display';
-import { StatusBadge } from '../../../components/ui/status-badge';
+import type { CheckKey } from '../../../shared/calc/check-catalog';
+import type { Evaluation } from '../../../shared/calc/evaluate';
+import { displayQuantity, type DisplayPreferences } from '../../../shared/display';
+import { StatusBadge } from '../ui/status-badge';
+import { Notice } from '../ui/notice';
 
 const groups: { title: string; keys: CheckKey[] }[] = [
   {
@@ -71,5 +72,14 @@ export function CheckResults({ evaluation, prefs }: { evaluation: Evaluation; pr
         </section>
       ))}
     </div>
+  );
+}
+
+export function EnterReadingsNotice() {
+  return (
+    <Notice kind="info">
+      Enter the condenser pressure, the hotwell and both CW temperatures to see the checks. Add CW flow (or steam flow) for
+      duty, cleanliness and expected backpressure.
+    </Notice>
   );
 }

@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
 import type { UseFormRegisterReturn } from 'react-hook-form';
-import { FieldShell } from '../../../components/ui/form-field';
+import { FieldShell } from '../ui/form-field';
 
 type Props = { label: string; unit: ReactNode; error?: string; hint?: ReactNode; registration: UseFormRegisterReturn };
 

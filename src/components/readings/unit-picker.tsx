@@ -1,0 +1,42 @@
+import { useSearchParams } from 'react-router';
+import { useQuery } from '@tanstack/react-query';
+import { api } from '../../lib/api-client';
+
+export type UnitSummary = { id: number; code: string; name: string; station: string };
+export const unitsQueryKey = ['plant', 'units'] as const;
+const useUnitList = () =>
+  useQuery({ queryKey: unitsQueryKey, queryFn: async () => (await api.get<{ units: UnitSummary[] }>('/api/plant/units')).units, staleTime: 5 * 60_000 });
+
+/** The unit a page shows, kept in the address (?unit=) so a link or reload keeps it. */
+export function useSelectedUnit() {
+  const [params] = useSearchParams();
+  const units = useUnitList();
+  const requested = Number(params.get('unit'));
+  const unitId = Number.isInteger(requested) && requested > 0 ? requested : (units.data?.[0]?.id ?? null);
+  return { unitId, unit: units.data?.find((u) => u.id === unitId) ?? null, units: units.data ?? [] };
+}
+
+export function UnitPicker() {
+  const [params, setParams] = useSearchParams();
+  const { unitId, units } = useSelectedUnit();
+  return (
+    <label className="ml-auto flex flex-col text-sm">
+      Unit
+      <select
+        className="rounded-md border border-line bg-field px-2 py-1"
+        value={unitId ?? ''}
+        onChange={(e) => {
+          const next = new URLSearchParams(params);
+          next.set('unit', e.target.value);
+          setParams(next);
+        }}
+      >
+        {units.map((u) => (
+          <option key={u.id} value={u.id}>
+            {u.name} · {u.station}
+          </option>
+        ))}
+      </select>
+    </label>
+  );
+}

@@ -1,0 +1,81 @@
+import { useState } from 'react';
+import { checkCatalog, checkKeys } from '../../../../shared/calc/check-catalog';
+import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-picker';
+import { CautionNote, Notice } from '../../../components/ui/notice';
+import { useMe } from '../../session/api/get-me';
+import { useFlags, type FlagFilters } from '../api/flags';
+import { FlagCard } from '../components/flag-card';
+import { RaiseFlagForm } from '../components/raise-flag-form';
+
+const selectClass = 'rounded-md border border-line bg-field px-2 py-1';
+
+export function FlagsPage() {
+  const { data: me } = useMe();
+  const { unitId, unit } = useSelectedUnit();
+  const [filters, setFilters] = useState<FlagFilters>({ status: 'open' });
+  const flags = useFlags(unitId, filters);
+  const mayLead = me?.role === 'shift_lead' || me?.role === 'admin';
+  const set = (patch: Partial<FlagFilters>) => setFilters((f) => ({ ...f, ...patch }));
+  return (
+    <section className="flex flex-col gap-4">
+      <div className="flex flex-wrap items-end gap-4">
+        <div>
+          <h1 className="text-2xl font-bold">Flags</h1>
+          <p className="text-muted">{unit ? `${unit.name} · ` : ''}readings and checks outside their limits, and those a shift lead has flagged.</p>
+        </div>
+        <UnitPicker />
+      </div>
+      <CautionNote />
+      {mayLead && unitId ? <RaiseFlagForm unitId={unitId} /> : null}
+      <fieldset className="flex flex-wrap gap-3 rounded-lg border border-line bg-panel p-3 text-sm">
+        <legend className="font-bold">Show</legend>
+        <label className="flex flex-col">
+          Status
+          <select className={selectClass} value={filters.status} onChange={(e) => set({ status: e.target.value as FlagFilters['status'] })}>
+            <option value="open">Open</option>
+            <option value="cleared">Cleared</option>
+            <option value="all">All</option>
+          </select>
+        </label>
+        <label className="flex flex-col">
+          Severity
+          <select className={selectClass} value={filters.severity ?? ''} onChange={(e) => set({ severity: e.target.value || undefined })}>
+            <option value="">Any</option>
+            <option value="watch">Watch</option>
+            <option value="alarm">Alarm</option>
+          </select>
+        </label>
+        <label className="flex flex-col">
+          Parameter
+          <select className={selectClass} value={filters.parameter ?? ''} onChange={(e) => set({ parameter: e.target.value || undefined })}>
+            <option value="">Any</option>
+            {checkKeys.map((k) => (
+              <option key={k} value={k}>
+                {checkCatalog[k].label}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="flex flex-col">
+          Raised from
+          <input type="date" className={selectClass} onChange={(e) => set({ from: e.target.value ? new Date(e.target.value).toISOString() : undefined })} />
+        </label>
+        <label className="flex flex-col">
+          Raised to
+          <input
+            type="date"
+            className={selectClass}
+            onChange={(e) => set({ to: e.target.value ? new Date(new Date(e.target.value).getTime() + 86_400_000).toISOString() : undefined })}
+          />
+        </label>
+      </fieldset>
+      {flags.error ? <Notice kind="error">{flags.error.message}</Notice> : null}
+      {flags.data && flags.data.length === 0 ? <Notice kind="info">No flags match.</Notice> : null}
+      <div className="flex flex-col gap-3">
+        {flags.data?.map((flag) => (
+          <FlagCard key={flag.id} flag={flag} mayLead={mayLead} />
+        ))}
+      </div>
+    </section>
+  );
+}

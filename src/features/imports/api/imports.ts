@@ -1,0 +1,37 @@
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { ImportMapping, ImportRowReport } from '../../../../shared/schemas/imports';
+import { api } from '../../../lib/api-client';
+
+export type Inspection = { headers: string[]; sample: Record<string, string>[]; rowCount: number };
+export type Preview = { counts: { rows: number; valid: number; invalid: number; duplicate: number }; rows: ImportRowReport[] };
+export type ImportResult = { imported: number; flagsRaised: number; counts: Preview['counts']; problems: ImportRowReport[] };
+
+const form = (file: File, mapping?: ImportMapping) => {
+  const data = new FormData();
+  data.append('file', file);
+  if (mapping) data.append('mapping', JSON.stringify(mapping));
+  return data;
+};
+
+export const useRememberedMappings = (unitId: number | null) =>
+  useQuery({
+    queryKey: ['imports', 'mappings', unitId],
+    queryFn: async () => (await api.get<{ mappings: { source: string; mapping: ImportMapping }[] }>(`/api/units/${unitId}/import-mappings`)).mappings,
+    enabled: unitId !== null,
+  });
+
+export const useInspect = (unitId: number | null) =>
+  useMutation({ mutationFn: (file: File) => api.upload<Inspection>(`/api/units/${unitId}/imports/inspect`, form(file)) });
+
+export const usePreview = (unitId: number | null) =>
+  useMutation({ mutationFn: (a: { file: File; mapping: ImportMapping }) => api.upload<Preview>(`/api/units/${unitId}/imports/preview`, form(a.file, a.mapping)) });
+
+export function useCommitImport(unitId: number | null) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (a: { file: File; mapping: ImportMapping }) => api.upload<ImportResult>(`/api/units/${unitId}/imports`, form(a.file, a.mapping)),
+    onSuccess: () => {
+      for (const key of ['readings', 'flags', 'trends', 'imports']) void queryClient.invalidateQueries({ queryKey: [key] });
+    },
+  });
+}

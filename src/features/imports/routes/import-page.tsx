@@ -1,0 +1,153 @@
+import { useState } from 'react';
+import { importFields, type ImportField, type ImportMapping } from '../../../../shared/schemas/imports';
+import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-picker';
+import { Button } from '../../../components/ui/button';
+import { CautionNote, Notice } from '../../../components/ui/notice';
+import { ApiError } from '../../../lib/api-client';
+import { useCommitImport, useInspect, usePreview, useRememberedMappings } from '../api/imports';
+import { ProblemRows } from '../components/problem-rows';
+
+const selectClass = 'rounded-md border border-line bg-field px-2 py-1';
+const fieldKeys = Object.keys(importFields) as ImportField[];
+
+function errorText(error: Error | null) {
+  if (!error) return null;
+  if (error instanceof ApiError && Object.keys(error.fields).length) return `${error.message}: ${Object.values(error.fields).join('; ')}`;
+  return error.message;
+}
+
+export function ImportPage() {
+  const { unitId, unit } = useSelectedUnit();
+  const remembered = useRememberedMappings(unitId);
+  const inspect = useInspect(unitId);
+  const preview = usePreview(unitId);
+  const commit = useCommitImport(unitId);
+  const [file, setFile] = useState<File | null>(null);
+  const [mapping, setMapping] = useState<ImportMapping>({ source: '', timeColumn: '', columns: {} });
+  const headers = inspect.data?.headers ?? [];
+
+  const chooseFile = (chosen: File | null) => {
+    setFile(chosen);
+    preview.reset();
+    commit.reset();
+    if (!chosen) return;
+    inspect.mutate(chosen, {
+      onSuccess: (data) => {
+        // Start from the last mapping used for this unit whose columns the file has.
+        const fit = remembered.data?.find((m) => data.headers.includes(m.mapping.timeColumn));
+        if (fit) setMapping(fit.mapping);
+      },
+    });
+  };
+  const setColumn = (field: ImportField, column: string, unit?: string) =>
+    setMapping((m) => {
+      const columns = { ...m.columns };
+      if (!column) delete columns[field];
+      else columns[field] = { column, unit: unit ?? columns[field]?.unit ?? importFields[field].units[0] };
+      return { ...m, columns };
+    });
+
+  return (
+    <section className="flex flex-col gap-4">
+      <div className="flex flex-wrap items-end gap-4">
+        <div>
+          <h1 className="text-2xl font-bold">Import from a historian</h1>
+          <p className="text-muted">{unit ? `${unit.name} · ` : ''}CSV (UTF-8) with a header row, at most 10 MB. Rows already imported are skipped.</p>
+        </div>
+        <UnitPicker />
+      </div>
+      <CautionNote />
+      <label className="flex flex-col gap-1 rounded-lg border border-line bg-panel p-3 font-bold">
+        1 · Choose the file
+        <input type="file" accept=".csv,text/csv" onChange={(e) => chooseFile(e.target.files?.[0] ?? null)} />
+      </label>
+      {inspect.error ? <Notice kind="error">{errorText(inspect.error)}</Notice> : null}
+      {inspect.data ? (
+        <form
+          aria-label="Map the columns"
+          className="flex flex-col gap-3 rounded-lg border border-line bg-panel p-3"
+          onSubmit={(e) => {
+            e.preventDefault();
+            if (file) preview.mutate({ file, mapping });
+          }}
+        >
+          <h2 className="font-bold">2 · Map the columns ({inspect.data.rowCount} rows)</h2>
+          <div className="grid gap-3 sm:grid-cols-2">
+            <label className="flex flex-col text-sm">
+              Source name (remembered with this mapping)
+              <input className={selectClass} value={mapping.source} onChange={(e) => setMapping({ ...mapping, source: e.target.value })} />
+            </label>
+            <label className="flex flex-col text-sm">
+              Time column (ISO 8601; without an offset read as UTC)
+              <select className={selectClass} value={mapping.timeColumn} onChange={(e) => setMapping({ ...mapping, timeColumn: e.target.value })}>
+                <option value="">Choose…</option>
+                {headers.map((h) => (
+                  <option key={h}>{h}</option>
+                ))}
+              </select>
+            </label>
+          </div>
+          <table className="text-sm">
+            <thead>
+              <tr className="text-left text-muted">
+                <th>Reading</th>
+                <th>Column</th>
+                <th>Unit</th>
+              </tr>
+            </thead>
+            <tbody>
+              {fieldKeys.map((field) => (
+                <tr key={field}>
+                  <td className="pr-2">{importFields[field].label}</td>
+                  <td className="pr-2">
+                    <select aria-label={`Column for ${importFields[field].label}`} className={selectClass} value={mapping.columns[field]?.column ?? ''} onChange={(e) => setColumn(field, e.target.value)}>
+                      <option value="">— not in file —</option>
+                      {headers.map((h) => (
+                        <option key={h}>{h}</option>
+                      ))}
+                    </select>
+                  </td>
+                  <td>
+                    <select
+                      aria-label={`Unit for ${importFields[field].label}`}
+                      className={selectClass}
+                      disabled={!mapping.columns[field]}
+                      value={mapping.columns[field]?.unit ?? importFields[field].units[0]}
+                      onChange={(e) => setColumn(field, mapping.columns[field]!.column, e.target.value)}
+                    >
+                      {importFields[field].units.map((u) => (
+                        <option key={u}>{u}</option>
+                      ))}
+                    </select>
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+          <Button type="submit" tone="plain" disabled={preview.isPending}>
+            3 · Check every row
+          </Button>
+        </form>
+      ) : null}
+      {preview.error ? <Notice kind="error">{errorText(preview.error)}</Notice> : null}
+      {preview.data ? (
+        <div className="flex flex-col gap-3">
+          <Notice kind="info">
+            {preview.data.counts.valid} rows ready to import · {preview.data.counts.invalid} with problems · {preview.data.counts.duplicate} already imported or
+            repeated.
+          </Notice>
+          <ProblemRows rows={preview.data.rows} />
+          <Button disabled={!preview.data.counts.valid || commit.isPending || commit.isSuccess} onClick={() => file && commit.mutate({ file, mapping })}>
+            4 · Import {preview.data.counts.valid} rows
+          </Button>
+        </div>
+      ) : null}
+      {commit.error ? <Notice kind="error">{errorText(commit.error)} Nothing was imported.</Notice> : null}
+      {commit.data ? (
+        <Notice kind="success">
+          Imported {commit.data.imported} rows; {commit.data.flagsRaised} new flag(s) raised.
+        </Notice>
+      ) : null}
+    </section>
+  );
+}

@@ -1,0 +1,38 @@
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { LimitSet } from '../../../../shared/calc/limits';
+import type { UnitDesign } from '../../../../shared/schemas/plant';
+import { api } from '../../../lib/api-client';
+
+type VersionRow = { id: number; effectiveFrom: string; note: string | null; by: string };
+export type UnitSetup = {
+  unit: { id: number; code: string; name: string };
+  design: { versionId: number; data: UnitDesign };
+  limits: { versionId: number; data: LimitSet };
+  designHistory: VersionRow[];
+  limitHistory: VersionRow[];
+  equipment: { id: number; kind: string; tag: string; name: string }[];
+};
+
+export const setupKeys = { all: ['plant', 'setup'] as const, unit: (id: number) => [...setupKeys.all, id] as const };
+export const setupQueryOptions = (unitId: number) => queryOptions({ queryKey: setupKeys.unit(unitId), queryFn: () => api.get<UnitSetup>(`/api/plant/units/${unitId}/setup`) });
+export const useUnitSetup = (unitId: number | null) => useQuery({ ...setupQueryOptions(unitId ?? 0), enabled: unitId !== null });
+
+type Change =
+  | { kind: 'design'; design: UnitDesign; note: string }
+  | { kind: 'limits'; limits: LimitSet; note: string }
+  | { kind: 'equipment'; equipment: { kind: string; tag: string; name: string } };
+
+export function useChangeSetup(unitId: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (change: Change) => {
+      if (change.kind === 'design') return api.post(`/api/plant/units/${unitId}/design-versions`, { design: change.design, note: change.note });
+      if (change.kind === 'limits') return api.post(`/api/plant/units/${unitId}/limit-versions`, { limits: change.limits, note: change.note });
+      return api.post(`/api/plant/units/${unitId}/equipment`, change.equipment);
+    },
+    onSuccess: () => {
+      void queryClient.invalidateQueries({ queryKey: setupKeys.all });
+      void queryClient.invalidateQueries({ queryKey: ['calc'] });
+    },
+  });
+}

@@ -1,0 +1,155 @@
+import { useState } from 'react';
+import { tubeGauges, tubeMaterials } from '../../../../shared/calc/hei';
+import type { UnitDesign } from '../../../../shared/schemas/plant';
+import { Button } from '../../../components/ui/button';
+import { Notice } from '../../../components/ui/notice';
+import { ApiError } from '../../../lib/api-client';
+import { useChangeSetup } from '../api/setup';
+
+// Each box: its label, unit, and the conversion between what is typed and SI.
+type Spec = { key: keyof UnitDesign; label: string; unit: string; toSi?: (v: number) => number; fromSi?: (v: number) => number; optional?: boolean };
+const C = { toSi: (v: number) => v + 273.15, fromSi: (v: number) => v - 273.15 };
+const kPa = { toSi: (v: number) => v * 1000, fromSi: (v: number) => v / 1000 };
+const MW = { toSi: (v: number) => v * 1e6, fromSi: (v: number) => v / 1e6 };
+const specs: Spec[] = [
+  { key: 'surfaceAreaM2', label: 'Surface area', unit: 'm²' },
+  { key: 'tubeOdMm', label: 'Tube OD', unit: 'mm' },
+  { key: 'tubeCount', label: 'Tube count (all shells)', unit: 'tubes' },
+  { key: 'passes', label: 'Passes', unit: 'passes' },
+  { key: 'designCwFlowKgS', label: 'Design CW flow', unit: 'kg/s' },
+  { key: 'designCwInletK', label: 'Design CW inlet', unit: '°C', ...C },
+  { key: 'designBackpressurePa', label: 'Design backpressure', unit: 'kPa a', ...kPa },
+  { key: 'designDutyW', label: 'Design duty', unit: 'MW', ...MW },
+  { key: 'designCleanliness', label: 'Design cleanliness factor', unit: '(ratio)' },
+  { key: 'designCleanUWM2K', label: 'Data-sheet clean U (optional)', unit: 'W/(m²·K)', optional: true },
+  { key: 'energyPricePerMwh', label: 'Energy price (optional)', unit: 'per MWh', optional: true },
+  { key: 'towerDesignRangeK', label: 'Tower design range (optional)', unit: 'K', optional: true },
+  { key: 'towerDesignApproachK', label: 'Tower design approach (optional)', unit: 'K', optional: true },
+  { key: 'towerDesignWetBulbK', label: 'Tower design wet bulb (optional)', unit: '°C', optional: true, ...C },
+];
+
+const toText = (design: UnitDesign) =>
+  Object.fromEntries(
+    specs.map((s) => {
+      const v = design[s.key] as number | null | undefined;
+      return [s.key, v == null ? '' : String(Number((s.fromSi ? s.fromSi(v) : v).toFixed(6)))];
+    }),
+  ) as Record<string, string>;
+
+export function DesignForm({ unitId, design, editable }: { unitId: number; design: UnitDesign; editable: boolean }) {
+  const change = useChangeSetup(unitId);
+  const [text, setText] = useState(() => toText(design));
+  const [curve, setCurve] = useState(() => design.backpressureCorrection.map(([p, mw]) => [String(p / 1000), String(mw)]));
+  const [material, setMaterial] = useState<string>(design.tubeMaterial);
+  const [gauge, setGauge] = useState(design.tubeGaugeBwg);
+  const [currency, setCurrency] = useState(design.currency ?? '');
+  const [note, setNote] = useState('');
+  const fields = change.error instanceof ApiError ? change.error.fields : {};
+
+  const save = () => {
+    const values: Record<string, unknown> = {};
+    for (const s of specs) {
+      const raw = text[s.key]?.trim() ?? '';
+      const n = raw === '' ? null : Number(raw);
+      values[s.key] = n === null ? (s.optional ? null : Number.NaN) : s.toSi ? s.toSi(n) : n;
+    }
+    const design = {
+      ...values,
+      tubeMaterial: material,
+      tubeGaugeBwg: gauge,
+      currency: currency || null,
+      backpressureCorrection: curve.map(([p, mw]) => [Number(p) * 1000, Number(mw)] as [number, number]),
+    } as unknown as UnitDesign;
+    change.mutate({ kind: 'design', design, note }, { onSuccess: () => setNote('') });
+  };
+
+  return (
+    <form
+      aria-label="Design data"
+      className="flex flex-col gap-3 rounded-lg border border-line bg-panel p-3"
+      onSubmit={(e) => {
+        e.preventDefault();
+        save();
+      }}
+    >
+      <h2 className="font-bold">Design data</h2>
+      {change.error ? <Notice kind="error">{change.error.message}</Notice> : null}
+      {change.isSuccess ? <Notice kind="success">Saved as a new version; readings from now on are judged by it.</Notice> : null}
+      <fieldset disabled={!editable} className="grid gap-3 sm:grid-cols-2">
+        {specs.map((s) => (
+          <label key={s.key} className="flex flex-col text-sm">
+            {s.label}
+            <span className="flex items-center gap-2">
+              <input
+                className="reading w-full rounded-md border border-line bg-field px-2 py-1"
+                inputMode="decimal"
+                value={text[s.key] ?? ''}
+                onChange={(e) => setText({ ...text, [s.key]: e.target.value })}
+              />
+              <span className="shrink-0 text-muted">{s.unit}</span>
+            </span>
+            {fields[`design.${s.key}`] ? <span role="alert" className="text-alarm">⚠ {fields[`design.${s.key}`]}</span> : null}
+          </label>
+        ))}
+        <label className="flex flex-col text-sm">
+          Tube material
+          <select className="rounded-md border border-line bg-field px-2 py-1" value={material} onChange={(e) => setMaterial(e.target.value)}>
+            {tubeMaterials.map((m) => (
+              <option key={m}>{m}</option>
+            ))}
+          </select>
+        </label>
+        <label className="flex flex-col text-sm">
+          Tube gauge
+          <select className="rounded-md border border-line bg-field px-2 py-1" value={gauge} onChange={(e) => setGauge(Number(e.target.value))}>
+            {tubeGauges.map((g) => (
+              <option key={g} value={g}>
+                {g} BWG
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="flex flex-col text-sm">
+          Currency
+          <input className="rounded-md border border-line bg-field px-2 py-1" value={currency} onChange={(e) => setCurrency(e.target.value)} />
+        </label>
+        <div className="flex flex-col gap-1 text-sm sm:col-span-2">
+          <span className="font-bold">Backpressure correction curve (MW lost against design; linear between rows, never beyond them)</span>
+          {curve.map(([p, mw], i) => (
+            <div key={i} className="flex items-center gap-2">
+              <input aria-label={`Curve row ${i + 1} backpressure`} className="reading w-28 rounded-md border border-line bg-field px-2 py-1" value={p} onChange={(e) => setCurve(curve.map((r, j) => (j === i ? [e.target.value, r[1]!] : r)))} />
+              <span className="text-muted">kPa a →</span>
+              <input aria-label={`Curve row ${i + 1} MW`} className="reading w-28 rounded-md border border-line bg-field px-2 py-1" value={mw} onChange={(e) => setCurve(curve.map((r, j) => (j === i ? [r[0]!, e.target.value] : r)))} />
+              <span className="text-muted">MW</span>
+              {editable ? (
+                <button type="button" className="text-sm underline" onClick={() => setCurve(curve.filter((_, j) => j !== i))}>
+                  remove
+                </button>
+              ) : null}
+            </div>
+          ))}
+          {editable ? (
+            <button type="button" className="self-start text-sm underline" onClick={() => setCurve([...curve, ['', '']])}>
+              add a row
+            </button>
+          ) : null}
+          {fields['design.backpressureCorrection'] ? <span role="alert" className="text-alarm">⚠ {fields['design.backpressureCorrection']}</span> : null}
+        </div>
+      </fieldset>
+      {editable ? (
+        <>
+          <label className="flex flex-col text-sm">
+            What changed and why
+            <input className="rounded-md border border-line bg-field px-2 py-1" value={note} onChange={(e) => setNote(e.target.value)} />
+            {fields.note ? <span role="alert" className="text-alarm">⚠ {fields.note}</span> : null}
+          </label>
+          <Button type="submit" disabled={change.isPending}>
+            Save as a new version
+          </Button>
+        </>
+      ) : (
+        <p className="text-sm text-muted">Only an administrator changes design data.</p>
+      )}
+    </form>
+  );
+}

@@ -1,0 +1,99 @@
+import { useState } from 'react';
+import { format } from 'date-fns';
+import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-picker';
+import { Notice } from '../../../components/ui/notice';
+import { ApiError } from '../../../lib/api-client';
+import { useMe } from '../../session/api/get-me';
+import { useChangeSetup, useUnitSetup, type UnitSetup } from '../api/setup';
+import { DesignForm } from '../components/design-form';
+import { LimitsForm } from '../components/limits-form';
+
+function History({ title, rows }: { title: string; rows: UnitSetup['designHistory'] }) {
+  return (
+    <div className="rounded-lg border border-line bg-panel p-3 text-sm">
+      <h3 className="font-bold">{title}</h3>
+      <ul>
+        {rows.map((r, i) => (
+          <li key={r.id} className="border-t border-line py-1">
+            <span className="reading">{format(new Date(r.effectiveFrom), 'yyyy-MM-dd HH:mm')}</span> · {r.by} · {r.note}
+            {i === 0 ? <strong> (in force)</strong> : null}
+          </li>
+        ))}
+      </ul>
+    </div>
+  );
+}
+
+function Equipment({ setup, editable }: { setup: UnitSetup; editable: boolean }) {
+  const change = useChangeSetup(setup.unit.id);
+  const [item, setItem] = useState({ kind: 'cw_pump', tag: '', name: '' });
+  const fields = change.error instanceof ApiError ? change.error.fields : {};
+  return (
+    <div className="rounded-lg border border-line bg-panel p-3 text-sm">
+      <h2 className="font-bold">Equipment</h2>
+      <ul>
+        {setup.equipment.map((e) => (
+          <li key={e.id} className="border-t border-line py-1">
+            <span className="reading font-semibold">{e.tag}</span> — {e.name} <span className="text-muted">({e.kind.replace('_', ' ')})</span>
+          </li>
+        ))}
+      </ul>
+      {editable ? (
+        <form
+          aria-label="Add equipment"
+          className="mt-2 flex flex-wrap items-end gap-2"
+          onSubmit={(e) => {
+            e.preventDefault();
+            change.mutate({ kind: 'equipment', equipment: item }, { onSuccess: () => setItem({ ...item, tag: '', name: '' }) });
+          }}
+        >
+          <select aria-label="Kind" className="rounded-md border border-line bg-field px-2 py-1" value={item.kind} onChange={(e) => setItem({ ...item, kind: e.target.value })}>
+            <option value="cw_pump">CW pump</option>
+            <option value="condenser">Condenser</option>
+            <option value="cooling_tower">Cooling tower</option>
+            <option value="air_removal">Air removal</option>
+            <option value="other">Other</option>
+          </select>
+          <input aria-label="Tag" placeholder="Tag" className="rounded-md border border-line bg-field px-2 py-1" value={item.tag} onChange={(e) => setItem({ ...item, tag: e.target.value })} />
+          <input aria-label="Name" placeholder="Name" className="rounded-md border border-line bg-field px-2 py-1" value={item.name} onChange={(e) => setItem({ ...item, name: e.target.value })} />
+          <button type="submit" className="rounded-md bg-accent px-3 py-1 font-bold text-on-accent">
+            Add
+          </button>
+          {Object.values(fields).length ? <span role="alert" className="w-full text-alarm">⚠ {Object.entries(fields).map(([k, v]) => `${k}: ${v}`).join('; ')}</span> : null}
+        </form>
+      ) : null}
+    </div>
+  );
+}
+
+export function PlantPage() {
+  const { data: me } = useMe();
+  const { unitId } = useSelectedUnit();
+  const setup = useUnitSetup(unitId);
+  const editable = me?.role === 'admin';
+  return (
+    <section className="flex flex-col gap-4">
+      <div className="flex flex-wrap items-end gap-4">
+        <div>
+          <h1 className="text-2xl font-bold">Plant setup</h1>
+          <p className="text-muted">Design data and limits are versioned: each reading is judged by the versions in force when it was taken.</p>
+        </div>
+        <UnitPicker />
+      </div>
+      {setup.error ? <Notice kind="error">{setup.error.message}</Notice> : null}
+      {setup.data ? (
+        <div className="grid gap-4 lg:grid-cols-2" key={`${setup.data.unit.id}-${setup.data.design.versionId}-${setup.data.limits.versionId}`}>
+          <div className="flex flex-col gap-4">
+            <DesignForm unitId={setup.data.unit.id} design={setup.data.design.data} editable={editable} />
+            <History title="Design data versions" rows={setup.data.designHistory} />
+            <Equipment setup={setup.data} editable={editable} />
+          </div>
+          <div className="flex flex-col gap-4">
+            <LimitsForm unitId={setup.data.unit.id} limits={setup.data.limits.data} editable={editable} />
+            <History title="Limit versions" rows={setup.data.limitHistory} />
+          </div>
+        </div>
+      ) : null}
+    </section>
+  );
+}

@@ -1,0 +1,80 @@
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { Evaluation } from '../../../../shared/calc/evaluate';
+import type { Status } from '../../../../shared/calc/limits';
+import type { ReadingSetInput } from '../../../../shared/schemas/reading-set';
+import { api } from '../../../lib/api-client';
+import { readingKeys } from './reading-keys';
+
+export type ReadingSummary = {
+  id: number;
+  takenAt: string;
+  recordedBy: string;
+  recordedAsTrainee: boolean;
+  needsCountersign: boolean;
+  source: 'round' | 'import';
+  worstStatus: Status;
+  amendments: number;
+  raw: ReadingSetInput;
+};
+
+export type ReadingDetail = {
+  reading: {
+    id: number;
+    unitId: number;
+    takenAt: string;
+    recordedAt: string;
+    recordedBy: string;
+    recordedById: number;
+    recordedAsTrainee: boolean;
+    source: string;
+    raw: ReadingSetInput;
+    results: Evaluation;
+    worstStatus: Status;
+  };
+  amendments: { id: number; amendedAt: string; amendedBy: string; reason: string; raw: ReadingSetInput; results: Evaluation; worstStatus: Status }[];
+  current: { results: Evaluation; worstStatus: Status; amended: boolean };
+  countersign: { by: string; at: string } | null;
+};
+
+export const readingsQueryOptions = (unitId: number) =>
+  queryOptions({
+    queryKey: readingKeys.list(unitId),
+    queryFn: async () => (await api.get<{ readings: ReadingSummary[] }>(`/api/units/${unitId}/readings?limit=20`)).readings,
+  });
+export const useReadings = (unitId: number | null) => useQuery({ ...readingsQueryOptions(unitId ?? 0), enabled: unitId !== null });
+
+export const readingQueryOptions = (id: number) =>
+  queryOptions({ queryKey: readingKeys.detail(id), queryFn: () => api.get<ReadingDetail>(`/api/readings/${id}`) });
+export const useReading = (id: number) => useQuery(readingQueryOptions(id));
+
+type RecordInput = { unitId: number; reading: Omit<ReadingSetInput, 'unitId'> & { takenAt?: string } };
+
+export function useRecordReading() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ unitId, reading }: RecordInput) => api.post<ReadingDetail & { id: number; flagsRaised: number }>(`/api/units/${unitId}/readings`, reading),
+    onSuccess: () => {
+      void queryClient.invalidateQueries({ queryKey: readingKeys.all });
+      void queryClient.invalidateQueries({ queryKey: ['flags'] });
+    },
+  });
+}
+
+export function useAmendReading(id: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (body: { reason: string; reading: Omit<ReadingSetInput, 'unitId'> }) => api.post<ReadingDetail>(`/api/readings/${id}/amendments`, body),
+    onSuccess: () => {
+      void queryClient.invalidateQueries({ queryKey: readingKeys.all });
+      void queryClient.invalidateQueries({ queryKey: ['flags'] });
+    },
+  });
+}
+
+export function useCountersign() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (id: number) => api.post<ReadingDetail>(`/api/readings/${id}/countersign`),
+    onSettled: () => void queryClient.invalidateQueries({ queryKey: readingKeys.all }),
+  });
+}

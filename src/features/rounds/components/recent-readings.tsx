@@ -1,0 +1,65 @@
+import { format } from 'date-fns';
+import { Link } from 'react-router';
+import { pressureUnitLabels, type PressureUnit } from '../../../../shared/units';
+import { StatusBadge } from '../../../components/ui/status-badge';
+import { Notice } from '../../../components/ui/notice';
+import { useMe } from '../../session/api/get-me';
+import { useCountersign, type ReadingSummary } from '../api/readings';
+
+export function RecentReadings({ readings }: { readings: ReadingSummary[] }) {
+  const { data: me } = useMe();
+  const countersign = useCountersign();
+  const maySign = me?.role === 'operator' || me?.role === 'shift_lead';
+  if (!readings.length) return <Notice kind="info">No rounds recorded for this unit yet.</Notice>;
+  return (
+    <div className="overflow-x-auto rounded-lg border border-line bg-panel p-3">
+      <h2 className="mb-2 font-bold">Recent rounds</h2>
+      {countersign.error ? <Notice kind="error">{countersign.error.message}</Notice> : null}
+      <table className="w-full text-left text-sm">
+        <thead>
+          <tr className="text-muted">
+            <th className="pb-1">Taken (local time)</th>
+            <th className="pb-1">Pressure</th>
+            <th className="pb-1">By</th>
+            <th className="pb-1">Status</th>
+            <th className="pb-1" />
+          </tr>
+        </thead>
+        <tbody>
+          {readings.map((r) => (
+            <tr key={r.id} className="border-t border-line" data-testid={`reading-${r.id}`}>
+              <td className="reading py-1 pr-2">
+                <Link to={`/rounds/${r.id}`} className="text-accent underline">
+                  {format(new Date(r.takenAt), 'yyyy-MM-dd HH:mm')}
+                </Link>
+              </td>
+              <td className="reading py-1 pr-2">
+                {r.raw.pressure.value} {pressureUnitLabels[r.raw.pressure.unit as PressureUnit]}
+              </td>
+              <td className="py-1 pr-2">
+                {r.recordedBy}
+                {r.source === 'import' ? ' (import)' : ''}
+                {r.recordedAsTrainee ? ' · trainee' : ''}
+              </td>
+              <td className="py-1 pr-2">
+                <StatusBadge status={r.worstStatus} />
+                {r.amendments ? <span className="ml-1 text-xs text-muted">amended ×{r.amendments}</span> : null}
+              </td>
+              <td className="py-1 text-right">
+                {r.needsCountersign ? (
+                  maySign && r.recordedBy !== me?.name ? (
+                    <button type="button" className="rounded-md border border-line px-2 py-0.5 font-bold" onClick={() => countersign.mutate(r.id)}>
+                      Countersign
+                    </button>
+                  ) : (
+                    <span className="text-xs font-bold text-watch">▲ awaiting countersign</span>
+                  )
+                ) : null}
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}

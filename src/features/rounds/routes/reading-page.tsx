@@ -1,0 +1,143 @@
+import { useState } from 'react';
+import { useForm, useWatch } from 'react-hook-form';
+import { Link, useParams } from 'react-router';
+import { format } from 'date-fns';
+import type { Evaluation } from '../../../../shared/calc/evaluate';
+import { CheckResults } from '../../../components/readings/check-results';
+import { ReadingFormFields } from '../../../components/readings/reading-form-fields';
+import { useCondenserDesign } from '../../../components/readings/get-condenser-design';
+import { formErrorsFromServer, formValuesFromReading, type FormErrors, type ReadingFormValues } from '../../../components/readings/reading-form';
+import { useLiveEvaluation } from '../../../components/readings/use-live-evaluation';
+import { Button } from '../../../components/ui/button';
+import { CautionNote, Notice } from '../../../components/ui/notice';
+import { StatusBadge } from '../../../components/ui/status-badge';
+import { ApiError } from '../../../lib/api-client';
+import type { DisplayPreferences } from '../../../../shared/display';
+import { useMe } from '../../session/api/get-me';
+import { useAmendReading, useReading, type ReadingDetail } from '../api/readings';
+
+const stamp = (iso: string) => format(new Date(iso), 'yyyy-MM-dd HH:mm');
+const prefsOf = (detail: ReadingDetail): DisplayPreferences => ({
+  temperature: detail.reading.raw.hotwellTemperature.unit as DisplayPreferences['temperature'],
+  pressure: 'kPa_a',
+  currency: null,
+});
+
+function Version({ title, superseded, results, prefs, children }: { title: string; superseded: boolean; results: Evaluation; prefs: DisplayPreferences; children?: React.ReactNode }) {
+  const [open, setOpen] = useState(!superseded);
+  return (
+    <article className={`rounded-lg border p-3 ${superseded ? 'border-line opacity-80' : 'border-accent'}`}>
+      <header className="flex flex-wrap items-center gap-2">
+        <h2 className={`font-bold ${superseded ? 'line-through' : ''}`}>{title}</h2>
+        {superseded ? <span className="text-xs font-bold text-muted">superseded by a later amendment — kept as recorded</span> : <span className="text-xs font-bold text-accent">current</span>}
+        <button type="button" className="ml-auto text-sm underline" onClick={() => setOpen(!open)}>
+          {open ? 'Hide checks' : 'Show checks'}
+        </button>
+      </header>
+      {children}
+      {open ? (
+        <div className="mt-3">
+          <CheckResults evaluation={results} prefs={prefs} />
+        </div>
+      ) : null}
+    </article>
+  );
+}
+
+function AmendForm({ detail, onDone }: { detail: ReadingDetail; onDone: () => void }) {
+  const latest = detail.amendments.at(-1)?.raw ?? detail.reading.raw;
+  const form = useForm<ReadingFormValues>({ defaultValues: formValuesFromReading(latest) });
+  const values = useWatch({ control: form.control }) as ReadingFormValues;
+  const design = useCondenserDesign(detail.reading.unitId);
+  const live = useLiveEvaluation(detail.reading.unitId, values, design.data);
+  const amend = useAmendReading(detail.reading.id);
+  const [reason, setReason] = useState('');
+  const [errors, setErrors] = useState<FormErrors & { reason?: string }>({});
+  const [message, setMessage] = useState<string | null>(null);
+
+  const submit = () => {
+    if (!live.input) return setMessage('Some readings are missing or wrong; see the messages beside them.');
+    const { unitId: _unit, ...reading } = live.input;
+    amend.mutate(
+      { reason, reading },
+      {
+        onSuccess: onDone,
+        onError: (error) => {
+          setMessage(error.message);
+          if (error instanceof ApiError) setErrors({ ...formErrorsFromServer(error.fields), reason: error.fields.reason });
+        },
+      },
+    );
+  };
+
+  return (
+    <form
+      aria-label="Amend this round"
+      noValidate
+      className="flex flex-col gap-4 rounded-lg border-2 border-watch bg-panel p-4"
+      onSubmit={(e) => {
+        e.preventDefault();
+        submit();
+      }}
+    >
+      <h2 className="text-lg font-bold">Amend this round</h2>
+      <p className="text-sm text-muted">The round as recorded stays visible; your correction is added beside it with your name, the time and your reason.</p>
+      {message ? <Notice kind="error">{message}</Notice> : null}
+      <label className="flex flex-col gap-1 text-sm font-bold">
+        Reason for the correction
+        <textarea className="rounded-md border border-line bg-field p-2 font-normal" rows={2} value={reason} onChange={(e) => setReason(e.target.value)} />
+        {errors.reason ? <span role="alert" className="text-alarm">⚠ {errors.reason}</span> : null}
+      </label>
+      <ReadingFormFields form={form} errors={{ ...live.shownErrors, ...errors }} values={values} />
+      <Button type="submit" disabled={amend.isPending}>
+        Save amendment
+      </Button>
+    </form>
+  );
+}
+
+export function ReadingPage() {
+  const id = Number(useParams().id);
+  const { data: me } = useMe();
+  const reading = useReading(id);
+  const [amending, setAmending] = useState(false);
+  if (reading.isPending) return <p className="text-muted">Loading…</p>;
+  if (reading.error) return <Notice kind="error">{reading.error.message}</Notice>;
+  const detail = reading.data;
+  const prefs = prefsOf(detail);
+  const mayAmend = me && ['operator', 'shift_lead', 'admin'].includes(me.role);
+  return (
+    <section className="flex flex-col gap-4">
+      <Link to={`/rounds?unit=${detail.reading.unitId}`} className="text-accent underline">
+        ← Rounds
+      </Link>
+      <h1 className="text-2xl font-bold">
+        Round of {stamp(detail.reading.takenAt)} <StatusBadge status={detail.current.worstStatus} />
+      </h1>
+      <CautionNote />
+      {detail.reading.recordedAsTrainee ? (
+        detail.countersign ? (
+          <Notice kind="success">
+            Trainee round, countersigned by {detail.countersign.by} at {stamp(detail.countersign.at)}.
+          </Notice>
+        ) : (
+          <Notice kind="info">Trainee round, awaiting an operator’s countersign.</Notice>
+        )
+      ) : null}
+      <Version title={`As recorded by ${detail.reading.recordedBy} at ${stamp(detail.reading.recordedAt)}`} superseded={detail.amendments.length > 0} results={detail.reading.results} prefs={prefs} />
+      {detail.amendments.map((a, i) => (
+        <Version key={a.id} title={`Amendment ${i + 1} by ${a.amendedBy} at ${stamp(a.amendedAt)}`} superseded={i < detail.amendments.length - 1} results={a.results} prefs={prefs}>
+          <p className="mt-1 text-sm">
+            <strong>Reason:</strong> {a.reason}
+          </p>
+        </Version>
+      ))}
+      {mayAmend && !amending ? (
+        <Button tone="plain" onClick={() => setAmending(true)}>
+          Amend this round
+        </Button>
+      ) : null}
+      {amending ? <AmendForm detail={detail} onDone={() => setAmending(false)} /> : null}
+    </section>
+  );
+}

@@ -1,0 +1,128 @@
+import { useState } from 'react';
+import { useForm, useWatch } from 'react-hook-form';
+import { Link } from 'react-router';
+import { format } from 'date-fns';
+import { CautionNote, Notice } from '../../../components/ui/notice';
+import { Button } from '../../../components/ui/button';
+import { CheckResults, EnterReadingsNotice } from '../../../components/readings/check-results';
+import { ReadingFormFields } from '../../../components/readings/reading-form-fields';
+import { useCondenserDesign } from '../../../components/readings/get-condenser-design';
+import { emptyReadingForm, formErrorsFromServer, type FormErrors, type ReadingFormValues } from '../../../components/readings/reading-form';
+import { loadUnitChoices, useRememberUnitChoices } from '../../../components/readings/unit-choices';
+import { useLiveEvaluation } from '../../../components/readings/use-live-evaluation';
+import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-picker';
+import { pressureUnitLabels, temperatureUnits, type PressureUnit, type TemperatureUnit } from '../../../../shared/units';
+import { ApiError } from '../../../lib/api-client';
+import { useMe } from '../../session/api/get-me';
+import { useReadings, useRecordReading, type ReadingSummary } from '../api/readings';
+import { RecentReadings } from '../components/recent-readings';
+
+function LastReadingHint({ last }: { last: ReadingSummary | undefined }) {
+  if (!last) return null;
+  const t = (q: { value: number; unit: string } | null | undefined) => (q ? `${q.value} ${temperatureUnits[q.unit as TemperatureUnit]?.label ?? q.unit}` : '—');
+  return (
+    <p className="rounded-md border border-line bg-panel px-3 py-2 text-sm" data-testid="last-reading">
+      Last round {format(new Date(last.takenAt), 'yyyy-MM-dd HH:mm')} by {last.recordedBy}: pressure {last.raw.pressure.value}{' '}
+      {pressureUnitLabels[last.raw.pressure.unit as PressureUnit]}, hotwell {t(last.raw.hotwellTemperature)}, CW in {t(last.raw.cwInletTemperature)}, CW out{' '}
+      {t(last.raw.cwOutletTemperature)}
+    </p>
+  );
+}
+
+export function RoundsPage() {
+  const { data: me } = useMe();
+  const { unitId, unit } = useSelectedUnit();
+  const design = useCondenserDesign(unitId);
+  const readings = useReadings(unitId);
+  const record = useRecordReading();
+  const form = useForm<ReadingFormValues>({ defaultValues: emptyReadingForm(loadUnitChoices()) });
+  const values = useWatch({ control: form.control }) as ReadingFormValues;
+  useRememberUnitChoices(values);
+  const live = useLiveEvaluation(unitId, values, design.data);
+  const [takenAt, setTakenAt] = useState('');
+  const [serverErrors, setServerErrors] = useState<FormErrors>({});
+  const [saveError, setSaveError] = useState<string | null>(null);
+  const mayRecord = me && me.role !== 'trainer';
+
+  const save = () => {
+    setSaveError(null);
+    setServerErrors({});
+    if (!unitId || !live.input) {
+      setSaveError('Some readings are missing or wrong; see the messages beside them.');
+      return;
+    }
+    const { unitId: _unit, ...reading } = live.input;
+    record.mutate(
+      { unitId, reading: { ...reading, ...(takenAt ? { takenAt: new Date(takenAt).toISOString() } : {}) } },
+      {
+        onSuccess: () => {
+          form.reset(emptyReadingForm(loadUnitChoices()));
+          setTakenAt('');
+        },
+        onError: (error) => {
+          setSaveError(error.message);
+          if (error instanceof ApiError) setServerErrors(formErrorsFromServer(error.fields));
+        },
+      },
+    );
+  };
+
+  return (
+    <section className="flex flex-col gap-4">
+      <div className="flex flex-wrap items-end gap-4">
+        <div>
+          <h1 className="text-2xl font-bold">Rounds</h1>
+          <p className="text-muted">{unit ? `${unit.name} · ${unit.station}` : ''} — record a round; the checks update as you type.</p>
+        </div>
+        <UnitPicker />
+      </div>
+      <CautionNote />
+      {me?.role === 'trainee' ? <Notice kind="info">Your rounds are marked as a trainee’s and wait for an operator’s countersign.</Notice> : null}
+      <LastReadingHint last={readings.data?.[0]} />
+      {record.isSuccess ? (
+        <Notice kind="success">
+          Round saved.{' '}
+          <Link className="underline" to={`/rounds/${record.data.id}`}>
+            Open it
+          </Link>
+          {record.data.flagsRaised ? ` — ${record.data.flagsRaised} new flag(s) raised.` : ''}
+        </Notice>
+      ) : null}
+      {saveError ? <Notice kind="error">{saveError}</Notice> : null}
+      {design.error ? <Notice kind="error">{design.error.message}</Notice> : null}
+      <div className="grid gap-6 lg:grid-cols-2">
+        <form
+          aria-label="Record a round"
+          noValidate
+          className="flex flex-col gap-4 rounded-lg border border-line bg-panel p-4"
+          onSubmit={(e) => {
+            e.preventDefault();
+            save();
+          }}
+        >
+          <label className="flex flex-col text-sm font-bold">
+            Taken at (leave empty for now)
+            <input
+              type="datetime-local"
+              className="reading rounded-md border border-line bg-field px-2 py-1 font-normal"
+              value={takenAt}
+              onChange={(e) => setTakenAt(e.target.value)}
+            />
+          </label>
+          <ReadingFormFields form={form} errors={{ ...live.shownErrors, ...serverErrors }} values={values} />
+          {mayRecord ? (
+            <Button type="submit" disabled={record.isPending}>
+              {record.isPending ? 'Saving…' : 'Save round'}
+            </Button>
+          ) : (
+            <Notice kind="info">Your role reviews rounds; it does not record them.</Notice>
+          )}
+        </form>
+        <div className="flex flex-col gap-4" aria-live="polite">
+          {live.evaluation ? <CheckResults evaluation={live.evaluation} prefs={live.prefs} /> : <EnterReadingsNotice />}
+        </div>
+      </div>
+      {readings.data ? <RecentReadings readings={readings.data} /> : null}
+    </section>
+  );
+}
