@@ -7,9 +7,11 @@ import { User } from '../../features/users/model';
 import type { Role } from '../../../shared/roles';
 import people from './demo-people.json';
 import { demoCondenserDesign, demoCrews, demoStation, demoUnits } from './demo-plant';
+import { seedDemoHistory } from './demo-history';
 
 export async function seedDemo(sequelize: Sequelize): Promise<{ created: number }> {
   let created = 0;
+  const unitIds: number[] = [];
   const passwordHash = await hashPassword(people.password);
   await sequelize.transaction(async (transaction) => {
     const [station, stationCreated] = await Station.findOrCreate({
@@ -31,6 +33,7 @@ export async function seedDemo(sequelize: Sequelize): Promise<{ created: number 
         transaction,
       });
       created += Number(made);
+      unitIds.push(row.id);
       for (const item of unit.equipment) {
         const [, madeEquipment] = await Equipment.findOrCreate({
           where: { unitId: row.id, tag: item.tag },
@@ -68,5 +71,12 @@ export async function seedDemo(sequelize: Sequelize): Promise<{ created: number 
       created += Number(made);
     }
   });
-  return { created };
+  // Rounds history is added only where a unit has none: a second start never duplicates it.
+  const recorder = await User.findOne({ where: { email: people.users.find((p) => p.role === 'operator')!.email } });
+  const history = await seedDemoHistory(
+    sequelize,
+    unitIds.map((id, i) => ({ id, design: demoCondenserDesign, fouling: i === 0 })),
+    { id: recorder!.id, role: recorder!.role },
+  );
+  return { created: created + history };
 }

@@ -32,27 +32,40 @@ export function TrendChart({ data, prefs, parameters }: { data: TrendResponse; p
   const first = parameters[0]!;
   const quantity = checkCatalog[first].quantity;
   const shown = (v: number | null | undefined) => (v == null ? undefined : convertForDisplay(v, quantity, prefs).value);
+  const values = rows.flatMap((r) => parameters.map((p) => r[p]).filter((v): v is number => typeof v === 'number'));
+  const span = Math.max(...values) - Math.min(...values) || Math.abs(values[0] ?? 1) * 0.1 || 1;
+  const yMin = Math.min(...values) - span * 0.08;
+  const yMax = Math.max(...values) + span * 0.08;
   return (
     <div className="h-96 w-full rounded-lg border border-line bg-panel p-2" role="img" aria-label={`Trend of ${parameters.map((p) => checkCatalog[p].label).join(', ')} in ${unit}`}>
       <ResponsiveContainer width="100%" height="100%">
         <LineChart data={rows} margin={{ top: 10, right: 20, bottom: 10, left: 10 }}>
           <CartesianGrid stroke="var(--c-line)" strokeOpacity={0.4} />
           <XAxis dataKey="t" type="number" domain={['dataMin', 'dataMax']} scale="time" tickFormatter={(t: number) => format(new Date(t), 'MM-dd HH:mm')} stroke="var(--c-muted)" />
-          <YAxis stroke="var(--c-muted)" label={{ value: unit, angle: -90, position: 'insideLeft', fill: 'var(--c-muted)' }} domain={['auto', 'auto']} />
+          <YAxis stroke="var(--c-muted)" label={{ value: unit, angle: -90, position: 'insideLeft', fill: 'var(--c-muted)' }} domain={[yMin, yMax]} tickFormatter={(v: number) => Number(v.toPrecision(4)).toString()} />
           <Tooltip labelFormatter={(t) => format(new Date(Number(t)), 'yyyy-MM-dd HH:mm')} formatter={(v) => `${Number(v).toFixed(3)} ${unit}`} contentStyle={{ background: 'var(--c-panel)' }} />
           <Legend />
-          {/* Limit bands of the first parameter, each over the period its version was in force. */}
+          {/* Limit bands of the first parameter, each over the period its version was in force,
+              clamped to the plotted range so an off-scale limit never floods the chart. */}
           {data.limitBands.flatMap((band, i) => {
             const limits = band.bands[first];
             if (!limits) return [];
             const x1 = Date.parse(band.from);
             const x2 = Date.parse(band.to);
-            const areas = [];
-            if (limits.highWatch != null) areas.push(<ReferenceArea key={`hw${i}`} x1={x1} x2={x2} y1={shown(limits.highWatch)} y2={shown(limits.highAlarm) ?? undefined} fill="var(--c-watch)" fillOpacity={0.12} ifOverflow="hidden" label={{ value: '▲ watch', position: 'insideTopLeft', fill: 'var(--c-watch)', fontSize: 11 }} />);
-            if (limits.highAlarm != null) areas.push(<ReferenceArea key={`ha${i}`} x1={x1} x2={x2} y1={shown(limits.highAlarm)} fill="var(--c-alarm)" fillOpacity={0.12} ifOverflow="hidden" label={{ value: '◆ alarm', position: 'insideTopLeft', fill: 'var(--c-alarm)', fontSize: 11 }} />);
-            if (limits.lowWatch != null) areas.push(<ReferenceArea key={`lw${i}`} x1={x1} x2={x2} y1={shown(limits.lowAlarm) ?? undefined} y2={shown(limits.lowWatch)} fill="var(--c-watch)" fillOpacity={0.12} ifOverflow="hidden" />);
-            if (limits.lowAlarm != null) areas.push(<ReferenceArea key={`la${i}`} x1={x1} x2={x2} y2={shown(limits.lowAlarm)} fill="var(--c-alarm)" fillOpacity={0.12} ifOverflow="hidden" />);
-            return areas;
+            const zones: { key: string; lo: number | undefined; hi: number | undefined; colour: string; label?: string }[] = [
+              { key: 'hw', lo: shown(limits.highWatch), hi: shown(limits.highAlarm), colour: 'var(--c-watch)', label: '▲ watch' },
+              { key: 'ha', lo: shown(limits.highAlarm), hi: Infinity, colour: 'var(--c-alarm)', label: '◆ alarm' },
+              { key: 'lw', lo: shown(limits.lowAlarm), hi: shown(limits.lowWatch), colour: 'var(--c-watch)' },
+              { key: 'la', lo: -Infinity, hi: shown(limits.lowAlarm), colour: 'var(--c-alarm)' },
+            ];
+            return zones.flatMap((z) => {
+              const lo = Math.max(z.lo ?? (z.key === 'lw' ? -Infinity : NaN), yMin);
+              const hi = Math.min(z.hi ?? (z.key === 'hw' ? Infinity : NaN), yMax);
+              if (!(hi > lo)) return [];
+              return [
+                <ReferenceArea key={`${z.key}${i}`} x1={x1} x2={x2} y1={lo} y2={hi} fill={z.colour} fillOpacity={0.14} label={z.label ? { value: z.label, position: 'insideTopLeft', fill: z.colour, fontSize: 11 } : undefined} />,
+              ];
+            });
           })}
           {data.flags.map((flag) => (
             <ReferenceLine key={flag.id} x={Date.parse(flag.raisedAt)} stroke={flag.severity === 'alarm' ? 'var(--c-alarm)' : 'var(--c-watch)'} strokeDasharray="4 2" ifOverflow="hidden" label={{ value: flag.severity === 'alarm' ? '◆' : '▲', position: 'top' }} />

@@ -1,0 +1,79 @@
+// Two weeks of invented hourly rounds for the demo, so trends and flags have something to show.
+// Unit 1's tubes foul slowly (cleanliness 0.90 → 0.72); Unit 2 stays clean. Deterministic.
+import type { Sequelize } from 'sequelize';
+import { expectedBackpressure } from '../../../shared/calc/backpressure';
+import type { UnitDesign } from '../../../shared/schemas/plant';
+import { cleanUHei, tubeVelocity } from '../../../shared/calc/hei';
+import { waterDensity } from '../../../shared/calc/water';
+import type { ReadingSetInput } from '../../../shared/schemas/reading-set';
+import { convertReadingSet } from '../../lib/convert-readings';
+import { ReadingSet } from '../../features/readings/model';
+import { storeReading } from '../../features/readings/service';
+
+const HOURS = 14 * 24;
+
+function random(seed: number) {
+  let state = seed;
+  return () => {
+    state = (state * 1_103_515_245 + 12_345) % 2_147_483_648;
+    return state / 2_147_483_648;
+  };
+}
+
+export function demoRound(design: UnitDesign, hour: number, fouling: boolean, next: () => number): ReadingSetInput & { takenAtOffsetH: number } {
+  const inletC = 20.5 + 2.5 * Math.sin((2 * Math.PI * (hour - 9)) / 24) + (next() - 0.5) * 0.4;
+  const flowKgS = design.designCwFlowKgS * (0.97 + next() * 0.04);
+  const dutyW = design.designDutyW * (0.85 + 0.12 * Math.sin((2 * Math.PI * hour) / 24 + 1) + next() * 0.03);
+  const cleanliness = fouling ? 0.9 - (0.18 * hour) / HOURS : 0.9 - next() * 0.02;
+  const inletK = inletC + 273.15;
+  const velocity = tubeVelocity({ tubeOdMm: design.tubeOdMm, gaugeBwg: design.tubeGaugeBwg, tubeCount: design.tubeCount, passes: design.passes }, flowKgS, waterDensity(inletK));
+  const u = cleanUHei({ tubeOdMm: design.tubeOdMm, gaugeBwg: design.tubeGaugeBwg, material: design.tubeMaterial, velocityMS: velocity, inletK }) * cleanliness;
+  const expected = expectedBackpressure({ uWM2K: u, surfaceAreaM2: design.surfaceAreaM2, cwFlowKgS: flowKgS, cwInletK: inletK, dutyW });
+  const riseK = dutyW / (flowKgS * 4180);
+  const round1 = (v: number, d = 1) => Math.round(v * 10 ** d) / 10 ** d;
+  return {
+    takenAtOffsetH: hour,
+    unitId: 0,
+    pressure: { value: round1(expected.pressurePa / 1000, 2), unit: 'kPa_a' },
+    hotwellTemperature: { value: round1(expected.saturationK - 273.15 - 0.3 - next() * 0.4), unit: 'degC' },
+    cwInletTemperature: { value: round1(inletC), unit: 'degC' },
+    cwOutletTemperature: { value: round1(inletC + riseK), unit: 'degC' },
+    cwFlow: { value: Math.round((flowKgS / waterDensity(inletK)) * 3600), unit: 'm3_h' },
+    dissolvedOxygenPpb: round1(6 + next() * 4),
+    tower: {
+      coldWaterTemperature: { value: round1(inletC), unit: 'degC' },
+      dryBulbTemperature: { value: round1(inletC + 4 + next() * 2), unit: 'degC' },
+      relativeHumidityPercent: Math.round(45 + next() * 25),
+      makeupConductivity: { value: 420, unit: 'uS_cm' },
+      basinConductivity: { value: Math.round(2000 + next() * 200), unit: 'uS_cm' },
+      targetCycles: 5,
+    },
+  };
+}
+
+export async function seedDemoHistory(
+  sequelize: Sequelize,
+  units: { id: number; design: UnitDesign; fouling: boolean }[],
+  recorder: { id: number; role: string },
+): Promise<number> {
+  let stored = 0;
+  const end = new Date();
+  end.setUTCMinutes(0, 0, 0);
+  const start = end.getTime() - HOURS * 3_600_000;
+  for (const unit of units) {
+    if (await ReadingSet.count({ where: { unitId: unit.id } })) continue;
+    const next = random(unit.id * 7919);
+    await sequelize.transaction(async (transaction) => {
+      for (let hour = 0; hour < HOURS; hour++) {
+        const { takenAtOffsetH, ...round } = demoRound(unit.design, hour, unit.fouling, next);
+        const raw = { ...round, unitId: unit.id };
+        await storeReading(
+          { unitId: unit.id, takenAt: new Date(start + takenAtOffsetH * 3_600_000), raw, si: convertReadingSet(raw), actor: recorder, source: 'round', importKey: null },
+          transaction,
+        );
+        stored += 1;
+      }
+    });
+  }
+  return stored;
+}
