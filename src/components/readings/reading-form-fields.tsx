@@ -5,6 +5,7 @@ import {
   isVacuumUnit,
   pressureUnitLabels,
   temperatureUnits,
+  vacuumUnits,
   type PressureUnit,
 } from '../../../shared/units';
 import type { FormErrors, ReadingFormValues } from './reading-form';
@@ -24,7 +25,16 @@ export function ReadingFormFields({ form, errors, values }: Props) {
         <legend className="mb-2 font-bold">Units for this round</legend>
         <label className="flex flex-col text-sm">
           Pressure gauge
-          <select className={selectClass} {...register('pressureUnit')}>
+          <select
+            className={selectClass}
+            {...register('pressureUnit', {
+              // A vacuum gauge's barometer is usually read in the same family of units.
+              onChange: (e: { target: { value: PressureUnit } }) => {
+                const unit = e.target.value;
+                if (isVacuumUnit(unit) && !form.getValues('barometer')) form.setValue('barometerUnit', vacuumUnits[unit].absolute);
+              },
+            })}
+          >
             {(Object.keys(pressureUnitLabels) as PressureUnit[]).map((u) => (
               <option key={u} value={u}>
                 {pressureUnitLabels[u]}

@@ -36,13 +36,15 @@ export function TrendChart({ data, prefs, parameters }: { data: TrendResponse; p
   const span = Math.max(...values) - Math.min(...values) || Math.abs(values[0] ?? 1) * 0.1 || 1;
   const yMin = Math.min(...values) - span * 0.08;
   const yMax = Math.max(...values) + span * 0.08;
+  const xMin = rows[0]?.t ?? 0;
+  const xMax = rows.at(-1)?.t ?? 0;
   return (
     <div className="h-96 w-full rounded-lg border border-line bg-panel p-2" role="img" aria-label={`Trend of ${parameters.map((p) => checkCatalog[p].label).join(', ')} in ${unit}`}>
       <ResponsiveContainer width="100%" height="100%">
         <LineChart data={rows} margin={{ top: 10, right: 20, bottom: 10, left: 10 }}>
           <CartesianGrid stroke="var(--c-line)" strokeOpacity={0.4} />
           <XAxis dataKey="t" type="number" domain={['dataMin', 'dataMax']} scale="time" tickFormatter={(t: number) => format(new Date(t), 'MM-dd HH:mm')} stroke="var(--c-muted)" />
-          <YAxis stroke="var(--c-muted)" label={{ value: unit, angle: -90, position: 'insideLeft', fill: 'var(--c-muted)' }} domain={[yMin, yMax]} tickFormatter={(v: number) => Number(v.toPrecision(4)).toString()} />
+          <YAxis stroke="var(--c-muted)" label={{ value: unit, angle: -90, position: 'insideLeft', fill: 'var(--c-muted)' }} domain={[yMin, yMax]} tickFormatter={(v: number) => Number(v.toPrecision(3)).toString()} />
           <Tooltip labelFormatter={(t) => format(new Date(Number(t)), 'yyyy-MM-dd HH:mm')} formatter={(v) => `${Number(v).toFixed(3)} ${unit}`} contentStyle={{ background: 'var(--c-panel)' }} />
           <Legend />
           {/* Limit bands of the first parameter, each over the period its version was in force,
@@ -50,20 +52,21 @@ export function TrendChart({ data, prefs, parameters }: { data: TrendResponse; p
           {data.limitBands.flatMap((band, i) => {
             const limits = band.bands[first];
             if (!limits) return [];
-            const x1 = Date.parse(band.from);
-            const x2 = Date.parse(band.to);
+            const x1 = Math.max(Date.parse(band.from), xMin);
+            const x2 = Math.min(Date.parse(band.to), xMax);
+            if (!(x2 > x1)) return [];
             const zones: { key: string; lo: number | undefined; hi: number | undefined; colour: string; label?: string }[] = [
               { key: 'hw', lo: shown(limits.highWatch), hi: shown(limits.highAlarm), colour: 'var(--c-watch)', label: '▲ watch' },
               { key: 'ha', lo: shown(limits.highAlarm), hi: Infinity, colour: 'var(--c-alarm)', label: '◆ alarm' },
-              { key: 'lw', lo: shown(limits.lowAlarm), hi: shown(limits.lowWatch), colour: 'var(--c-watch)' },
-              { key: 'la', lo: -Infinity, hi: shown(limits.lowAlarm), colour: 'var(--c-alarm)' },
+              { key: 'lw', lo: shown(limits.lowAlarm), hi: shown(limits.lowWatch), colour: 'var(--c-watch)', label: '▲ watch' },
+              { key: 'la', lo: -Infinity, hi: shown(limits.lowAlarm), colour: 'var(--c-alarm)', label: '◆ alarm' },
             ];
             return zones.flatMap((z) => {
               const lo = Math.max(z.lo ?? (z.key === 'lw' ? -Infinity : NaN), yMin);
               const hi = Math.min(z.hi ?? (z.key === 'hw' ? Infinity : NaN), yMax);
               if (!(hi > lo)) return [];
               return [
-                <ReferenceArea key={`${z.key}${i}`} x1={x1} x2={x2} y1={lo} y2={hi} fill={z.colour} fillOpacity={0.14} label={z.label ? { value: z.label, position: 'insideTopLeft', fill: z.colour, fontSize: 11 } : undefined} />,
+                <ReferenceArea key={`${z.key}${i}`} x1={x1} x2={x2} y1={lo} y2={hi} ifOverflow="hidden" fill={z.colour} fillOpacity={0.14} label={z.label ? { value: z.label, position: 'insideTopLeft', fill: z.colour, fontSize: 11 } : undefined} />,
               ];
             });
           })}
