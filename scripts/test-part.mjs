@@ -1,0 +1,37 @@
+// `npm run test:integration` / `npm run test:e2e`: one part of `npm test` on its own throwaway
+// database (port HOTWELL_PART_DB_PORT, default 3420), for quick runs while developing.
+// Extra arguments go to the runner, e.g. `npm run test:e2e -- e2e/rounds-flags-trends.spec.ts`.
+import { ensureNodeDependencies } from './lib/node-deps.mjs';
+import { startPrivateMariaDb } from './lib/private-mariadb.mjs';
+import { ensureChromium } from './lib/system-packages.mjs';
+import { runLocal, runLocalOrExit } from './lib/run.mjs';
+
+const [part, ...args] = process.argv.slice(2);
+if (part !== 'integration' && part !== 'e2e') {
+  console.error('usage: node scripts/test-part.mjs integration|e2e [runner arguments]');
+  process.exit(2);
+}
+ensureNodeDependencies();
+const db = await startPrivateMariaDb({
+  dataDir: `.data/part-${part}`,
+  port: Number(process.env.HOTWELL_PART_DB_PORT ?? 3420),
+  databases: ['hotwell_part'],
+  fresh: true,
+  label: `${part} test`,
+});
+let code = 1;
+try {
+  const url = db.urlFor('hotwell_part');
+  await runLocalOrExit('tsx', ['server/db/migrate-cli.ts'], { DATABASE_URL: url });
+  if (part === 'integration') {
+    code = await runLocal('vitest', ['run', '--project', 'integration', ...args], { TEST_DATABASE_URL: url });
+  } else {
+    const chromium = ensureChromium();
+    await runLocalOrExit('tsx', ['server/db/seed/seed-cli.ts'], { DATABASE_URL: url });
+    await runLocalOrExit('vite', ['build', '--logLevel', 'warn']);
+    code = await runLocal('playwright', ['test', ...args], { E2E_DATABASE_URL: url, CHROMIUM_PATH: chromium });
+  }
+} finally {
+  await db.stop();
+}
+process.exit(code);
