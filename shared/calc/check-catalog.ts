@@ -30,6 +30,10 @@ export const siUnitOf: Record<Quantity, string> = {
 
 export const checkCatalog = {
   backpressure: { label: 'Condenser absolute pressure', quantity: 'pressure' },
+  hotwellTemperature: { label: 'Hotwell temperature', quantity: 'temperature' },
+  cwInletTemperature: { label: 'CW inlet temperature', quantity: 'temperature' },
+  cwOutletTemperature: { label: 'CW outlet temperature', quantity: 'temperature' },
+  cwFlow: { label: 'CW flow', quantity: 'mass_flow' },
   saturationTemperature: { label: 'Saturation temperature', quantity: 'temperature' },
   subcooling: { label: 'Condensate subcooling', quantity: 'temperature_difference' },
   ttd: { label: 'Terminal temperature difference (TTD)', quantity: 'temperature_difference' },
@@ -47,6 +51,7 @@ export const checkCatalog = {
   deviationCostMoney: { label: 'Cost of the deviation', quantity: 'money_rate' },
   dissolvedOxygen: { label: 'Condensate dissolved oxygen', quantity: 'concentration_ppb' },
   airRemovalFlow: { label: 'Air-removal flow', quantity: 'mass_flow' },
+  basinTemperature: { label: 'Cooling-tower basin temperature', quantity: 'temperature' },
   wetBulb: { label: 'Wet-bulb temperature', quantity: 'temperature' },
   towerRange: { label: 'Cooling-tower range', quantity: 'temperature_difference' },
   towerApproach: { label: 'Cooling-tower approach', quantity: 'temperature_difference' },

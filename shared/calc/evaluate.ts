@@ -120,6 +120,10 @@ export function evaluateReadingSet(reading: ReadingSetSi, design: CondenserDesig
 
   // Condenser
   const p = compute('backpressure', () => reading.pressurePa);
+  // Measured values are listed too, so limits, flags and trends cover them like computed checks.
+  compute('hotwellTemperature', () => reading.hotwellK);
+  compute('cwInletTemperature', () => reading.cwInletK);
+  compute('cwOutletTemperature', () => reading.cwOutletK);
   const tsat = compute('saturationTemperature', () => saturationTemperature(need(p, 'the absolute pressure'), 'condenser pressure'));
   compute('subcooling', () => subcooling(need(tsat, 'the saturation temperature'), reading.hotwellK));
   const ttd = compute('ttd', () => terminalTemperatureDifference(need(tsat, 'the saturation temperature'), reading.cwOutletK));
@@ -141,6 +145,7 @@ export function evaluateReadingSet(reading: ReadingSetSi, design: CondenserDesig
 
   // With only the steam side known, the CW flow follows from duty and rise.
   const cwFlow = reading.cwFlowKgS ?? (duty !== null && rise !== null ? duty / (4180 * rise) : null);
+  compute('cwFlow', () => optional(reading.cwFlowKgS), 'not measured');
   const density = waterDensity(Math.min(Math.max(reading.cwInletK, 273.15), 373.15));
   const velocity = compute('tubeVelocity', () => tubeVelocity(
     { tubeOdMm: design.tubeOdMm, gaugeBwg: design.tubeGaugeBwg, tubeCount: design.tubeCount, passes: design.passes },
@@ -222,6 +227,7 @@ export function evaluateReadingSet(reading: ReadingSetSi, design: CondenserDesig
   if (tower.wetBulbK == null && tower.dryBulbK != null && tower.stationPressurePa == null) {
     notes.push('No station pressure: the wet bulb assumes the standard atmosphere (101.325 kPa).');
   }
+  compute('basinTemperature', () => optional(tower.coldWaterK), 'not measured');
   const hotWater = tower.hotWaterK ?? reading.cwOutletK;
   const range = compute(
     'towerRange',

@@ -5,10 +5,11 @@ import { StatusBadge } from '../ui/status-badge';
 import { Notice } from '../ui/notice';
 
 const groups: { title: string; keys: CheckKey[] }[] = [
+  { title: 'Measured', keys: ['backpressure', 'hotwellTemperature', 'cwInletTemperature', 'cwOutletTemperature', 'cwFlow', 'basinTemperature'] },
   {
     title: 'Condenser',
     keys: [
-      'backpressure', 'saturationTemperature', 'subcooling', 'ttd', 'itd', 'cwRise', 'lmtd', 'duty', 'overallU',
+      'saturationTemperature', 'subcooling', 'ttd', 'itd', 'cwRise', 'lmtd', 'duty', 'overallU',
       'tubeVelocity', 'cleanU', 'cleanlinessFactor', 'expectedBackpressure', 'backpressureDeviation',
       'deviationCostPower', 'deviationCostMoney', 'dissolvedOxygen',
     ],
