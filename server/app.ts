@@ -23,6 +23,13 @@ import { flagRoutes } from './features/flags/routes';
 import { trendRoutes } from './features/trends/routes';
 import { makeImportService } from './features/imports/service';
 import { importRoutes } from './features/imports/routes';
+import { createRealtimeHub, type RealtimeHub } from './lib/realtime';
+import { makeLogService } from './features/log/service';
+import { logRoutes } from './features/log/routes';
+import { makeStandingOrderService } from './features/standing-orders/service';
+import { standingOrderRoutes } from './features/standing-orders/routes';
+import { makeConditionService } from './features/conditions/service';
+import { conditionRoutes } from './features/conditions/routes';
 
 const SequelizeStore = ConnectSessionSequelize(session.Store);
 
@@ -30,6 +37,8 @@ export type BuiltApp = {
   app: express.Express;
   /** The same session middleware, for the Socket.IO handshake. */
   sessionMiddleware: RequestHandler;
+  /** Emits after commits; `attach` it to the HTTP server to reach browsers. */
+  realtime: RealtimeHub;
   close: () => void;
 };
 
@@ -84,6 +93,7 @@ export function createApp(sequelize: Sequelize, config: Pick<AppConfig, 'session
   app.use('/api', csrf.csrfSynchronisedProtection);
 
   const users = makeUserService(sequelize);
+  const realtime = createRealtimeHub();
   app.get('/api/health', (_req, res) => {
     res.json({ ok: true });
   });
@@ -95,6 +105,10 @@ export function createApp(sequelize: Sequelize, config: Pick<AppConfig, 'session
   app.use('/api', flagRoutes(makeFlagService(sequelize)));
   app.use('/api', trendRoutes(sequelize));
   app.use('/api', importRoutes(makeImportService(sequelize)));
+  const log = makeLogService(sequelize, realtime);
+  app.use('/api', logRoutes(sequelize, log));
+  app.use('/api', standingOrderRoutes(makeStandingOrderService(sequelize, realtime)));
+  app.use('/api', conditionRoutes(makeConditionService(sequelize, realtime, log)));
   app.use('/api/calc', calcRoutes());
   app.use('/api', (_req, _res, next) => next(new NotFound('That API route')));
 
@@ -109,5 +123,5 @@ export function createApp(sequelize: Sequelize, config: Pick<AppConfig, 'session
   });
   app.use(errorMiddleware);
 
-  return { app, sessionMiddleware, close: () => store.stopExpiringSessions() };
+  return { app, sessionMiddleware, realtime, close: () => store.stopExpiringSessions() };
 }

@@ -12,6 +12,7 @@ await sequelize.authenticate();
 
 const built = createApp(sequelize, config);
 const server = http.createServer(built.app);
+const io = built.realtime.attach(server, built.sessionMiddleware);
 server.listen(config.port, config.host, () => {
   console.log(`[server] listening on http://${config.host}:${config.port}`);
 });
@@ -20,6 +21,7 @@ let closing = false;
 async function shutdown() {
   if (closing) return;
   closing = true;
+  await io.close();
   server.close();
   server.closeAllConnections();
   built.close();

@@ -3,12 +3,14 @@ import type { Sequelize } from 'sequelize';
 import * as foundation from './migrations/0001-foundation';
 import * as condenserDesign from './migrations/0002-condenser-design';
 import * as roundsAndFlags from './migrations/0003-rounds-and-flags';
+import * as narrativeLog from './migrations/0004-narrative-log';
 
 // Listed explicitly so the order is obvious and nothing depends on globbing at run time.
 const migrations = [
   { name: '0001-foundation', ...foundation },
   { name: '0002-condenser-design', ...condenserDesign },
   { name: '0003-rounds-and-flags', ...roundsAndFlags },
+  { name: '0004-narrative-log', ...narrativeLog },
 ];
 
 export function createMigrator(sequelize: Sequelize) {

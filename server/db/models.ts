@@ -6,6 +6,10 @@ import { initPlantModels } from '../features/plant/model';
 import { initReadingModels } from '../features/readings/model';
 import { initFlagModel } from '../features/flags/model';
 import { initImportModel } from '../features/imports/model';
+import { initStationModels } from '../features/stations/model';
+import { initLogModels } from '../features/log/model';
+import { initStandingOrderModels } from '../features/standing-orders/model';
+import { initConditionModel } from '../features/conditions/model';
 
 /** Registers every model on the instance. Schema comes from migrations, never from sync(). */
 export function initModels(sequelize: Sequelize) {
@@ -16,4 +20,8 @@ export function initModels(sequelize: Sequelize) {
   initReadingModels(sequelize);
   initFlagModel(sequelize);
   initImportModel(sequelize);
+  initStationModels(sequelize);
+  initLogModels(sequelize);
+  initStandingOrderModels(sequelize);
+  initConditionModel(sequelize);
 }

@@ -45,7 +45,7 @@ export function wetBulbTemperature(dryBulbK: number, relativeHumidity: number, p
   const target = humidityRatio(relativeHumidity * saturationVapourPressure(dryBulbK), pressurePa);
   let lo = -100;
   let hi = dryC;
-  for (let i = 0; i < 60 && hi - lo > 1e-9; i++) {
+  for (let i = 0; i < 60 && hi - lo > 1e-6; i++) {
     const mid = (lo + hi) / 2;
     if (humidityRatioForWetBulb(dryC, mid, pressurePa) > target) hi = mid;
     else lo = mid;

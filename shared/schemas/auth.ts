@@ -41,9 +41,10 @@ export const updateUserSchema = z
   .object({
     role: roleSchema.optional(),
     crewId: z.number().int().positive().nullable().optional(),
+    position: z.string().regex(/^[a-z][a-z0-9_]{1,39}$/, 'Not a position key').nullable().optional(),
     version: z.number().int().nonnegative(),
   })
-  .refine((v) => v.role !== undefined || v.crewId !== undefined, { message: 'Nothing to change' });
+  .refine((v) => v.role !== undefined || v.crewId !== undefined || v.position !== undefined, { message: 'Nothing to change' });
 export type UpdateUserInput = z.infer<typeof updateUserSchema>;
 
 export const userVersionSchema = z.object({ version: z.number().int().nonnegative() });
@@ -55,6 +56,7 @@ export type PublicUser = {
   role: (typeof roles)[number];
   crewId: number | null;
   crewName: string | null;
+  position: string | null;
   active: boolean;
   mustChangePassword: boolean;
   version: number;

@@ -8,6 +8,7 @@ import type { Role } from '../../../shared/roles';
 import people from './demo-people.json';
 import { demoCondenserDesign, demoCrews, demoStation, demoUnits } from './demo-plant';
 import { seedDemoHistory } from './demo-history';
+import { seedDemoLog } from './demo-log';
 
 export async function seedDemo(sequelize: Sequelize): Promise<{ created: number }> {
   let created = 0;
@@ -64,6 +65,7 @@ export async function seedDemo(sequelize: Sequelize): Promise<{ created: number 
           email: person.email,
           role: person.role as Role,
           crewId: person.crew ? (crewIds.get(person.crew) ?? null) : null,
+          position: person.position ?? null,
           passwordHash,
         },
         transaction,
@@ -78,5 +80,7 @@ export async function seedDemo(sequelize: Sequelize): Promise<{ created: number 
     unitIds.map((id, i) => ({ id, design: demoCondenserDesign, fouling: i === 0 })),
     { id: recorder!.id, role: recorder!.role },
   );
-  return { created: created + history };
+  const station = await Station.findOne({ where: { code: demoStation.code } });
+  const logRows = await seedDemoLog(sequelize, station!.id, unitIds[0]!);
+  return { created: created + history + logRows };
 }

@@ -30,7 +30,7 @@ export function plantRoutes(sequelize: Sequelize, versions: VersionService): Rou
   router.get('/units', async (_req, res) => {
     const [units, stations] = await Promise.all([PlantUnit.findAll({ order: [['code', 'ASC']] }), Station.findAll()]);
     const stationNames = new Map(stations.map((s) => [s.id, s.name]));
-    res.json({ units: units.map((u) => ({ id: u.id, code: u.code, name: u.name, station: stationNames.get(u.stationId) ?? '' })) });
+    res.json({ units: units.map((u) => ({ id: u.id, code: u.code, name: u.name, stationId: u.stationId, station: stationNames.get(u.stationId) ?? '' })) });
   });
 
   router.get('/people', async (_req, res) => {

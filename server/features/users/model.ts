@@ -7,6 +7,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare email: string;
   declare role: Role;
   declare crewId: number | null;
+  declare position: CreationOptional<string | null>;
   declare active: CreationOptional<boolean>;
   declare passwordHash: string;
   declare mustChangePassword: CreationOptional<boolean>;
@@ -22,6 +23,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
         email: { type: DataTypes.STRING(254), allowNull: false, unique: true },
         role: { type: DataTypes.ENUM('trainee', 'operator', 'shift_lead', 'trainer', 'admin'), allowNull: false },
         crewId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        position: { type: DataTypes.STRING(40), allowNull: true },
         active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
         passwordHash: { type: DataTypes.STRING(255), allowNull: false },
         mustChangePassword: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },

@@ -22,6 +22,7 @@ export function presentUser(user: User, crews: Map<number, string>): PublicUser 
     role: user.role,
     crewId: user.crewId,
     crewName: user.crewId ? (crews.get(user.crewId) ?? null) : null,
+    position: user.position ?? null,
     active: user.active,
     mustChangePassword: user.mustChangePassword,
     version: user.version,
@@ -34,6 +35,7 @@ const auditView = (user: User) => ({
   email: user.email,
   role: user.role,
   crewId: user.crewId,
+  position: user.position ?? null,
   active: user.active,
   mustChangePassword: user.mustChangePassword,
 });
@@ -111,6 +113,7 @@ export function makeUserService(sequelize: Sequelize) {
     return change(actorId, id, input.version, 'user.update', (user) => {
       if (input.role !== undefined) user.role = input.role;
       if (input.crewId !== undefined) user.crewId = input.crewId;
+      if (input.position !== undefined) user.position = input.position;
     });
   }
 

@@ -2,7 +2,7 @@ import { useSearchParams } from 'react-router';
 import { useQuery } from '@tanstack/react-query';
 import { api } from '../../lib/api-client';
 
-export type UnitSummary = { id: number; code: string; name: string; station: string };
+export type UnitSummary = { id: number; code: string; name: string; stationId: number; station: string };
 export const unitsQueryKey = ['plant', 'units'] as const;
 const useUnitList = () =>
   useQuery({ queryKey: unitsQueryKey, queryFn: async () => (await api.get<{ units: UnitSummary[] }>('/api/plant/units')).units, staleTime: 5 * 60_000 });

@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 
-export type UnitSummary = { id: number; code: string; name: string; station: string };
+export type UnitSummary = { id: number; code: string; name: string; stationId: number; station: string };
 
 export const plantKeys = {
   all: ['plant'] as const,

@@ -1,0 +1,83 @@
+// Time-limited conditions: opened with a deadline, shown with the time left (computed here, from
+// UTC), closed only by a closing log entry.
+import { Op, type Sequelize } from 'sequelize';
+import { remainingTime } from '../../../shared/conditions';
+import { stationLocalLabel } from '../../../shared/shift-time';
+import { recordAudit } from '../../lib/audit';
+import { Conflict, NotFound, ValidationError } from '../../lib/errors';
+import type { RealtimeHub } from '../../lib/realtime';
+import { settingsForUnit } from '../stations/settings';
+import { User } from '../users/model';
+import type { LogService } from '../log/service';
+import { Condition } from './model';
+
+export async function presentConditions(conditions: Condition[], timeZone: string, now = new Date()) {
+  const people = new Map(
+    (await User.findAll({ where: { id: [...new Set(conditions.flatMap((c) => [c.ownerId, c.openedBy, c.closedBy].filter((id): id is number => id !== null)))] }, attributes: ['id', 'name'] })).map((u) => [u.id, u.name]),
+  );
+  return conditions.map((c) => {
+    const remaining = remainingTime(c.startedAt, c.limitAt, now, c.closedAt);
+    return {
+      id: c.id,
+      unitId: c.unitId,
+      title: c.title,
+      requiredAction: c.requiredAction,
+      startedAt: c.startedAt.toISOString(),
+      limitAt: c.limitAt.toISOString(),
+      limitLocal: stationLocalLabel(c.limitAt, timeZone),
+      timeZone,
+      owner: people.get(c.ownerId) ?? `#${c.ownerId}`,
+      openedBy: people.get(c.openedBy) ?? `#${c.openedBy}`,
+      closedBy: c.closedBy ? (people.get(c.closedBy) ?? `#${c.closedBy}`) : null,
+      closedAt: c.closedAt?.toISOString() ?? null,
+      closingEntryId: c.closingEntryId,
+      serverNow: now.toISOString(),
+      remainingMs: remaining.remainingMs,
+      state: remaining.state,
+      version: c.version,
+    };
+  });
+}
+
+export function makeConditionService(sequelize: Sequelize, realtime: RealtimeHub, log: LogService) {
+  async function open(actorId: number, unitId: number, input: { title: string; requiredAction: string; startedAt: string; limitHours?: number; limitAt?: string; ownerId: number }) {
+    await settingsForUnit(unitId);
+    const owner = await User.findByPk(input.ownerId);
+    if (!owner || !owner.active) throw new ValidationError({ ownerId: 'No such active person' });
+    const startedAt = new Date(input.startedAt);
+    // Hours allowed are absolute hours: a clock change neither adds nor removes one.
+    const limitAt = input.limitAt ? new Date(input.limitAt) : new Date(startedAt.getTime() + input.limitHours! * 3_600_000);
+    if (limitAt <= startedAt) throw new ValidationError({ limitAt: 'The deadline must be after the start' });
+    if (startedAt.getTime() > Date.now() + 60_000) throw new ValidationError({ startedAt: 'Cannot start in the future' });
+    const condition = await sequelize.transaction(async (transaction) => {
+      const created = await Condition.create(
+        { unitId, title: input.title, requiredAction: input.requiredAction, startedAt, limitAt, ownerId: input.ownerId, openedBy: actorId, openedAt: new Date(), closedBy: null, closedAt: null, closingEntryId: null },
+        { transaction },
+      );
+      await recordAudit({ actorId, action: 'condition.open', entity: 'condition', entityId: created.id, after: { title: input.title, limitAt } }, transaction);
+      return created;
+    });
+    realtime.toUnit(unitId, { entity: 'condition', id: condition.id });
+    return condition;
+  }
+
+  async function close(actor: { id: number; role: string }, id: number, input: { text: string; position: string; version: number }) {
+    const condition = await Condition.findByPk(id);
+    if (!condition) throw new NotFound('That condition');
+    if (condition.closedAt) throw new Conflict('This condition is already closed');
+    if (condition.version !== input.version) throw new Conflict('Someone else changed this condition; reload and try again');
+    const { settings } = await settingsForUnit(condition.unitId);
+    const category = settings.categories.some((c) => c.key === 'equipment_status') ? 'equipment_status' : settings.categories[0]!.key;
+    const entry = await log.addEntry(actor, condition.unitId, { position: input.position, category, text: `Closed condition “${condition.title}”: ${input.text}`, carryToHandover: true }, { conditionId: id });
+    const [updated] = await Condition.update(
+      { closedAt: new Date(), closedBy: actor.id, closingEntryId: entry.id, version: condition.version + 1 },
+      { where: { id, version: input.version, closedAt: { [Op.is]: null } } },
+    );
+    if (!updated) throw new Conflict('Someone else closed this condition first');
+    realtime.toUnit(condition.unitId, { entity: 'condition', id });
+    return Condition.findByPk(id);
+  }
+
+  return { open, close };
+}
+export type ConditionService = ReturnType<typeof makeConditionService>;

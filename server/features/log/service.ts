@@ -1,0 +1,156 @@
+// The narrative log: append-only entries, amendments beside them, late-entry marking by server
+// time, and the shift lead's end-of-shift review.
+import { Op, type Sequelize } from 'sequelize';
+import { shiftStartFor } from '../../../shared/shift-time';
+import type { NewLogEntry } from '../../../shared/schemas/log';
+import { Conflict, Forbidden, NotFound, ValidationError } from '../../lib/errors';
+import type { RealtimeHub } from '../../lib/realtime';
+import { recordAudit } from '../../lib/audit';
+import { Equipment } from '../plant/model';
+import { ReadingSet } from '../readings/model';
+import { Flag } from '../flags/model';
+import { User } from '../users/model';
+import { requireKnown, settingsForUnit } from '../stations/settings';
+import { LogAmendment, LogEntry, LogReview } from './model';
+
+const FUTURE_TOLERANCE_MS = 2 * 60 * 1000;
+const OLDEST_LATE_ENTRY_MS = 31 * 86_400_000;
+
+type Actor = { id: number; role: string };
+
+async function checkLinks(unitId: number, input: NewLogEntry) {
+  const fields: Record<string, string> = {};
+  if (input.equipmentId) {
+    const e = await Equipment.findByPk(input.equipmentId);
+    if (!e || e.unitId !== unitId) fields.equipmentId = 'No such equipment on this unit';
+  }
+  if (input.readingSetId) {
+    const r = await ReadingSet.findByPk(input.readingSetId, { attributes: ['id', 'unitId'] });
+    if (!r || r.unitId !== unitId) fields.readingSetId = 'No such reading set on this unit';
+  }
+  if (input.flagId) {
+    const f = await Flag.findByPk(input.flagId);
+    if (!f || f.unitId !== unitId) fields.flagId = 'No such flag on this unit';
+  }
+  if (Object.keys(fields).length) throw new ValidationError(fields);
+}
+
+export function makeLogService(sequelize: Sequelize, realtime: RealtimeHub) {
+  async function addEntry(actor: Actor, unitId: number, input: NewLogEntry, extra: { conditionId?: number } = {}) {
+    const { settings } = await settingsForUnit(unitId);
+    requireKnown(settings, input);
+    await checkLinks(unitId, input);
+    // Entry time is the server's, whatever clock the client has; the event time is the person's.
+    const enteredAt = new Date();
+    const eventAt = input.eventAt ? new Date(input.eventAt) : enteredAt;
+    if (eventAt.getTime() > enteredAt.getTime() + FUTURE_TOLERANCE_MS) throw new ValidationError({ eventAt: 'An event cannot be in the future' });
+    if (enteredAt.getTime() - eventAt.getTime() > OLDEST_LATE_ENTRY_MS) throw new ValidationError({ eventAt: 'More than 31 days ago: ask the shift lead to record it as a communication' });
+    const entry = await LogEntry.create({
+      unitId,
+      position: input.position,
+      category: input.category,
+      eventAt,
+      enteredAt,
+      shiftStart: shiftStartFor(eventAt, settings.timeZone, settings.shiftChangeTimes),
+      late: enteredAt.getTime() - eventAt.getTime() > settings.lateEntryMinutes * 60_000,
+      authorId: actor.id,
+      text: input.text,
+      equipmentId: input.equipmentId ?? null,
+      readingSetId: input.readingSetId ?? null,
+      flagId: input.flagId ?? null,
+      conditionId: extra.conditionId ?? null,
+      carryToHandover: input.carryToHandover,
+    });
+    realtime.toUnit(unitId, { entity: 'log_entry', id: entry.id });
+    return entry;
+  }
+
+  async function amend(actor: Actor, entryId: number, input: { reason: string; text: string }) {
+    const entry = await LogEntry.findByPk(entryId);
+    if (!entry) throw new NotFound('That log entry');
+    if (actor.role === 'trainee' && entry.authorId !== actor.id) throw new Forbidden('A trainee may amend only their own entries');
+    const amendment = await sequelize.transaction(async (transaction) => {
+      const created = await LogAmendment.create({ entryId, authorId: actor.id, amendedAt: new Date(), reason: input.reason, text: input.text }, { transaction });
+      await recordAudit({ actorId: actor.id, action: 'log.amend', entity: 'log_entry', entityId: entryId, after: { reason: input.reason } }, transaction);
+      return created;
+    });
+    realtime.toUnit(entry.unitId, { entity: 'log_entry', id: entryId });
+    return amendment;
+  }
+
+  async function signReview(actor: Actor, unitId: number, position: string, shiftStartText: string) {
+    const { settings } = await settingsForUnit(unitId);
+    requireKnown(settings, { position });
+    const shiftStart = new Date(shiftStartText);
+    if (shiftStartFor(shiftStart, settings.timeZone, settings.shiftChangeTimes).getTime() !== shiftStart.getTime()) {
+      throw new ValidationError({ shiftStart: 'Not the start of a shift at this station' });
+    }
+    if (shiftStart.getTime() > Date.now()) throw new ValidationError({ shiftStart: 'That shift has not started' });
+    const existing = await LogReview.findOne({ where: { unitId, position, shiftStart } });
+    if (existing) throw new Conflict('This shift’s log for that position is already signed as reviewed');
+    const review = await LogReview.create({ unitId, position, shiftStart, reviewedBy: actor.id, reviewedAt: new Date() });
+    realtime.toUnit(unitId, { entity: 'log_review', id: review.id });
+    return review;
+  }
+
+  return { addEntry, amend, signReview };
+}
+export type LogService = ReturnType<typeof makeLogService>;
+
+type LogQuery = { position?: string; category?: string; authorId?: number; shiftStart?: string; limit: number; before?: number };
+
+/** Entries newest event first, each with its amendments and whether it came after the review. */
+export async function listEntries(unitId: number, q: LogQuery) {
+  const where: Record<string | symbol, unknown> = { unitId };
+  if (q.position) where.position = q.position;
+  if (q.category) where.category = q.category;
+  if (q.authorId) where.authorId = q.authorId;
+  if (q.shiftStart) where.shiftStart = new Date(q.shiftStart);
+  if (q.before) where.id = { [Op.lt]: q.before };
+  const entries = await LogEntry.findAll({ where, order: [['eventAt', 'DESC'], ['id', 'DESC']], limit: q.limit });
+  const ids = entries.map((e) => e.id);
+  const amendments = ids.length ? await LogAmendment.findAll({ where: { entryId: ids }, order: [['id', 'ASC']] }) : [];
+  const shifts = [...new Set(entries.map((e) => e.shiftStart.getTime()))].map((t) => new Date(t));
+  const reviews = shifts.length ? await LogReview.findAll({ where: { unitId, shiftStart: shifts } }) : [];
+  const people = new Map(
+    (await User.findAll({ where: { id: [...new Set([...entries.map((e) => e.authorId), ...amendments.map((a) => a.authorId), ...reviews.map((r) => r.reviewedBy)])] }, attributes: ['id', 'name'] })).map((u) => [u.id, u.name]),
+  );
+  const reviewOf = (e: LogEntry) => reviews.find((r) => r.position === e.position && r.shiftStart.getTime() === e.shiftStart.getTime());
+  return entries.map((e) => {
+    const review = reviewOf(e);
+    return {
+      id: e.id,
+      position: e.position,
+      category: e.category,
+      eventAt: e.eventAt.toISOString(),
+      enteredAt: e.enteredAt.toISOString(),
+      shiftStart: e.shiftStart.toISOString(),
+      late: e.late,
+      author: people.get(e.authorId) ?? `#${e.authorId}`,
+      authorId: e.authorId,
+      text: e.text,
+      equipmentId: e.equipmentId,
+      readingSetId: e.readingSetId,
+      flagId: e.flagId,
+      conditionId: e.conditionId,
+      carryToHandover: e.carryToHandover,
+      enteredAfterReview: review ? e.enteredAt > review.reviewedAt : false,
+      amendments: amendments
+        .filter((a) => a.entryId === e.id)
+        .map((a) => ({
+          id: a.id,
+          author: people.get(a.authorId) ?? `#${a.authorId}`,
+          amendedAt: a.amendedAt.toISOString(),
+          reason: a.reason,
+          text: a.text,
+          afterReview: review ? a.amendedAt > review.reviewedAt : false,
+        })),
+    };
+  });
+}
+
+export async function reviewsFor(unitId: number, shiftStarts: Date[]) {
+  const reviews = await LogReview.findAll({ where: { unitId, shiftStart: shiftStarts } });
+  const people = new Map((await User.findAll({ where: { id: reviews.map((r) => r.reviewedBy) }, attributes: ['id', 'name'] })).map((u) => [u.id, u.name]));
+  return reviews.map((r) => ({ position: r.position, shiftStart: r.shiftStart.toISOString(), by: people.get(r.reviewedBy) ?? `#${r.reviewedBy}`, at: r.reviewedAt.toISOString() }));
+}

@@ -1,0 +1,134 @@
+// Standing orders: a shift lead issues, everyone in scope acknowledges having read it.
+import sanitizeHtml from 'sanitize-html';
+import { Op, type Sequelize } from 'sequelize';
+import { recordAudit } from '../../lib/audit';
+import { Conflict, Forbidden, NotFound, ValidationError } from '../../lib/errors';
+import type { RealtimeHub } from '../../lib/realtime';
+import { Crew } from '../plant/model';
+import { User } from '../users/model';
+import { StandingOrder, StandingOrderAck } from './model';
+
+// What the editor produces (StarterKit, links, task lists); everything else is dropped.
+const allowed: sanitizeHtml.IOptions = {
+  allowedTags: ['p', 'br', 'strong', 'em', 's', 'u', 'code', 'pre', 'blockquote', 'h1', 'h2', 'h3', 'ul', 'ol', 'li', 'a', 'hr', 'label', 'input', 'div', 'span'],
+  allowedAttributes: { a: ['href', 'rel', 'target'], ul: ['data-type'], li: ['data-type', 'data-checked'], input: ['type', 'checked', 'disabled'] },
+  allowedSchemes: ['http', 'https', 'mailto'],
+  transformTags: { a: sanitizeHtml.simpleTransform('a', { rel: 'noopener noreferrer', target: '_blank' }) },
+};
+
+const inScopeRoles = ['trainee', 'operator', 'shift_lead'] as const;
+
+export function orderInForce(order: StandingOrder, now = new Date()) {
+  return order.effectiveFrom <= now && (!order.effectiveTo || order.effectiveTo > now);
+}
+
+/** The people an order asks to acknowledge it: active crew members in its crews and positions. */
+export async function peopleInScope(order: StandingOrder) {
+  const where: Record<string, unknown> = { active: true, role: [...inScopeRoles] };
+  if (order.crewIds.length) where.crewId = order.crewIds;
+  if (order.positions.length) where.position = order.positions;
+  return User.findAll({ where, attributes: ['id', 'name', 'role', 'crewId', 'position'], order: [['name', 'ASC']] });
+}
+
+function inScope(order: StandingOrder, user: { role: string; crewId: number | null; position?: string | null }) {
+  return (
+    (inScopeRoles as readonly string[]).includes(user.role) &&
+    (!order.crewIds.length || (user.crewId !== null && order.crewIds.includes(user.crewId))) &&
+    (!order.positions.length || (user.position != null && order.positions.includes(user.position)))
+  );
+}
+
+export function makeStandingOrderService(sequelize: Sequelize, realtime: RealtimeHub) {
+  async function issue(actorId: number, stationId: number, input: { title: string; bodyHtml: string; effectiveFrom: string; effectiveTo?: string | null; crewIds: number[]; positions: string[] }) {
+    const bodyHtml = sanitizeHtml(input.bodyHtml, allowed);
+    const bodyText = sanitizeHtml(input.bodyHtml, { allowedTags: [], allowedAttributes: {} }).replace(/\s+/g, ' ').trim();
+    if (!bodyText) throw new ValidationError({ bodyHtml: 'Write the order' });
+    if (input.crewIds.length) {
+      const crews = await Crew.count({ where: { id: input.crewIds, stationId } });
+      if (crews !== new Set(input.crewIds).size) throw new ValidationError({ crewIds: 'Unknown crew' });
+    }
+    const order = await sequelize.transaction(async (transaction) => {
+      const created = await StandingOrder.create(
+        {
+          stationId,
+          title: input.title,
+          bodyHtml,
+          bodyText,
+          effectiveFrom: new Date(input.effectiveFrom),
+          effectiveTo: input.effectiveTo ? new Date(input.effectiveTo) : null,
+          crewIds: [...new Set(input.crewIds)],
+          positions: [...new Set(input.positions)],
+          issuedBy: actorId,
+          issuedAt: new Date(),
+        },
+        { transaction },
+      );
+      await recordAudit({ actorId, action: 'standing_order.issue', entity: 'standing_order', entityId: created.id, after: { title: input.title } }, transaction);
+      return created;
+    });
+    realtime.toEveryone({ entity: 'standing_order', id: order.id });
+    return order;
+  }
+
+  async function acknowledge(user: Express.User & { position?: string | null }, orderId: number) {
+    const order = await StandingOrder.findByPk(orderId);
+    if (!order) throw new NotFound('That standing order');
+    const person = await User.findByPk(user.id);
+    if (!person || !inScope(order, person)) throw new Forbidden('This order is not addressed to your crew or position');
+    if (!orderInForce(order)) throw new Conflict('This order is not in force');
+    if (await StandingOrderAck.findOne({ where: { orderId, userId: user.id } })) throw new Conflict('You have already acknowledged this order');
+    const ack = await StandingOrderAck.create({ orderId, userId: user.id, acknowledgedAt: new Date() });
+    realtime.toEveryone({ entity: 'standing_order', id: orderId });
+    return ack;
+  }
+
+  return { issue, acknowledge };
+}
+export type StandingOrderService = ReturnType<typeof makeStandingOrderService>;
+
+export async function listOrders(stationId: number, q: { state: 'in_force' | 'archived' | 'all'; q?: string }) {
+  const now = new Date();
+  const where: Record<string | symbol, unknown> = { stationId };
+  if (q.state === 'in_force') Object.assign(where, { effectiveFrom: { [Op.lte]: now }, [Op.or]: [{ effectiveTo: null }, { effectiveTo: { [Op.gt]: now } }] });
+  if (q.state === 'archived') where.effectiveTo = { [Op.lte]: now };
+  if (q.q) {
+    const like = `%${q.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    where[Op.and] = [{ [Op.or]: [{ title: { [Op.like]: like } }, { bodyText: { [Op.like]: like } }] }];
+  }
+  const orders = await StandingOrder.findAll({ where, order: [['effectiveFrom', 'DESC']], limit: 200 });
+  return Promise.all(orders.map((o) => presentOrder(o, false)));
+}
+
+export async function presentOrder(order: StandingOrder, withPeople: boolean) {
+  const [scope, acks, issuer] = await Promise.all([peopleInScope(order), StandingOrderAck.findAll({ where: { orderId: order.id } }), User.findByPk(order.issuedBy, { attributes: ['name'] })]);
+  const acked = new Map(acks.map((a) => [a.userId, a.acknowledgedAt]));
+  const view = {
+    id: order.id,
+    title: order.title,
+    bodyHtml: order.bodyHtml,
+    effectiveFrom: order.effectiveFrom.toISOString(),
+    effectiveTo: order.effectiveTo?.toISOString() ?? null,
+    inForce: orderInForce(order),
+    crewIds: order.crewIds,
+    positions: order.positions,
+    issuedBy: issuer?.name ?? `#${order.issuedBy}`,
+    issuedAt: order.issuedAt.toISOString(),
+    inScope: scope.length,
+    acknowledged: scope.filter((p) => acked.has(p.id)).length,
+  };
+  if (!withPeople) return view;
+  return {
+    ...view,
+    people: scope.map((p) => ({ id: p.id, name: p.name, role: p.role, acknowledgedAt: acked.get(p.id)?.toISOString() ?? null })),
+  };
+}
+
+/** Orders in force that ask this person to acknowledge and that they have not yet. */
+export async function pendingFor(userId: number) {
+  const person = await User.findByPk(userId);
+  if (!person) return [];
+  const now = new Date();
+  const orders = await StandingOrder.findAll({ where: { effectiveFrom: { [Op.lte]: now }, [Op.or]: [{ effectiveTo: null }, { effectiveTo: { [Op.gt]: now } }] } });
+  const acked = new Set((await StandingOrderAck.findAll({ where: { userId, orderId: orders.map((o) => o.id) } })).map((a) => a.orderId));
+  return orders.filter((o) => inScope(o, person) && !acked.has(o.id)).map((o) => ({ id: o.id, title: o.title, bodyHtml: o.bodyHtml, effectiveFrom: o.effectiveFrom.toISOString() }));
+}

@@ -1,0 +1,29 @@
+import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import type { StationSettings } from '../../../shared/schemas/log';
+
+export class StationSettingsRow extends Model<InferAttributes<StationSettingsRow>, InferCreationAttributes<StationSettingsRow>> {
+  declare stationId: number;
+  declare timeZone: string;
+  declare lateEntryMinutes: number;
+  declare shiftChangeTimes: string[];
+  declare positions: StationSettings['positions'];
+  declare categories: StationSettings['categories'];
+  declare templates: StationSettings['templates'];
+  declare updatedAt: Date;
+}
+
+export function initStationModels(sequelize: Sequelize) {
+  StationSettingsRow.init(
+    {
+      stationId: { type: DataTypes.INTEGER.UNSIGNED, primaryKey: true },
+      timeZone: DataTypes.STRING(64),
+      lateEntryMinutes: DataTypes.INTEGER.UNSIGNED,
+      shiftChangeTimes: DataTypes.JSON,
+      positions: DataTypes.JSON,
+      categories: DataTypes.JSON,
+      templates: DataTypes.JSON,
+      updatedAt: DataTypes.DATE(3),
+    },
+    { sequelize, tableName: 'station_settings', timestamps: false },
+  );
+}

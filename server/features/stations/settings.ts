@@ -1,0 +1,58 @@
+import type { Transaction } from 'sequelize';
+import type { StationSettings } from '../../../shared/schemas/log';
+import { PlantUnit } from '../plant/model';
+import { NotFound, ValidationError } from '../../lib/errors';
+import { StationSettingsRow } from './model';
+
+/** What a station without its own settings starts from. */
+export const defaultStationSettings: StationSettings = {
+  timeZone: 'Europe/Berlin',
+  lateEntryMinutes: 30,
+  shiftChangeTimes: ['06:00', '18:00'],
+  positions: [
+    { key: 'control_room', label: 'Control room' },
+    { key: 'field_cw_tower', label: 'Field — CW and tower' },
+    { key: 'chemistry', label: 'Chemistry' },
+  ],
+  categories: [
+    { key: 'equipment_status', label: 'Equipment status change' },
+    { key: 'operation', label: 'Operation' },
+    { key: 'alarm_abnormal', label: 'Alarm or abnormal condition' },
+    { key: 'test', label: 'Test' },
+    { key: 'chemistry', label: 'Chemistry' },
+    { key: 'communication', label: 'Communication' },
+    { key: 'other', label: 'Other' },
+  ],
+  templates: [
+    { label: 'Started CW pump', category: 'equipment_status', text: 'Started {equipment}; discharge pressure normal, no abnormal noise.' },
+    { label: 'Stopped CW pump', category: 'equipment_status', text: 'Stopped {equipment}.' },
+    { label: 'Waterbox backwash', category: 'operation', text: 'Backwashed waterbox on {equipment}; ΔP before / after recorded on the round.' },
+    { label: 'Vacuum-decay test', category: 'test', text: 'Vacuum-decay test on {equipment} with air removal isolated; rate recorded on the round.' },
+  ],
+};
+
+export async function settingsForStation(stationId: number, transaction?: Transaction): Promise<StationSettings> {
+  const row = await StationSettingsRow.findByPk(stationId, { transaction });
+  if (!row) return defaultStationSettings;
+  return {
+    timeZone: row.timeZone,
+    lateEntryMinutes: row.lateEntryMinutes,
+    shiftChangeTimes: row.shiftChangeTimes,
+    positions: row.positions,
+    categories: row.categories,
+    templates: row.templates,
+  };
+}
+
+export async function settingsForUnit(unitId: number) {
+  const unit = await PlantUnit.findByPk(unitId);
+  if (!unit) throw new NotFound('That unit');
+  return { unit, settings: await settingsForStation(unit.stationId) };
+}
+
+export function requireKnown(settings: StationSettings, input: { position?: string; category?: string }) {
+  const fields: Record<string, string> = {};
+  if (input.position !== undefined && !settings.positions.some((p) => p.key === input.position)) fields.position = 'Not a position of this station';
+  if (input.category !== undefined && !settings.categories.some((c) => c.key === input.category)) fields.category = 'Not a log category of this station';
+  if (Object.keys(fields).length) throw new ValidationError(fields);
+}
