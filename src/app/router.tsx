@@ -22,6 +22,8 @@ export function createAppRouter(queryClient: QueryClient) {
           path: 'account/password',
           lazy: async () => ({ Component: (await import('../features/session/routes/change-password-page')).ChangePasswordPage }),
         },
+        { path: 'log', lazy: async () => ({ Component: (await import('../features/log/routes/log-page')).LogPage }) },
+        { path: 'orders', lazy: async () => ({ Component: (await import('../features/orders/routes/orders-page')).OrdersPage }) },
         { path: 'rounds', lazy: async () => ({ Component: (await import('../features/rounds/routes/rounds-page')).RoundsPage }) },
         { path: 'rounds/:id', lazy: async () => ({ Component: (await import('../features/rounds/routes/reading-page')).ReadingPage }) },
         { path: 'flags', lazy: async () => ({ Component: (await import('../features/flags/routes/flags-page')).FlagsPage }) },

@@ -6,6 +6,8 @@ import { useSignOut } from '../../features/session/api/sign-out';
 import { Notice } from '../../components/ui/notice';
 import { applyTheme, initialTheme, type Theme } from '../../lib/theme';
 import { navigationFor } from '../navigation';
+import { useLiveUpdates } from '../use-live-updates';
+import { PendingOrdersPrompt } from '../../features/orders/components/pending-orders-prompt';
 
 export function AppShell() {
   const { data: me, isPending, error } = useMe();
@@ -13,6 +15,7 @@ export function AppShell() {
   const navigate = useNavigate();
   const signOut = useSignOut();
   const [theme, setTheme] = useState<Theme>(initialTheme);
+  useLiveUpdates(Boolean(me && !me.mustChangePassword));
 
   if (isPending) return <p className="p-8 text-muted">Loading…</p>;
   if (error) return <div className="p-8"><Notice kind="error">{error.message}</Notice></div>;
@@ -67,6 +70,7 @@ export function AppShell() {
           </div>
         </div>
       </header>
+      <PendingOrdersPrompt enabled={!me.mustChangePassword} />
       <main className="mx-auto max-w-6xl px-4 py-6">
         <Outlet />
       </main>

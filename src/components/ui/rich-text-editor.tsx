@@ -1,0 +1,41 @@
+import { EditorContent, useEditor } from '@tiptap/react';
+import StarterKit from '@tiptap/starter-kit';
+import { TaskItem, TaskList } from '@tiptap/extension-list';
+
+type Props = { label: string; initialHtml?: string; onChange: (html: string) => void };
+
+const buttonClass = 'rounded border border-line px-2 py-0.5 text-sm font-bold aria-pressed:bg-accent aria-pressed:text-on-accent';
+
+/** Rich text with headings, lists, bold/italic, links and task lists; the server sanitises what it stores. */
+export function RichTextEditor({ label, initialHtml = '', onChange }: Props) {
+  const editor = useEditor({
+    extensions: [StarterKit.configure({ link: { openOnClick: false, protocols: ['http', 'https', 'mailto'] } }), TaskList, TaskItem.configure({ nested: true })],
+    content: initialHtml,
+    editorProps: { attributes: { 'aria-label': label, role: 'textbox', 'aria-multiline': 'true', class: 'prose-editor min-h-32 p-2 focus:outline-none' } },
+    onUpdate: ({ editor: e }) => onChange(e.getHTML()),
+  });
+  if (!editor) return null;
+  const tool = (name: string, active: boolean, run: () => void) => (
+    <button type="button" className={buttonClass} aria-pressed={active} onClick={run}>
+      {name}
+    </button>
+  );
+  return (
+    <div className="rounded-md border border-line bg-field">
+      <div className="flex flex-wrap gap-1 border-b border-line p-1" role="toolbar" aria-label={`${label} formatting`}>
+        {tool('B', editor.isActive('bold'), () => editor.chain().focus().toggleBold().run())}
+        {tool('I', editor.isActive('italic'), () => editor.chain().focus().toggleItalic().run())}
+        {tool('Heading', editor.isActive('heading', { level: 2 }), () => editor.chain().focus().toggleHeading({ level: 2 }).run())}
+        {tool('• List', editor.isActive('bulletList'), () => editor.chain().focus().toggleBulletList().run())}
+        {tool('1. List', editor.isActive('orderedList'), () => editor.chain().focus().toggleOrderedList().run())}
+        {tool('☐ Tasks', editor.isActive('taskList'), () => editor.chain().focus().toggleTaskList().run())}
+        {tool('Link', editor.isActive('link'), () => {
+          const href = window.prompt('Link address (https://…)');
+          if (href) editor.chain().focus().extendMarkRange('link').setLink({ href }).run();
+          else editor.chain().focus().unsetLink().run();
+        })}
+      </div>
+      <EditorContent editor={editor} />
+    </div>
+  );
+}

@@ -1,0 +1,116 @@
+import { useState } from 'react';
+import type { StationSettings } from '../../../../shared/schemas/log';
+import { ApiError } from '../../../lib/api-client';
+import { useAddEntry, useEquipment } from '../api/log';
+
+const field = 'rounded-md border border-line bg-field px-2 py-1';
+
+/** One line, keyboard only: type, Enter. Category, time and links are optional extras. */
+export function EntryBar({ unitId, settings, position }: { unitId: number; settings: StationSettings; position: string }) {
+  const add = useAddEntry(unitId);
+  const equipment = useEquipment(unitId);
+  const [text, setText] = useState('');
+  const [category, setCategory] = useState(settings.categories[0]?.key ?? 'other');
+  const [eventAt, setEventAt] = useState('');
+  const [equipmentId, setEquipmentId] = useState('');
+  const [carry, setCarry] = useState(false);
+  const fields = add.error instanceof ApiError ? add.error.fields : {};
+  const tag = equipment.data?.find((e) => String(e.id) === equipmentId)?.tag;
+
+  const submit = () => {
+    if (!text.trim()) return;
+    add.mutate(
+      {
+        position,
+        category,
+        text: text.trim(),
+        ...(eventAt ? { eventAt: new Date(eventAt).toISOString() } : {}),
+        equipmentId: equipmentId ? Number(equipmentId) : null,
+        carryToHandover: carry,
+      },
+      {
+        onSuccess: () => {
+          setText('');
+          setEventAt('');
+          setCarry(false);
+        },
+      },
+    );
+  };
+
+  return (
+    <form
+      aria-label="New log entry"
+      className="flex flex-col gap-2 rounded-lg border-2 border-accent bg-panel p-3"
+      onSubmit={(e) => {
+        e.preventDefault();
+        submit();
+      }}
+    >
+      <div className="flex flex-wrap gap-2">
+        <input
+          aria-label="Entry text"
+          className={`${field} min-w-0 flex-1 text-lg`}
+          placeholder="What happened? Enter saves."
+          value={text}
+          onChange={(e) => setText(e.target.value)}
+          maxLength={4000}
+        />
+        <button type="submit" className="rounded-md bg-accent px-4 py-1 font-bold text-on-accent" disabled={add.isPending}>
+          Log it
+        </button>
+      </div>
+      <div className="flex flex-wrap items-end gap-2 text-sm">
+        <label className="flex flex-col">
+          Category
+          <select className={field} value={category} onChange={(e) => setCategory(e.target.value)}>
+            {settings.categories.map((c) => (
+              <option key={c.key} value={c.key}>
+                {c.label}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="flex flex-col">
+          Event time (empty = now)
+          <input type="datetime-local" className={field} value={eventAt} onChange={(e) => setEventAt(e.target.value)} />
+        </label>
+        <label className="flex flex-col">
+          Equipment
+          <select className={field} value={equipmentId} onChange={(e) => setEquipmentId(e.target.value)}>
+            <option value="">—</option>
+            {equipment.data?.map((e) => (
+              <option key={e.id} value={e.id}>
+                {e.tag} · {e.name}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="flex items-center gap-1">
+          <input type="checkbox" checked={carry} onChange={(e) => setCarry(e.target.checked)} /> Carry to handover
+        </label>
+      </div>
+      <div className="flex flex-wrap gap-1 text-sm" aria-label="Templates">
+        {settings.templates.map((t) => (
+          <button
+            key={t.label}
+            type="button"
+            className="rounded-full border border-line px-2 py-0.5"
+            onClick={() => {
+              setText(t.text.replace('{equipment}', tag ?? '…'));
+              setCategory(t.category);
+            }}
+          >
+            {t.label}
+          </button>
+        ))}
+      </div>
+      {add.error ? (
+        <p role="alert" className="font-bold text-alarm">
+          ⚠ {Object.keys(fields).length ? Object.entries(fields).map(([k, v]) => `${k}: ${v}`).join('; ') : add.error.message}
+        </p>
+      ) : null}
+      {add.data?.late ? <p className="text-sm font-bold text-watch">▲ Saved as a late entry (made well after the event).</p> : null}
+    </form>
+  );
+}

@@ -1,0 +1,79 @@
+import { useState } from 'react';
+import type { StationSettings } from '../../../../shared/schemas/log';
+import { stationLocalLabel } from '../../../../shared/shift-time';
+import { useAmendEntry, type LogEntryView } from '../api/log';
+
+function AmendInline({ entry, onDone }: { entry: LogEntryView; onDone: () => void }) {
+  const amend = useAmendEntry();
+  const [text, setText] = useState(entry.amendments.at(-1)?.text ?? entry.text);
+  const [reason, setReason] = useState('');
+  return (
+    <form
+      aria-label="Amend entry"
+      className="mt-2 flex flex-col gap-1 text-sm"
+      onSubmit={(e) => {
+        e.preventDefault();
+        amend.mutate({ id: entry.id, reason, text }, { onSuccess: onDone });
+      }}
+    >
+      <input aria-label="Corrected text" className="rounded-md border border-line bg-field px-2 py-1" value={text} onChange={(e) => setText(e.target.value)} />
+      <input aria-label="Reason for the amendment" placeholder="Why is it corrected?" className="rounded-md border border-line bg-field px-2 py-1" value={reason} onChange={(e) => setReason(e.target.value)} />
+      {amend.error ? <span role="alert" className="text-alarm">⚠ {amend.error.message}</span> : null}
+      <div className="flex gap-2">
+        <button type="submit" className="rounded-md bg-accent px-3 py-0.5 font-bold text-on-accent">
+          Save amendment
+        </button>
+        <button type="button" className="underline" onClick={onDone}>
+          Cancel
+        </button>
+      </div>
+    </form>
+  );
+}
+
+export function EntryList({ entries, settings, mayAmend }: { entries: LogEntryView[]; settings: StationSettings; mayAmend: boolean }) {
+  const [amending, setAmending] = useState<number | null>(null);
+  const label = (list: { key: string; label: string }[], key: string) => list.find((i) => i.key === key)?.label ?? key;
+  const local = (iso: string) => stationLocalLabel(new Date(iso), settings.timeZone);
+  if (!entries.length) return <p className="text-muted">No entries match.</p>;
+  return (
+    <ol className="flex flex-col gap-2" aria-label="Log entries">
+      {entries.map((e) => {
+        const amended = e.amendments.length > 0;
+        return (
+          <li key={e.id} className="rounded-lg border border-line bg-panel p-3" data-testid={`log-entry-${e.id}`}>
+            <div className="flex flex-wrap items-baseline gap-2 text-sm">
+              <span className="reading font-semibold">{local(e.eventAt)}</span>
+              <span className="text-muted">
+                {label(settings.positions, e.position)} · {label(settings.categories, e.category)} · {e.author}
+              </span>
+              {e.late ? (
+                <span className="rounded-full border-2 border-watch px-2 text-xs font-bold text-watch" title={`Entered ${local(e.enteredAt)}`}>
+                  ▲ late entry, written {local(e.enteredAt)}
+                </span>
+              ) : null}
+              {e.carryToHandover ? <span className="rounded-full border border-accent px-2 text-xs font-bold text-accent">⇢ handover</span> : null}
+              {e.enteredAfterReview ? <span className="text-xs font-bold text-watch">entered after the review</span> : null}
+            </div>
+            <p className={`mt-1 whitespace-pre-wrap ${amended ? 'text-muted line-through' : ''}`}>{e.text}</p>
+            {e.amendments.map((a, i) => (
+              <div key={a.id} className="mt-1 border-l-4 border-accent pl-2 text-sm">
+                <p className={i < e.amendments.length - 1 ? 'text-muted line-through' : ''}>{a.text}</p>
+                <p className="text-xs text-muted">
+                  Amended by {a.author} at {local(a.amendedAt)} — {a.reason}
+                  {a.afterReview ? ' · after the review' : ''}
+                </p>
+              </div>
+            ))}
+            {mayAmend && amending !== e.id ? (
+              <button type="button" className="mt-1 text-sm underline" onClick={() => setAmending(e.id)}>
+                Amend
+              </button>
+            ) : null}
+            {amending === e.id ? <AmendInline entry={e} onDone={() => setAmending(null)} /> : null}
+          </li>
+        );
+      })}
+    </ol>
+  );
+}

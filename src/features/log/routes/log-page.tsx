@@ -1,0 +1,141 @@
+import { useState } from 'react';
+import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-picker';
+import { Notice } from '../../../components/ui/notice';
+import { useWatchUnit } from '../../../app/use-live-updates';
+import { useMe } from '../../session/api/get-me';
+import { useLog, useShifts, useSignReview, type LogFilters } from '../api/log';
+import { ConditionsPanel } from '../components/conditions-panel';
+import { EntryBar } from '../components/entry-bar';
+import { EntryList } from '../components/entry-list';
+
+const field = 'rounded-md border border-line bg-field px-2 py-1';
+
+export function LogPage() {
+  const { data: me } = useMe();
+  const { unitId, unit } = useSelectedUnit();
+  useWatchUnit(unitId);
+  const shifts = useShifts(unitId);
+  const settings = shifts.data?.settings;
+  const [position, setPosition] = useState<string | null>(null);
+  const activePosition = position ?? me?.position ?? settings?.positions[0]?.key ?? '';
+  const [filters, setFilters] = useState<LogFilters>({});
+  const log = useLog(unitId, filters);
+  const review = useSignReview(unitId ?? 0);
+  const mayWrite = me && me.role !== 'trainer';
+  const reviewShift = filters.shiftStart ?? shifts.data?.shifts[1]?.start ?? shifts.data?.shifts[0]?.start;
+  const reviewPosition = filters.position ?? activePosition;
+  const signed = shifts.data?.reviews.find((r) => r.shiftStart === reviewShift && r.position === reviewPosition);
+  const set = (patch: Partial<LogFilters>) => setFilters((f) => ({ ...f, ...patch }));
+
+  return (
+    <section className="flex flex-col gap-4">
+      <div className="flex flex-wrap items-end gap-4">
+        <div>
+          <h1 className="text-2xl font-bold">Shift log</h1>
+          <p className="text-muted">{unit ? `${unit.name} · ` : ''}a running record of what changed and why. Entries are never changed or removed; corrections are amendments.</p>
+        </div>
+        <UnitPicker />
+      </div>
+      <aside className="rounded-md border border-watch bg-panel px-4 py-2 text-sm" aria-label="Caution">
+        <strong>Caution — </strong>the log is a record and an aid, not an alarm or protection system. Report urgent conditions by the plant’s
+        own means first.
+      </aside>
+      {settings && unitId ? (
+        <div className="grid gap-4 lg:grid-cols-3">
+          <div className="flex flex-col gap-4 lg:col-span-2">
+            {mayWrite ? (
+              <>
+                <label className="flex items-center gap-2 text-sm font-bold">
+                  Writing as
+                  <select className={field} value={activePosition} onChange={(e) => setPosition(e.target.value)}>
+                    {settings.positions.map((p) => (
+                      <option key={p.key} value={p.key}>
+                        {p.label}
+                      </option>
+                    ))}
+                  </select>
+                </label>
+                <EntryBar unitId={unitId} settings={settings} position={activePosition} />
+              </>
+            ) : null}
+            <fieldset className="flex flex-wrap gap-2 rounded-lg border border-line bg-panel p-2 text-sm">
+              <legend className="font-bold">Show</legend>
+              <label className="flex flex-col">
+                Shift
+                <select className={field} value={filters.shiftStart ?? ''} onChange={(e) => set({ shiftStart: e.target.value || undefined })}>
+                  <option value="">All recent</option>
+                  {shifts.data?.shifts.map((s) => (
+                    <option key={s.start} value={s.start}>
+                      from {s.label}
+                    </option>
+                  ))}
+                </select>
+              </label>
+              <label className="flex flex-col">
+                Position
+                <select className={field} value={filters.position ?? ''} onChange={(e) => set({ position: e.target.value || undefined })}>
+                  <option value="">All</option>
+                  {settings.positions.map((p) => (
+                    <option key={p.key} value={p.key}>
+                      {p.label}
+                    </option>
+                  ))}
+                </select>
+              </label>
+              <label className="flex flex-col">
+                Category
+                <select className={field} value={filters.category ?? ''} onChange={(e) => set({ category: e.target.value || undefined })}>
+                  <option value="">All</option>
+                  {settings.categories.map((c) => (
+                    <option key={c.key} value={c.key}>
+                      {c.label}
+                    </option>
+                  ))}
+                </select>
+              </label>
+              <label className="flex flex-col">
+                Author
+                <select className={field} value={filters.authorId ?? ''} onChange={(e) => set({ authorId: e.target.value ? Number(e.target.value) : undefined })}>
+                  <option value="">Anyone</option>
+                  {[...new Map((log.data ?? []).map((e) => [e.authorId, e.author])).entries()].map(([id, name]) => (
+                    <option key={id} value={id}>
+                      {name}
+                    </option>
+                  ))}
+                </select>
+              </label>
+            </fieldset>
+            {log.error ? <Notice kind="error">{log.error.message}</Notice> : null}
+            {log.data ? <EntryList entries={log.data} settings={settings} mayAmend={Boolean(me && me.role !== 'trainer')} /> : null}
+          </div>
+          <div className="flex flex-col gap-4">
+            <section aria-label="End-of-shift review" className="rounded-lg border border-line bg-panel p-3 text-sm">
+              <h2 className="font-bold">End-of-shift review</h2>
+              <p>
+                Shift from {shifts.data?.shifts.find((s) => s.start === reviewShift)?.label} ({settings.timeZone}),{' '}
+                {settings.positions.find((p) => p.key === reviewPosition)?.label}.
+              </p>
+              {signed ? (
+                <p className="font-bold text-normal" data-testid="review-signed">
+                  ✔ Reviewed by {signed.by}
+                </p>
+              ) : me?.role === 'shift_lead' && reviewShift ? (
+                <button
+                  type="button"
+                  className="mt-1 rounded-md bg-accent px-3 py-1 font-bold text-on-accent"
+                  onClick={() => review.mutate({ position: reviewPosition, shiftStart: reviewShift })}
+                >
+                  Sign as reviewed
+                </button>
+              ) : (
+                <p className="text-muted">Not yet reviewed. The shift lead signs it.</p>
+              )}
+              {review.error ? <p role="alert" className="text-alarm">⚠ {review.error.message}</p> : null}
+            </section>
+            <ConditionsPanel unitId={unitId} position={activePosition} mayHandle={Boolean(me && ['operator', 'shift_lead', 'admin'].includes(me.role))} />
+          </div>
+        </div>
+      ) : null}
+    </section>
+  );
+}

@@ -1,0 +1,88 @@
+import { useState } from 'react';
+import { RichTextEditor } from '../../../components/ui/rich-text-editor';
+import { Notice } from '../../../components/ui/notice';
+import { ApiError } from '../../../lib/api-client';
+import { useCrews } from '../../overview/api/get-crews';
+import { useIssueOrder } from '../api/orders';
+
+const field = 'rounded-md border border-line bg-field px-2 py-1';
+
+export function IssueOrderForm({ positions }: { positions: { key: string; label: string }[] }) {
+  const issue = useIssueOrder();
+  const crews = useCrews();
+  const [title, setTitle] = useState('');
+  const [body, setBody] = useState('');
+  const [from, setFrom] = useState('');
+  const [to, setTo] = useState('');
+  const [crewIds, setCrewIds] = useState<number[]>([]);
+  const [scopePositions, setScopePositions] = useState<string[]>([]);
+  const [formKey, setFormKey] = useState(0);
+  const fields = issue.error instanceof ApiError ? issue.error.fields : {};
+  const toggle = <T,>(list: T[], item: T) => (list.includes(item) ? list.filter((x) => x !== item) : [...list, item]);
+
+  return (
+    <form
+      key={formKey}
+      aria-label="Issue a standing order"
+      className="flex flex-col gap-3 rounded-lg border border-line bg-panel p-3"
+      onSubmit={(e) => {
+        e.preventDefault();
+        issue.mutate(
+          {
+            title,
+            bodyHtml: body,
+            effectiveFrom: from ? new Date(from).toISOString() : new Date().toISOString(),
+            effectiveTo: to ? new Date(to).toISOString() : null,
+            crewIds,
+            positions: scopePositions,
+          },
+          {
+            onSuccess: () => {
+              setTitle('');
+              setBody('');
+              setFormKey((k) => k + 1);
+            },
+          },
+        );
+      }}
+    >
+      <h2 className="font-bold">Issue a standing order</h2>
+      {issue.error ? <Notice kind="error">{Object.keys(fields).length ? Object.entries(fields).map(([k, v]) => `${k}: ${v}`).join('; ') : issue.error.message}</Notice> : null}
+      {issue.isSuccess ? <Notice kind="success">Issued. Everyone in scope is asked to acknowledge it at their next sign-in.</Notice> : null}
+      <label className="flex flex-col text-sm">
+        Title
+        <input className={field} value={title} onChange={(e) => setTitle(e.target.value)} />
+      </label>
+      <RichTextEditor label="Order text" onChange={setBody} />
+      <div className="flex flex-wrap gap-3 text-sm">
+        <label className="flex flex-col">
+          In force from (empty = now)
+          <input type="datetime-local" className={field} value={from} onChange={(e) => setFrom(e.target.value)} />
+        </label>
+        <label className="flex flex-col">
+          Until (empty = until withdrawn)
+          <input type="datetime-local" className={field} value={to} onChange={(e) => setTo(e.target.value)} />
+        </label>
+      </div>
+      <fieldset className="flex flex-wrap gap-3 text-sm">
+        <legend className="font-bold">Crews (none ticked = all)</legend>
+        {crews.data?.map((c) => (
+          <label key={c.id} className="flex items-center gap-1">
+            <input type="checkbox" checked={crewIds.includes(c.id)} onChange={() => setCrewIds(toggle(crewIds, c.id))} /> Crew {c.name}
+          </label>
+        ))}
+      </fieldset>
+      <fieldset className="flex flex-wrap gap-3 text-sm">
+        <legend className="font-bold">Positions (none ticked = all)</legend>
+        {positions.map((p) => (
+          <label key={p.key} className="flex items-center gap-1">
+            <input type="checkbox" checked={scopePositions.includes(p.key)} onChange={() => setScopePositions(toggle(scopePositions, p.key))} /> {p.label}
+          </label>
+        ))}
+      </fieldset>
+      <button type="submit" className="self-start rounded-md bg-accent px-4 py-1 font-bold text-on-accent" disabled={issue.isPending}>
+        Issue order
+      </button>
+    </form>
+  );
+}

@@ -1,0 +1,24 @@
+import { Notice } from '../../../components/ui/notice';
+import { useAcknowledge, usePendingOrders } from '../api/orders';
+
+/** Shown after sign-in until every standing order addressed to this person is acknowledged. */
+export function PendingOrdersPrompt({ enabled }: { enabled: boolean }) {
+  const pending = usePendingOrders(enabled);
+  const acknowledge = useAcknowledge();
+  if (!pending.data?.length) return null;
+  return (
+    <section role="dialog" aria-label="Standing orders to acknowledge" className="mx-auto mt-4 flex max-w-6xl flex-col gap-3 rounded-lg border-4 border-watch bg-panel p-4">
+      <h2 className="text-lg font-bold">▲ Standing orders for you to read and acknowledge</h2>
+      {acknowledge.error ? <Notice kind="error">{acknowledge.error.message}</Notice> : null}
+      {pending.data.map((order) => (
+        <article key={order.id} className="border-t border-line pt-2">
+          <h3 className="font-bold">{order.title}</h3>
+          <div className="order-body" dangerouslySetInnerHTML={{ __html: order.bodyHtml }} />
+          <button type="button" className="mt-2 rounded-md bg-accent px-3 py-1 font-bold text-on-accent" onClick={() => acknowledge.mutate(order.id)}>
+            I have read this order
+          </button>
+        </article>
+      ))}
+    </section>
+  );
+}

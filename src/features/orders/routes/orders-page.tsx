@@ -1,0 +1,80 @@
+import { useState } from 'react';
+import { format } from 'date-fns';
+import { useQuery } from '@tanstack/react-query';
+import type { StationSettings } from '../../../../shared/schemas/log';
+import { useSelectedUnit } from '../../../components/readings/unit-picker';
+import { Notice } from '../../../components/ui/notice';
+import { api } from '../../../lib/api-client';
+import { useMe } from '../../session/api/get-me';
+import { useOrder, useOrders } from '../api/orders';
+import { IssueOrderForm } from '../components/issue-order-form';
+
+const stamp = (iso: string) => format(new Date(iso), 'yyyy-MM-dd HH:mm');
+
+function WhoHasRead({ id }: { id: number }) {
+  const order = useOrder(id);
+  if (!order.data?.people) return null;
+  return (
+    <ul className="mt-2 grid gap-1 text-sm sm:grid-cols-2" aria-label="Acknowledgements">
+      {order.data.people.map((p) => (
+        <li key={p.id}>{p.acknowledgedAt ? `✔ ${p.name} — read ${stamp(p.acknowledgedAt)}` : `○ ${p.name} — not yet`}</li>
+      ))}
+    </ul>
+  );
+}
+
+export function OrdersPage() {
+  const { data: me } = useMe();
+  const { unit } = useSelectedUnit();
+  const [state, setState] = useState('in_force');
+  const [q, setQ] = useState('');
+  const [open, setOpen] = useState<number | null>(null);
+  const orders = useOrders(state, q);
+  const settings = useQuery({
+    queryKey: ['station-settings', unit?.stationId],
+    queryFn: async () => (await api.get<{ settings: StationSettings }>(`/api/stations/${unit!.stationId}/settings`)).settings,
+    enabled: Boolean(unit),
+  });
+  const mayIssue = me?.role === 'shift_lead' || me?.role === 'admin';
+  return (
+    <section className="flex flex-col gap-4">
+      <h1 className="text-2xl font-bold">Standing orders</h1>
+      {mayIssue && settings.data ? <IssueOrderForm positions={settings.data.positions} /> : null}
+      <div className="flex flex-wrap gap-2 text-sm">
+        <label className="flex flex-col">
+          Show
+          <select className="rounded-md border border-line bg-field px-2 py-1" value={state} onChange={(e) => setState(e.target.value)}>
+            <option value="in_force">In force</option>
+            <option value="archived">Archived (expired)</option>
+            <option value="all">All</option>
+          </select>
+        </label>
+        <label className="flex flex-col">
+          Search
+          <input className="rounded-md border border-line bg-field px-2 py-1" value={q} onChange={(e) => setQ(e.target.value)} />
+        </label>
+      </div>
+      {orders.error ? <Notice kind="error">{orders.error.message}</Notice> : null}
+      {orders.data?.length === 0 ? <Notice kind="info">No standing orders match.</Notice> : null}
+      {orders.data?.map((o) => (
+        <article key={o.id} className="rounded-lg border border-line bg-panel p-3" aria-label={`Order: ${o.title}`}>
+          <header className="flex flex-wrap items-baseline gap-2">
+            <h2 className="font-bold">{o.title}</h2>
+            <span className="text-sm text-muted">
+              {o.inForce ? 'in force' : 'not in force'} · from {stamp(o.effectiveFrom)}
+              {o.effectiveTo ? ` to ${stamp(o.effectiveTo)}` : ''} · issued by {o.issuedBy}
+            </span>
+            <span className="ml-auto text-sm font-bold" data-testid={`acks-${o.id}`}>
+              {o.acknowledged} of {o.inScope} acknowledged
+            </span>
+          </header>
+          <div className="order-body mt-1" dangerouslySetInnerHTML={{ __html: o.bodyHtml }} />
+          <button type="button" className="mt-1 text-sm underline" onClick={() => setOpen(open === o.id ? null : o.id)}>
+            {open === o.id ? 'Hide who has read it' : 'Who has read it'}
+          </button>
+          {open === o.id ? <WhoHasRead id={o.id} /> : null}
+        </article>
+      ))}
+    </section>
+  );
+}
