@@ -1,0 +1,64 @@
+import { expect, test } from '@playwright/test';
+import { signIn } from './support';
+
+test('keyboard-only entries, one late, appear live in a second browser; the lead signs the review', async ({ browser }) => {
+  const writerContext = await browser.newContext();
+  const readerContext = await browser.newContext();
+  const writer = await writerContext.newPage();
+  const reader = await readerContext.newPage();
+
+  await signIn(reader, 'lead.b@fernhollow.example');
+  await reader.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Shift log' }).click();
+  await expect(reader.getByRole('list', { name: 'Log entries' })).toBeVisible();
+
+  await signIn(writer, 'operator.c@fernhollow.example');
+  await writer.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Shift log' }).click();
+  const text = writer.getByLabel('Entry text');
+  await text.focus();
+  await writer.keyboard.type('Started 1-CWP-B after seal replacement; amps steady');
+  await writer.keyboard.press('Enter');
+  await expect(text).toHaveValue('');
+  await expect(writer.getByText('Started 1-CWP-B after seal replacement; amps steady')).toBeVisible();
+
+  // A late entry: the event happened an hour ago.
+  const anHourAgo = new Date(Date.now() - 60 * 60_000);
+  const local = new Date(anHourAgo.getTime() - anHourAgo.getTimezoneOffset() * 60_000).toISOString().slice(0, 16);
+  await writer.getByLabel('Event time (empty = now)').fill(local);
+  await text.focus();
+  await writer.keyboard.type('Hotwell level alarm cleared itself at the time; noted late');
+  await writer.keyboard.press('Enter');
+  await expect(writer.getByText('Saved as a late entry')).toBeVisible();
+
+  // The second browser sees both without reloading.
+  await expect(reader.getByText('Started 1-CWP-B after seal replacement; amps steady')).toBeVisible();
+  const lateEntry = reader.getByRole('listitem').filter({ hasText: 'Hotwell level alarm cleared itself' });
+  await expect(lateEntry).toContainText('late entry');
+
+  // The shift lead signs the end-of-shift review.
+  await reader.getByRole('button', { name: 'Sign as reviewed' }).click();
+  await expect(reader.getByTestId('review-signed')).toContainText('Reviewed by Femi Achterberg');
+
+  await writerContext.close();
+  await readerContext.close();
+});
+
+test('an operator acknowledges a standing order at sign-in, and the lead sees it counted', async ({ page }) => {
+  await signIn(page, 'operator.a@fernhollow.example');
+  const prompt = page.getByRole('dialog', { name: 'Standing orders to acknowledge' });
+  await expect(prompt).toContainText('hourly TTD while cleanliness is below 0.75');
+  await prompt.getByRole('button', { name: 'I have read this order' }).click();
+  await expect(prompt).toHaveCount(0);
+  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Standing orders' }).click();
+  const order = page.getByRole('article', { name: /Order: Unit 1: hourly TTD/ });
+  await order.getByRole('button', { name: 'Who has read it' }).click();
+  await expect(order.getByRole('list', { name: 'Acknowledgements' })).toContainText('✔ Cato Villanueva');
+});
+
+test('a time-limited condition shows its countdown and deadline', async ({ page }) => {
+  await signIn(page, 'trainer@fernhollow.example');
+  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Shift log' }).click();
+  const condition = page.getByRole('article', { name: 'Condition: 1-CWP-B out of service (seal replacement)' });
+  await expect(condition).toContainText('time left');
+  await expect(condition.getByTestId(/countdown-/)).toHaveText(/^\d+ d \d+ h \d\d min$/);
+  await expect(condition).toContainText('Europe/Berlin');
+});
