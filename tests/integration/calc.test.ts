@@ -81,7 +81,7 @@ describe('GET /api/calc/units/:unitId/condenser-design', () => {
     const agent = await signedInAgent(built, user.email);
     const res = await agent.get(`/api/calc/units/${unitId}/condenser-design`).expect(200);
     expect(res.body.design).toMatchObject({ surfaceAreaM2: 17_500, tubeMaterial: 'titanium' });
-    expect(res.body.design.backpressureCorrection).toHaveLength(3);
+    expect(res.body.design.backpressureCorrection).toHaveLength(4);
     expect(res.body.limits.backpressure).toBeDefined();
   });
 });

@@ -2,33 +2,11 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { evaluateReadingSet, type CondenserDesignSi, type ReadingSetSi } from '../../shared/calc/evaluate';
 import { startingLimits } from '../../shared/calc/limits';
+import { handBuiltDesign } from '../fixtures/hand-built-design';
 
 const C = (celsius: number) => celsius + 273.15;
 
-// A data-sheet design built by hand from the steam tables (see condenser.test.ts): at 15 000 kg/s,
-// 22 °C inlet and 560 MW the condenser holds 8 kPa a at cleanliness 0.90, so clean U = 2192.9/0.9.
-const design: CondenserDesignSi = {
-  surfaceAreaM2: 17_500,
-  tubeOdMm: 25.4,
-  tubeGaugeBwg: 22,
-  tubeMaterial: 'titanium',
-  tubeCount: 19_800,
-  passes: 1,
-  designCwFlowKgS: 15_000,
-  designCwInletK: C(22),
-  designBackpressurePa: 8000,
-  designDutyW: 560e6,
-  designCleanliness: 0.9,
-  designCleanUWM2K: 2192.9 / 0.9,
-  backpressureCorrection: [
-    [4000, -1.5],
-    [8000, 0],
-    [12000, 3.5],
-    [16000, 8],
-  ],
-  energyPricePerMwh: 80,
-  currency: 'EUR',
-};
+const design: CondenserDesignSi = handBuiltDesign;
 const rise = 560e6 / (15_000 * 4180);
 const designReading: ReadingSetSi = { pressurePa: 8000, hotwellK: C(41.3), cwInletK: C(22), cwOutletK: C(22) + rise, cwFlowKgS: 15_000 };
 

@@ -3,7 +3,7 @@
 import type { Transaction } from 'sequelize';
 import { checkKeys } from '../../../shared/calc/check-catalog';
 import type { Evaluation } from '../../../shared/calc/evaluate';
-import { Flag } from './model';
+import { Flag, notYetFollowedUp } from './model';
 
 export async function refreshAutomaticFlags(
   unitId: number,
@@ -48,11 +48,7 @@ export async function refreshAutomaticFlags(
           lastSeenAt: takenAt,
           raisedBy: null,
           comment: `${check.label} outside its ${severity} limit`,
-          assignedTo: null,
-          followUp: null,
-          clearedBy: null,
-          clearedAt: null,
-          clearComment: null,
+          ...notYetFollowedUp,
         },
         { transaction },
       );

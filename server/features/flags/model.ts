@@ -26,6 +26,9 @@ export class Flag extends Model<InferAttributes<Flag>, InferCreationAttributes<F
   declare version: CreationOptional<number>;
 }
 
+/** The follow-up and clearing fields of a flag just raised. */
+export const notYetFollowedUp = { assignedTo: null, followUp: null, clearedBy: null, clearedAt: null, clearComment: null } as const;
+
 export function initFlagModel(sequelize: Sequelize) {
   Flag.init(
     {

@@ -6,7 +6,7 @@ import { Conflict, NotFound, ValidationError } from '../../lib/errors';
 import { requireUnit } from '../plant/versions';
 import { ReadingSet } from '../readings/model';
 import { User } from '../users/model';
-import { Flag } from './model';
+import { Flag, notYetFollowedUp } from './model';
 
 const auditView = (f: Flag) => ({ status: f.status, severity: f.severity, assignedTo: f.assignedTo, followUp: f.followUp, clearComment: f.clearComment });
 
@@ -82,11 +82,7 @@ export function makeFlagService(sequelize: Sequelize) {
           lastSeenAt: now,
           raisedBy: actorId,
           comment: input.comment,
-          assignedTo: null,
-          followUp: null,
-          clearedBy: null,
-          clearedAt: null,
-          clearComment: null,
+          ...notYetFollowedUp,
         },
         { transaction },
       );

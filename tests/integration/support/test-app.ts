@@ -8,7 +8,7 @@ import { hashPassword } from '../../../server/lib/auth';
 import { User } from '../../../server/features/users/model';
 import { Crew, LimitSetVersion, PlantUnit, Station, UnitDesignVersion } from '../../../server/features/plant/model';
 import { startingLimits, type LimitSet } from '../../../shared/calc/limits';
-import type { UnitDesign } from '../../../shared/schemas/plant';
+import { handBuiltDesign } from '../../fixtures/hand-built-design';
 import type { Role } from '../../../shared/roles';
 
 const url = process.env.TEST_DATABASE_URL;
@@ -85,31 +85,7 @@ export async function signedInAgent(built: BuiltApp, email: string, password = P
   return agent;
 }
 
-/**
- * A data-sheet design built by hand from the steam tables (see tests/unit/condenser.test.ts): at
- * 15 000 kg/s, 22 °C inlet and 560 MW it holds 8 kPa a at cleanliness 0.90.
- */
-export const handBuiltDesign: UnitDesign = {
-  surfaceAreaM2: 17_500,
-  tubeOdMm: 25.4,
-  tubeGaugeBwg: 22,
-  tubeMaterial: 'titanium',
-  tubeCount: 19_800,
-  passes: 1,
-  designCwFlowKgS: 15_000,
-  designCwInletK: 295.15,
-  designBackpressurePa: 8000,
-  designDutyW: 560e6,
-  designCleanliness: 0.9,
-  designCleanUWM2K: 2192.9 / 0.9,
-  backpressureCorrection: [
-    [4000, -1.5],
-    [8000, 0],
-    [12000, 3.5],
-  ],
-  energyPricePerMwh: 80,
-  currency: 'EUR',
-};
+export { handBuiltDesign };
 
 /** A unit with design data and the starting limits in force since 2000. */
 export async function makeUnit(options: { limits?: LimitSet } = {}) {

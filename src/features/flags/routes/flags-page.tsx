@@ -2,12 +2,18 @@ import { useState } from 'react';
 import { checkCatalog, checkKeys } from '../../../../shared/calc/check-catalog';
 import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-picker';
 import { CautionNote, Notice } from '../../../components/ui/notice';
+import { FilterSelect } from '../../../components/ui/filter-select';
 import { useMe } from '../../session/api/get-me';
 import { useFlags, type FlagFilters } from '../api/flags';
 import { FlagCard } from '../components/flag-card';
 import { RaiseFlagForm } from '../components/raise-flag-form';
 
 const selectClass = 'rounded-md border border-line bg-field px-2 py-1';
+const severityOptions = [
+  { value: 'watch', label: 'Watch' },
+  { value: 'alarm', label: 'Alarm' },
+];
+const parameterOptions = checkKeys.map((k) => ({ value: k, label: checkCatalog[k].label }));
 
 export function FlagsPage() {
   const { data: me } = useMe();
@@ -29,33 +35,18 @@ export function FlagsPage() {
       {mayLead && unitId ? <RaiseFlagForm unitId={unitId} /> : null}
       <fieldset className="flex flex-wrap gap-3 rounded-lg border border-line bg-panel p-3 text-sm">
         <legend className="font-bold">Show</legend>
-        <label className="flex flex-col">
-          Status
-          <select className={selectClass} value={filters.status} onChange={(e) => set({ status: e.target.value as FlagFilters['status'] })}>
-            <option value="open">Open</option>
-            <option value="cleared">Cleared</option>
-            <option value="all">All</option>
-          </select>
-        </label>
-        <label className="flex flex-col">
-          Severity
-          <select className={selectClass} value={filters.severity ?? ''} onChange={(e) => set({ severity: e.target.value || undefined })}>
-            <option value="">Any</option>
-            <option value="watch">Watch</option>
-            <option value="alarm">Alarm</option>
-          </select>
-        </label>
-        <label className="flex flex-col">
-          Parameter
-          <select className={selectClass} value={filters.parameter ?? ''} onChange={(e) => set({ parameter: e.target.value || undefined })}>
-            <option value="">Any</option>
-            {checkKeys.map((k) => (
-              <option key={k} value={k}>
-                {checkCatalog[k].label}
-              </option>
-            ))}
-          </select>
-        </label>
+        <FilterSelect
+          label="Status"
+          value={filters.status}
+          options={[
+            { value: 'open', label: 'Open' },
+            { value: 'cleared', label: 'Cleared' },
+            { value: 'all', label: 'All' },
+          ]}
+          onChange={(v) => set({ status: (v ?? 'open') as FlagFilters['status'] })}
+        />
+        <FilterSelect label="Severity" anyLabel="Any" value={filters.severity} options={severityOptions} onChange={(v) => set({ severity: v })} />
+        <FilterSelect label="Parameter" anyLabel="Any" value={filters.parameter} options={parameterOptions} onChange={(v) => set({ parameter: v })} />
         <label className="flex flex-col">
           Raised from
           <input type="date" className={selectClass} onChange={(e) => set({ from: e.target.value ? new Date(e.target.value).toISOString() : undefined })} />

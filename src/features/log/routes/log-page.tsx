@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-picker';
 import { Notice } from '../../../components/ui/notice';
+import { FilterSelect, keyedOptions } from '../../../components/ui/filter-select';
 import { useWatchUnit } from '../../../app/use-live-updates';
 import { useMe } from '../../session/api/get-me';
 import { useLog, useShifts, useSignReview, type LogFilters } from '../api/log';
@@ -60,50 +61,22 @@ export function LogPage() {
             ) : null}
             <fieldset className="flex flex-wrap gap-2 rounded-lg border border-line bg-panel p-2 text-sm">
               <legend className="font-bold">Show</legend>
-              <label className="flex flex-col">
-                Shift
-                <select className={field} value={filters.shiftStart ?? ''} onChange={(e) => set({ shiftStart: e.target.value || undefined })}>
-                  <option value="">All recent</option>
-                  {shifts.data?.shifts.map((s) => (
-                    <option key={s.start} value={s.start}>
-                      from {s.label}
-                    </option>
-                  ))}
-                </select>
-              </label>
-              <label className="flex flex-col">
-                Position
-                <select className={field} value={filters.position ?? ''} onChange={(e) => set({ position: e.target.value || undefined })}>
-                  <option value="">All</option>
-                  {settings.positions.map((p) => (
-                    <option key={p.key} value={p.key}>
-                      {p.label}
-                    </option>
-                  ))}
-                </select>
-              </label>
-              <label className="flex flex-col">
-                Category
-                <select className={field} value={filters.category ?? ''} onChange={(e) => set({ category: e.target.value || undefined })}>
-                  <option value="">All</option>
-                  {settings.categories.map((c) => (
-                    <option key={c.key} value={c.key}>
-                      {c.label}
-                    </option>
-                  ))}
-                </select>
-              </label>
-              <label className="flex flex-col">
-                Author
-                <select className={field} value={filters.authorId ?? ''} onChange={(e) => set({ authorId: e.target.value ? Number(e.target.value) : undefined })}>
-                  <option value="">Anyone</option>
-                  {[...new Map((log.data ?? []).map((e) => [e.authorId, e.author])).entries()].map(([id, name]) => (
-                    <option key={id} value={id}>
-                      {name}
-                    </option>
-                  ))}
-                </select>
-              </label>
+              <FilterSelect
+                label="Shift"
+                anyLabel="All recent"
+                value={filters.shiftStart}
+                options={(shifts.data?.shifts ?? []).map((s) => ({ value: s.start, label: `from ${s.label}` }))}
+                onChange={(v) => set({ shiftStart: v })}
+              />
+              <FilterSelect label="Position" anyLabel="All" value={filters.position} options={keyedOptions(settings.positions)} onChange={(v) => set({ position: v })} />
+              <FilterSelect label="Category" anyLabel="All" value={filters.category} options={keyedOptions(settings.categories)} onChange={(v) => set({ category: v })} />
+              <FilterSelect
+                label="Author"
+                anyLabel="Anyone"
+                value={filters.authorId}
+                options={[...new Map((log.data ?? []).map((e) => [e.authorId, e.author])).entries()].map(([id, name]) => ({ value: id, label: name }))}
+                onChange={(v) => set({ authorId: v ? Number(v) : undefined })}
+              />
             </fieldset>
             {log.error ? <Notice kind="error">{log.error.message}</Notice> : null}
             {log.data ? <EntryList entries={log.data} settings={settings} mayAmend={Boolean(me && me.role !== 'trainer')} /> : null}
