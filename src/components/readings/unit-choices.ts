@@ -6,27 +6,29 @@ export type UnitChoices = { pressureUnit: PressureUnit; temperatureUnit: Tempera
 const KEY = 'hotwell.unit-choices';
 const defaults: UnitChoices = { pressureUnit: 'kPa_a', temperatureUnit: 'degC', flowUnit: 'm3_h', barometerUnit: 'kPa_a' };
 
-/** Each person's unit choices are remembered on their device. */
-export function loadUnitChoices(): UnitChoices {
+const keyFor = (userId: number | undefined) => (userId ? `${KEY}.${userId}` : KEY);
+
+/** Each person's unit choices are remembered on the device they use, per person. */
+export function loadUnitChoices(userId?: number): UnitChoices {
   try {
-    return { ...defaults, ...(JSON.parse(localStorage.getItem(KEY) ?? '{}') as Partial<UnitChoices>) };
+    return { ...defaults, ...(JSON.parse(localStorage.getItem(keyFor(userId)) ?? '{}') as Partial<UnitChoices>) };
   } catch {
     return defaults;
   }
 }
 
-export function saveUnitChoices(choices: UnitChoices) {
-  localStorage.setItem(KEY, JSON.stringify(choices));
+export function saveUnitChoices(choices: UnitChoices, userId?: number) {
+  localStorage.setItem(keyFor(userId), JSON.stringify(choices));
 }
 
 /** Saves the form's unit choices whenever one changes. */
-export function useRememberUnitChoices(values: ReadingFormValues) {
+export function useRememberUnitChoices(values: ReadingFormValues, userId: number | undefined) {
   useEffect(() => {
     saveUnitChoices({
       pressureUnit: values.pressureUnit,
       temperatureUnit: values.temperatureUnit,
       flowUnit: values.flowUnit,
       barometerUnit: values.barometerUnit,
-    });
-  }, [values.pressureUnit, values.temperatureUnit, values.flowUnit, values.barometerUnit]);
+    }, userId);
+  }, [values.pressureUnit, values.temperatureUnit, values.flowUnit, values.barometerUnit, userId]);
 }

@@ -7,13 +7,15 @@ import { emptyReadingForm, type ReadingFormValues } from '../../../components/re
 import { loadUnitChoices, useRememberUnitChoices } from '../../../components/readings/unit-choices';
 import { useLiveEvaluation } from '../../../components/readings/use-live-evaluation';
 import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-picker';
+import { useMe } from '../../session/api/get-me';
 
 export function CondenserCheckPage() {
+  const { data: me } = useMe();
   const { unitId } = useSelectedUnit();
   const design = useCondenserDesign(unitId);
-  const form = useForm<ReadingFormValues>({ defaultValues: emptyReadingForm(loadUnitChoices()), mode: 'onChange' });
+  const form = useForm<ReadingFormValues>({ defaultValues: emptyReadingForm(loadUnitChoices(me?.id)), mode: 'onChange' });
   const values = useWatch({ control: form.control }) as ReadingFormValues;
-  useRememberUnitChoices(values);
+  useRememberUnitChoices(values, me?.id);
   const live = useLiveEvaluation(unitId, values, design.data);
 
   return (

@@ -35,9 +35,9 @@ export function RoundsPage() {
   const design = useCondenserDesign(unitId);
   const readings = useReadings(unitId);
   const record = useRecordReading();
-  const form = useForm<ReadingFormValues>({ defaultValues: emptyReadingForm(loadUnitChoices()) });
+  const form = useForm<ReadingFormValues>({ defaultValues: emptyReadingForm(loadUnitChoices(me?.id)) });
   const values = useWatch({ control: form.control }) as ReadingFormValues;
-  useRememberUnitChoices(values);
+  useRememberUnitChoices(values, me?.id);
   const live = useLiveEvaluation(unitId, values, design.data);
   const [takenAt, setTakenAt] = useState('');
   const [serverErrors, setServerErrors] = useState<FormErrors>({});
@@ -56,7 +56,7 @@ export function RoundsPage() {
       { unitId, reading: { ...reading, ...(takenAt ? { takenAt: new Date(takenAt).toISOString() } : {}) } },
       {
         onSuccess: () => {
-          form.reset(emptyReadingForm(loadUnitChoices()));
+          form.reset(emptyReadingForm(loadUnitChoices(me?.id)));
           setTakenAt('');
         },
         onError: (error) => {
