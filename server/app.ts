@@ -30,6 +30,8 @@ import { makeStandingOrderService } from './features/standing-orders/service';
 import { standingOrderRoutes } from './features/standing-orders/routes';
 import { makeConditionService } from './features/conditions/service';
 import { conditionRoutes } from './features/conditions/routes';
+import { makeHandoverService } from './features/handovers/service';
+import { handoverRoutes } from './features/handovers/routes';
 
 const SequelizeStore = ConnectSessionSequelize(session.Store);
 
@@ -109,6 +111,7 @@ export function createApp(sequelize: Sequelize, config: Pick<AppConfig, 'session
   app.use('/api', logRoutes(sequelize, log));
   app.use('/api', standingOrderRoutes(makeStandingOrderService(sequelize, realtime)));
   app.use('/api', conditionRoutes(makeConditionService(sequelize, realtime, log)));
+  app.use('/api', handoverRoutes(sequelize, makeHandoverService(sequelize, realtime)));
   app.use('/api/calc', calcRoutes());
   app.use('/api', (_req, _res, next) => next(new NotFound('That API route')));
 

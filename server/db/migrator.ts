@@ -4,6 +4,7 @@ import * as foundation from './migrations/0001-foundation';
 import * as condenserDesign from './migrations/0002-condenser-design';
 import * as roundsAndFlags from './migrations/0003-rounds-and-flags';
 import * as narrativeLog from './migrations/0004-narrative-log';
+import * as handovers from './migrations/0005-handovers';
 
 // Listed explicitly so the order is obvious and nothing depends on globbing at run time.
 const migrations = [
@@ -11,6 +12,7 @@ const migrations = [
   { name: '0002-condenser-design', ...condenserDesign },
   { name: '0003-rounds-and-flags', ...roundsAndFlags },
   { name: '0004-narrative-log', ...narrativeLog },
+  { name: '0005-handovers', ...handovers },
 ];
 
 export function createMigrator(sequelize: Sequelize) {

@@ -10,6 +10,8 @@ import { initStationModels } from '../features/stations/model';
 import { initLogModels } from '../features/log/model';
 import { initStandingOrderModels } from '../features/standing-orders/model';
 import { initConditionModel } from '../features/conditions/model';
+import { initHandoverModels } from '../features/handovers/model';
+import { initShiftModels } from '../features/shifts/model';
 
 /** Registers every model on the instance. Schema comes from migrations, never from sync(). */
 export function initModels(sequelize: Sequelize) {
@@ -24,4 +26,6 @@ export function initModels(sequelize: Sequelize) {
   initLogModels(sequelize);
   initStandingOrderModels(sequelize);
   initConditionModel(sequelize);
+  initHandoverModels(sequelize);
+  initShiftModels(sequelize);
 }

@@ -6,15 +6,18 @@ import { StationSettingsRow } from '../../features/stations/model';
 import { LogEntry } from '../../features/log/model';
 import { StandingOrder } from '../../features/standing-orders/model';
 import { Condition } from '../../features/conditions/model';
-import { Equipment } from '../../features/plant/model';
+import { Crew, Equipment } from '../../features/plant/model';
 import { User } from '../../features/users/model';
 
 export async function seedDemoLog(sequelize: Sequelize, stationId: number, unitId: number): Promise<number> {
   let created = 0;
   await sequelize.transaction(async (transaction) => {
+    // Crews A, B, C, D take the shifts in turn, crew A from the shift in progress at first start.
+    const crews = await Crew.findAll({ where: { stationId }, order: [['name', 'ASC']], transaction });
+    const anchor = shiftStartFor(new Date(), defaultStationSettings.timeZone, defaultStationSettings.shiftChangeTimes);
     const [, madeSettings] = await StationSettingsRow.findOrCreate({
       where: { stationId },
-      defaults: { stationId, ...defaultStationSettings, updatedAt: new Date() },
+      defaults: { stationId, ...defaultStationSettings, crewRotation: { anchorShiftStart: anchor.toISOString(), crewIds: crews.map((c) => c.id) }, updatedAt: new Date() },
       transaction,
     });
     created += Number(madeSettings);

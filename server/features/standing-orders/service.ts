@@ -1,5 +1,5 @@
 // Standing orders: a shift lead issues, everyone in scope acknowledges having read it.
-import sanitizeHtml from 'sanitize-html';
+import { richTextToPlain, sanitizeRichText } from '../../lib/rich-text';
 import { Op, type Sequelize } from 'sequelize';
 import { recordAudit } from '../../lib/audit';
 import { Conflict, Forbidden, NotFound, ValidationError } from '../../lib/errors';
@@ -7,14 +7,6 @@ import type { RealtimeHub } from '../../lib/realtime';
 import { Crew } from '../plant/model';
 import { User } from '../users/model';
 import { StandingOrder, StandingOrderAck } from './model';
-
-// What the editor produces (StarterKit, links, task lists); everything else is dropped.
-const allowed: sanitizeHtml.IOptions = {
-  allowedTags: ['p', 'br', 'strong', 'em', 's', 'u', 'code', 'pre', 'blockquote', 'h1', 'h2', 'h3', 'ul', 'ol', 'li', 'a', 'hr', 'label', 'input', 'div', 'span'],
-  allowedAttributes: { a: ['href', 'rel', 'target'], ul: ['data-type'], li: ['data-type', 'data-checked'], input: ['type', 'checked', 'disabled'] },
-  allowedSchemes: ['http', 'https', 'mailto'],
-  transformTags: { a: sanitizeHtml.simpleTransform('a', { rel: 'noopener noreferrer', target: '_blank' }) },
-};
 
 const inScopeRoles = ['trainee', 'operator', 'shift_lead'] as const;
 
@@ -40,8 +32,8 @@ function inScope(order: StandingOrder, user: { role: string; crewId: number | nu
 
 export function makeStandingOrderService(sequelize: Sequelize, realtime: RealtimeHub) {
   async function issue(actorId: number, stationId: number, input: { title: string; bodyHtml: string; effectiveFrom: string; effectiveTo?: string | null; crewIds: number[]; positions: string[] }) {
-    const bodyHtml = sanitizeHtml(input.bodyHtml, allowed);
-    const bodyText = sanitizeHtml(input.bodyHtml, { allowedTags: [], allowedAttributes: {} }).replace(/\s+/g, ' ').trim();
+    const bodyHtml = sanitizeRichText(input.bodyHtml);
+    const bodyText = richTextToPlain(input.bodyHtml);
     if (!bodyText) throw new ValidationError({ bodyHtml: 'Write the order' });
     if (input.crewIds.length) {
       const crews = await Crew.count({ where: { id: input.crewIds, stationId } });

@@ -1,4 +1,4 @@
-import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 import type { StationSettings } from '../../../shared/schemas/log';
 
 export class StationSettingsRow extends Model<InferAttributes<StationSettingsRow>, InferCreationAttributes<StationSettingsRow>> {
@@ -9,6 +9,7 @@ export class StationSettingsRow extends Model<InferAttributes<StationSettingsRow
   declare positions: StationSettings['positions'];
   declare categories: StationSettings['categories'];
   declare templates: StationSettings['templates'];
+  declare crewRotation: CreationOptional<{ anchorShiftStart: string; crewIds: number[] } | null>;
   declare updatedAt: Date;
 }
 
@@ -22,6 +23,7 @@ export function initStationModels(sequelize: Sequelize) {
       positions: DataTypes.JSON,
       categories: DataTypes.JSON,
       templates: DataTypes.JSON,
+      crewRotation: DataTypes.JSON,
       updatedAt: DataTypes.DATE(3),
     },
     { sequelize, tableName: 'station_settings', timestamps: false },

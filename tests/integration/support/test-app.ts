@@ -97,3 +97,16 @@ export async function makeUnit(options: { limits?: LimitSet } = {}) {
   await LimitSetVersion.create({ unitId: unit.id, effectiveFrom: since, limits: options.limits ?? startingLimits, note: 'test limits', createdBy: null });
   return unit;
 }
+
+/** A station of its own (default settings) with one unit and `crews` crews, for tests that set rotations. */
+export async function makeStation(crews = 2) {
+  counter += 1;
+  const station = await Station.create({ code: `S${Date.now() % 100_000}${counter}`.slice(0, 16), name: `Test station ${counter}` });
+  const unit = await PlantUnit.create({ stationId: station.id, code: 'U1', name: `Unit of station ${counter}` });
+  const since = new Date('2000-01-01T00:00:00Z');
+  await UnitDesignVersion.create({ unitId: unit.id, effectiveFrom: since, data: handBuiltDesign, note: 'test design', createdBy: null });
+  await LimitSetVersion.create({ unitId: unit.id, effectiveFrom: since, limits: startingLimits, note: 'test limits', createdBy: null });
+  const crewRows = [];
+  for (let i = 0; i < crews; i++) crewRows.push(await Crew.create({ stationId: station.id, name: String.fromCharCode(65 + i) }));
+  return { station, unit, crews: crewRows };
+}

@@ -1,0 +1,239 @@
+// Shift handover: the outgoing crew writes (notes and items) and submits; the incoming crew
+// acknowledges each item or queries it; the incoming shift lead accepts, and that moment is the
+// recorded turnover. After submit nothing is edited: corrections are amendments.
+import type { Sequelize } from 'sequelize';
+import { recordAudit } from '../../lib/audit';
+import { sanitizeRichText } from '../../lib/rich-text';
+import { Conflict, Forbidden, HttpError, NotFound, ValidationError } from '../../lib/errors';
+import type { RealtimeHub } from '../../lib/realtime';
+import { PlantUnit } from '../plant/model';
+import { shiftChangeAt } from '../shifts/crews';
+import { User } from '../users/model';
+import { syncAutomaticItems } from './auto-items';
+import { Handover, HandoverAck, HandoverAmendment, HandoverItem, HandoverQuery } from './model';
+
+type Actor = Express.User;
+const crewRoles = ['trainee', 'operator', 'shift_lead'];
+
+const isOutgoing = (actor: Actor, h: Handover) => h.outgoingCrewId !== null && actor.crewId === h.outgoingCrewId && crewRoles.includes(actor.role);
+const isIncoming = (actor: Actor, h: Handover) => h.incomingCrewId !== null && actor.crewId === h.incomingCrewId && crewRoles.includes(actor.role);
+
+function requireWriter(actor: Actor, h: Handover) {
+  if (!isOutgoing(actor, h) || actor.role === 'trainee') throw new Forbidden('Only the outgoing crew’s operators and shift lead write this handover');
+  if (h.status !== 'draft') throw new Conflict('This handover is submitted: add an amendment instead of editing it');
+}
+
+async function handoverOfItem(itemId: number) {
+  const item = await HandoverItem.findByPk(itemId);
+  if (!item) throw new NotFound('That handover item');
+  const handover = await Handover.findByPk(item.handoverId);
+  return { item, handover: handover! };
+}
+
+export function makeHandoverService(sequelize: Sequelize, realtime: RealtimeHub) {
+  const changed = (h: Handover) => realtime.toUnit(h.unitId, { entity: 'handover', id: h.id });
+
+  /** The handover of the shift in progress; created as a draft when an outgoing writer opens it. */
+  async function current(actor: Actor, unitId: number): Promise<Handover | null> {
+    const unit = await PlantUnit.findByPk(unitId);
+    if (!unit) throw new NotFound('That unit');
+    const change = await shiftChangeAt(unit.stationId);
+    const existing = await Handover.findOne({ where: { unitId, shiftStart: change.shiftStart } });
+    if (existing) {
+      if (existing.status === 'draft') await sequelize.transaction((t) => syncAutomaticItems(existing, actor.id, t));
+      return existing;
+    }
+    const mayStart = change.outgoingCrewId !== null && actor.crewId === change.outgoingCrewId && ['operator', 'shift_lead'].includes(actor.role);
+    if (!mayStart) return null;
+    const created = await sequelize.transaction(async (transaction) => {
+      const h = await Handover.create(
+        {
+          unitId,
+          shiftStart: change.shiftStart,
+          handoverAt: change.handoverAt,
+          outgoingCrewId: change.outgoingCrewId,
+          incomingCrewId: change.incomingCrewId,
+          notesHtml: '',
+          status: 'draft',
+          createdBy: actor.id,
+          createdAt: new Date(),
+          submittedBy: null,
+          submittedAt: null,
+          acceptedBy: null,
+          acceptedAt: null,
+        },
+        { transaction },
+      );
+      await syncAutomaticItems(h, actor.id, transaction);
+      return h;
+    });
+    changed(created);
+    return created;
+  }
+
+  /** Saves the draft notes under a version check; a stale save gets 409 with the stored text. */
+  async function saveNotes(actor: Actor, id: number, input: { html: string; version: number }) {
+    const h = await Handover.findByPk(id);
+    if (!h) throw new NotFound('That handover');
+    requireWriter(actor, h);
+    const [updated] = await Handover.update({ notesHtml: sanitizeRichText(input.html), notesVersion: input.version + 1 }, { where: { id, notesVersion: input.version, status: 'draft' } });
+    if (!updated) {
+      const stored = await Handover.findByPk(id);
+      throw new HttpError(409, 'NOTES_CONFLICT', 'Someone else saved these notes first. Your text is kept below theirs; merge the two and save again.', {
+        storedVersion: String(stored!.notesVersion),
+      });
+    }
+    changed(h);
+    return { version: input.version + 1 };
+  }
+
+  async function addItem(actor: Actor, id: number, input: { kind: string; title: string; detail?: string | null; reference?: string | null; priority: 'low' | 'normal' | 'high' }) {
+    const h = await Handover.findByPk(id);
+    if (!h) throw new NotFound('That handover');
+    requireWriter(actor, h);
+    const item = await HandoverItem.create({
+      handoverId: id,
+      kind: input.kind as HandoverItem['kind'],
+      title: input.title,
+      detail: input.detail ?? null,
+      reference: input.reference ?? null,
+      priority: input.priority,
+      sourceId: null,
+      createdBy: actor.id,
+      createdAt: new Date(),
+    });
+    changed(h);
+    return item;
+  }
+
+  async function submit(actor: Actor, id: number) {
+    const h = await Handover.findByPk(id);
+    if (!h) throw new NotFound('That handover');
+    requireWriter(actor, h);
+    await sequelize.transaction(async (transaction) => {
+      await syncAutomaticItems(h, actor.id, transaction);
+      const [updated] = await Handover.update({ status: 'submitted', submittedBy: actor.id, submittedAt: new Date() }, { where: { id, status: 'draft' }, transaction });
+      if (!updated) throw new Conflict('This handover was submitted already');
+      await recordAudit({ actorId: actor.id, action: 'handover.submit', entity: 'handover', entityId: id }, transaction);
+    });
+    changed(h);
+  }
+
+  async function amend(actor: Actor, id: number, input: { itemId?: number | null; reason: string; text: string }) {
+    const h = await Handover.findByPk(id);
+    if (!h) throw new NotFound('That handover');
+    if (h.status === 'draft') throw new Conflict('A draft is edited, not amended');
+    if (!isOutgoing(actor, h) || actor.role === 'trainee') throw new Forbidden('Only the outgoing crew amends its handover');
+    if (input.itemId && !(await HandoverItem.findOne({ where: { id: input.itemId, handoverId: id } }))) throw new ValidationError({ itemId: 'Not an item of this handover' });
+    const amendment = await HandoverAmendment.create({ handoverId: id, itemId: input.itemId ?? null, authorId: actor.id, amendedAt: new Date(), reason: input.reason, text: input.text });
+    changed(h);
+    return amendment;
+  }
+
+  async function acknowledge(actor: Actor, itemId: number) {
+    const { handover } = await handoverOfItem(itemId);
+    if (!isIncoming(actor, handover)) throw new Forbidden('Only the incoming crew acknowledges handover items');
+    if (handover.status !== 'submitted') throw new Conflict(handover.status === 'draft' ? 'The handover is not submitted yet' : 'The handover is already accepted');
+    if (await HandoverAck.findOne({ where: { itemId, userId: actor.id } })) throw new Conflict('You have acknowledged this item already');
+    await HandoverAck.create({ itemId, userId: actor.id, acknowledgedAt: new Date() });
+    changed(handover);
+  }
+
+  async function ask(actor: Actor, itemId: number, question: string) {
+    const { handover } = await handoverOfItem(itemId);
+    if (!isIncoming(actor, handover)) throw new Forbidden('Only the incoming crew queries handover items');
+    if (handover.status !== 'submitted') throw new Conflict('Questions are asked on a submitted handover');
+    const query = await HandoverQuery.create({ itemId, askedBy: actor.id, askedAt: new Date(), question, answeredBy: null, answeredAt: null, answer: null });
+    changed(handover);
+    return query;
+  }
+
+  async function answer(actor: Actor, queryId: number, text: string) {
+    const query = await HandoverQuery.findByPk(queryId);
+    if (!query) throw new NotFound('That question');
+    const { handover } = await handoverOfItem(query.itemId);
+    if (!isOutgoing(actor, handover)) throw new Forbidden('The outgoing crew answers questions on its handover');
+    if (query.answeredAt) throw new Conflict('This question is answered already');
+    await query.update({ answer: text, answeredBy: actor.id, answeredAt: new Date() });
+    changed(handover);
+  }
+
+  /** Turnover: the incoming shift lead accepts when every item is acknowledged by the whole incoming crew and no question is open. */
+  async function accept(actor: Actor, id: number) {
+    const h = await Handover.findByPk(id);
+    if (!h) throw new NotFound('That handover');
+    if (!isIncoming(actor, h) || actor.role !== 'shift_lead') throw new Forbidden('Only the incoming shift lead accepts the handover');
+    if (h.status !== 'submitted') throw new Conflict(h.status === 'draft' ? 'The handover is not submitted yet' : 'The handover is already accepted');
+    const view = await viewHandover(id);
+    if (view.waiting.length) {
+      throw new HttpError(409, 'NOT_READY', `Not every item is acknowledged by the incoming crew or some questions are open (${view.waiting.join('; ')})`);
+    }
+    await sequelize.transaction(async (transaction) => {
+      const [updated] = await Handover.update({ status: 'accepted', acceptedBy: actor.id, acceptedAt: new Date() }, { where: { id, status: 'submitted' }, transaction });
+      if (!updated) throw new Conflict('The handover changed meanwhile; reload');
+      await recordAudit({ actorId: actor.id, action: 'handover.accept', entity: 'handover', entityId: id }, transaction);
+    });
+    changed(h);
+  }
+
+  return { current, saveNotes, addItem, submit, amend, acknowledge, ask, answer, accept };
+}
+export type HandoverService = ReturnType<typeof makeHandoverService>;
+
+/** The board: handover, items with who acknowledged them, questions, amendments and what still waits. */
+export async function viewHandover(id: number) {
+  const h = await Handover.findByPk(id);
+  if (!h) throw new NotFound('That handover');
+  const items = await HandoverItem.findAll({ where: { handoverId: id }, order: [['id', 'ASC']] });
+  const itemIds = items.map((i) => i.id);
+  const [acks, queries, amendments, incomingCrew] = await Promise.all([
+    itemIds.length ? HandoverAck.findAll({ where: { itemId: itemIds } }) : [],
+    itemIds.length ? HandoverQuery.findAll({ where: { itemId: itemIds }, order: [['id', 'ASC']] }) : [],
+    HandoverAmendment.findAll({ where: { handoverId: id }, order: [['id', 'ASC']] }),
+    h.incomingCrewId ? User.findAll({ where: { crewId: h.incomingCrewId, active: true, role: crewRoles }, attributes: ['id', 'name', 'role'] }) : [],
+  ]);
+  const ids = new Set<number>([h.createdBy, ...[h.submittedBy, h.acceptedBy].filter((x): x is number => x !== null), ...acks.map((a) => a.userId), ...queries.flatMap((q) => [q.askedBy, ...(q.answeredBy ? [q.answeredBy] : [])]), ...amendments.map((a) => a.authorId)]);
+  const names = new Map((await User.findAll({ where: { id: [...ids] }, attributes: ['id', 'name'] })).map((u) => [u.id, u.name]));
+  const name = (uid: number | null) => (uid ? (names.get(uid) ?? `#${uid}`) : null);
+  const waiting: string[] = [];
+  const shownItems = items.map((item) => {
+    const itemAcks = acks.filter((a) => a.itemId === item.id);
+    const missing = incomingCrew.filter((p) => !itemAcks.some((a) => a.userId === p.id)).map((p) => p.name);
+    const itemQueries = queries.filter((q) => q.itemId === item.id);
+    if (missing.length) waiting.push(`“${item.title.slice(0, 40)}” awaits ${missing.join(', ')}`);
+    if (itemQueries.some((q) => !q.answeredAt)) waiting.push(`“${item.title.slice(0, 40)}” has an open question`);
+    return {
+      id: item.id,
+      kind: item.kind,
+      title: item.title,
+      detail: item.detail,
+      reference: item.reference,
+      priority: item.priority,
+      sourceId: item.sourceId,
+      acknowledgedBy: itemAcks.map((a) => ({ userId: a.userId, name: name(a.userId), at: a.acknowledgedAt.toISOString() })),
+      awaiting: missing,
+      queries: itemQueries.map((q) => ({ id: q.id, question: q.question, askedBy: name(q.askedBy), askedAt: q.askedAt.toISOString(), answer: q.answer, answeredBy: name(q.answeredBy), answeredAt: q.answeredAt?.toISOString() ?? null })),
+    };
+  });
+  return {
+    handover: {
+      id: h.id,
+      unitId: h.unitId,
+      shiftStart: h.shiftStart.toISOString(),
+      handoverAt: h.handoverAt.toISOString(),
+      outgoingCrewId: h.outgoingCrewId,
+      incomingCrewId: h.incomingCrewId,
+      notesHtml: h.notesHtml,
+      notesVersion: h.notesVersion,
+      status: h.status,
+      submittedBy: name(h.submittedBy),
+      submittedAt: h.submittedAt?.toISOString() ?? null,
+      acceptedBy: name(h.acceptedBy),
+      acceptedAt: h.acceptedAt?.toISOString() ?? null,
+    },
+    items: shownItems,
+    amendments: amendments.map((a) => ({ id: a.id, itemId: a.itemId, author: name(a.authorId), at: a.amendedAt.toISOString(), reason: a.reason, text: a.text })),
+    incomingCrew: incomingCrew.map((p) => ({ id: p.id, name: p.name, role: p.role })),
+    waiting,
+  };
+}

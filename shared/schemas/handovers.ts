@@ -1,0 +1,35 @@
+import { z } from 'zod';
+
+export const handoverItemKinds = ['equipment', 'abnormal_reading', 'condition', 'log_entry', 'standing_order', 'work_in_progress', 'chemistry', 'follow_up'] as const;
+
+export const saveNotesSchema = z.object({
+  html: z.string().max(200_000, 'The notes are too long'),
+  version: z.number().int().nonnegative(),
+});
+
+export const newHandoverItemSchema = z.object({
+  kind: z.enum(['equipment', 'work_in_progress', 'chemistry', 'follow_up'], { message: 'Choose what kind of item this is' }),
+  title: z.string().trim().min(3, 'Say what it is (at least 3 characters)').max(300),
+  detail: z.string().trim().max(4000).nullable().optional(),
+  reference: z.string().trim().max(80).nullable().optional(),
+  priority: z.enum(['low', 'normal', 'high']).default('normal'),
+});
+
+export const handoverAmendmentSchema = z.object({
+  itemId: z.number().int().positive().nullable().optional(),
+  reason: z.string().trim().min(5, 'Say why (at least 5 characters)').max(1000),
+  text: z.string().trim().min(1, 'Write the amendment').max(4000),
+});
+
+export const questionSchema = z.object({ question: z.string().trim().min(3, 'Ask the question').max(2000) });
+export const answerSchema = z.object({ answer: z.string().trim().min(1, 'Write the answer').max(2000) });
+
+export const crewRotationSchema = z.object({
+  anchorShiftStart: z.iso.datetime({ offset: true }),
+  crewIds: z.array(z.number().int().positive()).min(1).max(12),
+});
+export const crewSwapSchema = z.object({
+  shiftStart: z.iso.datetime({ offset: true }),
+  crewId: z.number().int().positive(),
+  reason: z.string().trim().min(3, 'Say why').max(500),
+});
