@@ -5,6 +5,7 @@ export type NavItem = { to: string; label: string; roles: readonly Role[] | 'all
 /** What each role finds in the navigation. The server enforces the same rules on every route. */
 export const navigation: NavItem[] = [
   { to: '/', label: 'Overview', roles: 'all' },
+  { to: '/handover', label: 'Handover', roles: 'all' },
   { to: '/log', label: 'Shift log', roles: 'all' },
   { to: '/orders', label: 'Standing orders', roles: 'all' },
   { to: '/rounds', label: 'Rounds', roles: 'all' },

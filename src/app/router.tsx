@@ -22,6 +22,8 @@ export function createAppRouter(queryClient: QueryClient) {
           path: 'account/password',
           lazy: async () => ({ Component: (await import('../features/session/routes/change-password-page')).ChangePasswordPage }),
         },
+        { path: 'handover', lazy: async () => ({ Component: (await import('../features/handover/routes/handover-page')).HandoverPage }) },
+        { path: 'handover/:id/print', lazy: async () => ({ Component: (await import('../features/handover/routes/print-page')).HandoverPrintPage }) },
         { path: 'log', lazy: async () => ({ Component: (await import('../features/log/routes/log-page')).LogPage }) },
         { path: 'orders', lazy: async () => ({ Component: (await import('../features/orders/routes/orders-page')).OrdersPage }) },
         { path: 'rounds', lazy: async () => ({ Component: (await import('../features/rounds/routes/rounds-page')).RoundsPage }) },

@@ -10,6 +10,7 @@ const keysFor: Record<string, string[][]> = {
   log_review: [['log']],
   condition: [['conditions'], ['log']],
   standing_order: [['orders'], ['pending-orders']],
+  handover: [['handover']],
 };
 
 /** Sockets notify, queries fetch: invalidate on each event, and everything after a reconnect. */

@@ -73,6 +73,7 @@ export const api = {
   get: <T>(path: string) => send<T>('GET', path),
   post: <T>(path: string, body?: unknown) => send<T>('POST', path, body ?? {}),
   patch: <T>(path: string, body: unknown) => send<T>('PATCH', path, body),
+  put: <T>(path: string, body: unknown) => send<T>('PUT', path, body),
   delete: <T>(path: string) => send<T>('DELETE', path),
   /** multipart/form-data (file uploads); the browser sets the boundary. */
   upload: <T>(path: string, form: FormData) => send<T>('POST', path, form),

@@ -1,0 +1,62 @@
+import { expect, test, type Page } from '@playwright/test';
+import { signIn } from './support';
+
+async function openBoard(page: Page) {
+  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Handover', exact: true }).click();
+}
+
+async function acknowledgeEverything(page: Page) {
+  const buttons = page.getByRole('button', { name: 'Acknowledge', exact: true });
+  while ((await buttons.count()) > 0) {
+    const before = await buttons.count();
+    await buttons.first().click();
+    await expect(buttons).toHaveCount(before - 1);
+  }
+}
+
+test('outgoing writes, incoming acknowledges live, the incoming lead accepts', async ({ browser }) => {
+  const outgoing = await (await browser.newContext()).newPage();
+  const incoming = await (await browser.newContext()).newPage();
+  const lead = await (await browser.newContext()).newPage();
+
+  // Demo rotation: crew A is on shift, crew B comes next.
+  await signIn(incoming, 'operator.b@fernhollow.example');
+  await openBoard(incoming);
+  await expect(incoming.getByText('has not started this shift’s handover')).toBeVisible();
+
+  await signIn(outgoing, 'operator.a@fernhollow.example');
+  await openBoard(outgoing);
+  await expect(outgoing.getByTestId('handover-status')).toContainText('Draft');
+  // Open flags and conditions come in by themselves.
+  await expect(outgoing.getByRole('article', { name: /Item: 1-CWP-B out of service/ })).toBeVisible();
+
+  const form = outgoing.getByRole('form', { name: 'Add a handover item' });
+  await form.getByLabel('What').fill('Check 1-CWP-A bearing temperature every round');
+  await form.getByLabel('Priority').selectOption('high');
+  await form.getByRole('button', { name: 'Add item' }).click();
+  // The incoming crew's board fills in without a reload.
+  await expect(incoming.getByRole('article', { name: 'Item: Check 1-CWP-A bearing temperature every round' })).toBeVisible();
+
+  await outgoing.getByRole('button', { name: 'Submit the handover' }).click();
+  await expect(incoming.getByTestId('handover-status')).toContainText('Submitted');
+
+  const item = incoming.getByRole('article', { name: 'Item: Check 1-CWP-A bearing temperature every round' });
+  await item.getByRole('button', { name: 'Acknowledge' }).click();
+  // The outgoing operator sees the acknowledgement without a reload.
+  await expect(outgoing.getByRole('article', { name: 'Item: Check 1-CWP-A bearing temperature every round' })).toContainText('✔ Greta Ifeanyi');
+  await acknowledgeEverything(incoming);
+
+  await signIn(lead, 'lead.b@fernhollow.example');
+  const pending = lead.getByRole('dialog', { name: 'Standing orders to acknowledge' });
+  if (await pending.isVisible()) await pending.getByRole('button', { name: 'I have read this order' }).click();
+  await openBoard(lead);
+  await expect(lead.getByRole('button', { name: 'Accept the handover' })).toBeDisabled();
+  await acknowledgeEverything(lead);
+  await lead.getByRole('button', { name: 'Accept the handover' }).click();
+  await expect(lead.getByTestId('turnover')).toContainText('Accepted by Femi Achterberg');
+  await expect(outgoing.getByTestId('handover-status')).toContainText('Accepted');
+
+  await lead.getByRole('link', { name: 'Print view' }).click();
+  await expect(lead.getByRole('cell', { name: 'Femi Achterberg' })).toBeVisible();
+  await expect(lead.getByRole('cell', { name: 'Cato Villanueva' })).toBeVisible();
+});
