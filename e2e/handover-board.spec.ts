@@ -60,3 +60,14 @@ test('outgoing writes, incoming acknowledges live, the incoming lead accepts', a
   await expect(lead.getByRole('cell', { name: 'Femi Achterberg' })).toBeVisible();
   await expect(lead.getByRole('cell', { name: 'Cato Villanueva' })).toBeVisible();
 });
+
+test('the incoming crew got the submit e-mail, caught by the local fake', async ({ request }) => {
+  const viewer = process.env.MAIL_VIEWER_URL;
+  test.skip(!viewer, 'runs under npm test, which starts the mail catcher');
+  const messages = (await (await request.get(`${viewer}/messages`)).json()) as { to: string[]; subject: string; text: string }[];
+  const submitted = messages.find((m) => m.subject.startsWith('Handover for Unit 1 submitted'));
+  expect(submitted).toBeDefined();
+  // Crew B: its shift lead and operator; nobody from the outgoing crew A.
+  expect(submitted!.to.sort()).toEqual(['lead.b@fernhollow.example', 'operator.b@fernhollow.example']);
+  expect(submitted!.text).toContain('Check 1-CWP-A bearing temperature every round');
+});

@@ -11,6 +11,7 @@ const dataDir = process.env.HOTWELL_DATA_DIR ?? '.data/local';
 
 let database = null;
 let server = null;
+let mail = null;
 let stopping = false;
 
 async function shutdown(code) {
@@ -23,6 +24,7 @@ async function shutdown(code) {
       server.kill('SIGTERM');
     });
   }
+  if (mail) await mail.stop();
   if (database) await database.stop();
   console.log('[hotwell] stopped; data is kept for the next start.');
   process.exit(code);
@@ -67,8 +69,15 @@ try {
     console.log('[build] building the client…');
     await runLocalOrExit('vite', ['build', '--logLevel', 'warn']);
   }
+  const { startMailCatcher } = await import('./lib/mail-catcher.mjs');
+  mail = await startMailCatcher({
+    smtpPort: Number(process.env.HOTWELL_SMTP_PORT ?? 2525),
+    viewerPort: Number(process.env.HOTWELL_MAIL_VIEWER_PORT ?? 5182),
+  });
   server = spawnLocal('tsx', ['server/index.ts'], {
     ...env,
+    SMTP_URL: process.env.SMTP_URL ?? mail.smtpUrl,
+    PUBLIC_URL: process.env.PUBLIC_URL ?? `http://127.0.0.1:${appPort}`,
     PORT: String(appPort),
     SESSION_SECRET: sessionSecret(),
     NODE_ENV: 'production',
@@ -79,7 +88,8 @@ try {
   const url = `http://127.0.0.1:${appPort}`;
   await waitUntilServing(url);
   const people = JSON.parse(readFileSync('server/db/seed/demo-people.json', 'utf8'));
-  console.log(`\nHotwell is serving at ${url}\n`);
+  console.log(`\nHotwell is serving at ${url}`);
+  console.log(`E-mail it sends is caught locally: ${mail.viewerUrl}\n`);
   console.log('Demo sign-ins (password for all: see README) —');
   for (const person of people.users) console.log(`  ${person.role.padEnd(11)} ${person.email}`);
   console.log(`  password: ${people.password}`);

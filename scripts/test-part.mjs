@@ -29,7 +29,10 @@ try {
     const chromium = ensureChromium();
     await runLocalOrExit('tsx', ['server/db/seed/seed-cli.ts'], { DATABASE_URL: url });
     await runLocalOrExit('vite', ['build', '--logLevel', 'warn']);
-    code = await runLocal('playwright', ['test', ...args], { E2E_DATABASE_URL: url, CHROMIUM_PATH: chromium });
+    const { startMailCatcher } = await import('./lib/mail-catcher.mjs');
+    const mail = await startMailCatcher({ smtpPort: 0, viewerPort: 0 });
+    code = await runLocal('playwright', ['test', ...args], { E2E_DATABASE_URL: url, CHROMIUM_PATH: chromium, SMTP_URL: mail.smtpUrl, MAIL_VIEWER_URL: mail.viewerUrl });
+    await mail.stop();
   }
 } finally {
   await db.stop();

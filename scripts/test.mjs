@@ -8,6 +8,7 @@ import { runLocal, runLocalOrExit } from './lib/run.mjs';
 const dbPort = Number(process.env.HOTWELL_TEST_DB_PORT ?? 3418);
 const results = [];
 let database = null;
+let mail = null;
 
 async function step(name, action) {
   const started = Date.now();
@@ -23,6 +24,8 @@ async function step(name, action) {
 }
 
 async function stopDatabase() {
+  if (mail) await mail.stop();
+  mail = null;
   if (database) await database.stop();
   database = null;
 }
@@ -61,8 +64,10 @@ try {
   await step('lint', () => runLocal('eslint', ['.', '--max-warnings=0']));
   await step('vitest (unit + integration)', () => runLocal('vitest', ['run'], { TEST_DATABASE_URL: integrationUrl }));
   await step('client build', () => runLocal('vite', ['build', '--logLevel', 'warn']));
+  const { startMailCatcher } = await import('./lib/mail-catcher.mjs');
+  mail = await startMailCatcher({ smtpPort: 0, viewerPort: 0 });
   await step('playwright e2e', () =>
-    runLocal('playwright', ['test'], { E2E_DATABASE_URL: e2eUrl, CHROMIUM_PATH: chromium }),
+    runLocal('playwright', ['test'], { E2E_DATABASE_URL: e2eUrl, CHROMIUM_PATH: chromium, SMTP_URL: mail.smtpUrl, MAIL_VIEWER_URL: mail.viewerUrl }),
   );
 } catch (error) {
   console.error(`\n[test] set-up failed: ${error.message}`);

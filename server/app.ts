@@ -32,6 +32,8 @@ import { makeConditionService } from './features/conditions/service';
 import { conditionRoutes } from './features/conditions/routes';
 import { makeHandoverService } from './features/handovers/service';
 import { handoverRoutes } from './features/handovers/routes';
+import { makeNotices, type Notices } from './features/handovers/notices';
+import { createMailer } from './lib/mailer';
 
 const SequelizeStore = ConnectSessionSequelize(session.Store);
 
@@ -41,10 +43,12 @@ export type BuiltApp = {
   sessionMiddleware: RequestHandler;
   /** Emits after commits; `attach` it to the HTTP server to reach browsers. */
   realtime: RealtimeHub;
+  /** E-mail notices; `sendDue` is run on a timer by the server. */
+  notices: Notices;
   close: () => void;
 };
 
-export function createApp(sequelize: Sequelize, config: Pick<AppConfig, 'sessionSecret' | 'production' | 'behindHttpsProxy' | 'signInRateLimit'>): BuiltApp {
+export function createApp(sequelize: Sequelize, config: Pick<AppConfig, 'sessionSecret' | 'production' | 'behindHttpsProxy' | 'signInRateLimit' | 'smtpUrl' | 'publicUrl'>): BuiltApp {
   const app = express();
   const passport = configurePassport();
   if (config.behindHttpsProxy) app.set('trust proxy', 1);
@@ -96,6 +100,7 @@ export function createApp(sequelize: Sequelize, config: Pick<AppConfig, 'session
 
   const users = makeUserService(sequelize);
   const realtime = createRealtimeHub();
+  const notices = makeNotices(createMailer(config.smtpUrl), config.publicUrl ?? 'http://127.0.0.1:5180');
   app.get('/api/health', (_req, res) => {
     res.json({ ok: true });
   });
@@ -111,7 +116,7 @@ export function createApp(sequelize: Sequelize, config: Pick<AppConfig, 'session
   app.use('/api', logRoutes(sequelize, log));
   app.use('/api', standingOrderRoutes(makeStandingOrderService(sequelize, realtime)));
   app.use('/api', conditionRoutes(makeConditionService(sequelize, realtime, log)));
-  app.use('/api', handoverRoutes(sequelize, makeHandoverService(sequelize, realtime)));
+  app.use('/api', handoverRoutes(sequelize, makeHandoverService(sequelize, realtime, notices)));
   app.use('/api/calc', calcRoutes());
   app.use('/api', (_req, _res, next) => next(new NotFound('That API route')));
 
@@ -126,5 +131,5 @@ export function createApp(sequelize: Sequelize, config: Pick<AppConfig, 'session
   });
   app.use(errorMiddleware);
 
-  return { app, sessionMiddleware, realtime, close: () => store.stopExpiringSessions() };
+  return { app, sessionMiddleware, realtime, notices, close: () => store.stopExpiringSessions() };
 }

@@ -8,6 +8,10 @@ export type AppConfig = {
   /** Served over HTTPS behind a proxy: trust it and mark cookies secure. */
   behindHttpsProxy: boolean;
   signInRateLimit: number;
+  /** smtp://host:port of the mail service (the local catcher under npm start / npm test). */
+  smtpUrl?: string;
+  /** Base address used in links inside e-mail. */
+  publicUrl?: string;
 };
 
 export function readConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
@@ -23,5 +27,7 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     production: env.NODE_ENV === 'production',
     behindHttpsProxy: env.HTTPS_PROXY_IN_FRONT === '1',
     signInRateLimit: Number(env.SIGN_IN_RATE_LIMIT ?? 10),
+    smtpUrl: env.SMTP_URL || undefined,
+    publicUrl: env.PUBLIC_URL ?? `http://${env.HOST ?? '127.0.0.1'}:${env.PORT ?? 5180}`,
   };
 }

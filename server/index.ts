@@ -17,10 +17,17 @@ server.listen(config.port, config.host, () => {
   console.log(`[server] listening on http://${config.host}:${config.port}`);
 });
 
+// Reminder e-mail (late acceptance, passed deadlines), checked once a minute.
+const reminders = setInterval(() => {
+  built.notices.sendDue().catch((error: unknown) => console.error('[mail] reminders failed', error));
+}, 60_000);
+reminders.unref();
+
 let closing = false;
 async function shutdown() {
   if (closing) return;
   closing = true;
+  clearInterval(reminders);
   await io.close();
   server.close();
   server.closeAllConnections();

@@ -5,6 +5,7 @@ import * as condenserDesign from './migrations/0002-condenser-design';
 import * as roundsAndFlags from './migrations/0003-rounds-and-flags';
 import * as narrativeLog from './migrations/0004-narrative-log';
 import * as handovers from './migrations/0005-handovers';
+import * as notices from './migrations/0006-notices';
 
 // Listed explicitly so the order is obvious and nothing depends on globbing at run time.
 const migrations = [
@@ -13,6 +14,7 @@ const migrations = [
   { name: '0003-rounds-and-flags', ...roundsAndFlags },
   { name: '0004-narrative-log', ...narrativeLog },
   { name: '0005-handovers', ...handovers },
+  { name: '0006-notices', ...notices },
 ];
 
 export function createMigrator(sequelize: Sequelize) {

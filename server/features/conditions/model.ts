@@ -15,6 +15,7 @@ export class Condition extends Model<InferAttributes<Condition>, InferCreationAt
   declare closedAt: Date | null;
   declare closingEntryId: number | null;
   declare version: CreationOptional<number>;
+  declare expiryNoticeSentAt: CreationOptional<Date | null>;
 }
 
 export function initConditionModel(sequelize: Sequelize) {
@@ -33,6 +34,7 @@ export function initConditionModel(sequelize: Sequelize) {
       closedAt: DataTypes.DATE(3),
       closingEntryId: DataTypes.BIGINT.UNSIGNED,
       version: { type: DataTypes.INTEGER.UNSIGNED, defaultValue: 0 },
+      expiryNoticeSentAt: DataTypes.DATE(3),
     },
     { sequelize, tableName: 'conditions', timestamps: false },
   );

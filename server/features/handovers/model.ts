@@ -20,6 +20,7 @@ export class Handover extends Model<InferAttributes<Handover>, InferCreationAttr
   declare submittedAt: Date | null;
   declare acceptedBy: number | null;
   declare acceptedAt: Date | null;
+  declare reminderSentAt: CreationOptional<Date | null>;
 }
 
 export class HandoverItem extends Model<InferAttributes<HandoverItem>, InferCreationAttributes<HandoverItem>> {
@@ -71,7 +72,7 @@ export function initHandoverModels(sequelize: Sequelize) {
       id: pk, unitId: int, shiftStart: at, handoverAt: at, outgoingCrewId: int, incomingCrewId: int,
       notesHtml: DataTypes.TEXT('medium'), notesVersion: { type: int, defaultValue: 0 },
       status: DataTypes.ENUM('draft', 'submitted', 'accepted'), createdBy: int, createdAt: at,
-      submittedBy: int, submittedAt: at, acceptedBy: int, acceptedAt: at,
+      submittedBy: int, submittedAt: at, acceptedBy: int, acceptedAt: at, reminderSentAt: at,
     },
     { sequelize, tableName: 'handovers', timestamps: false },
   );

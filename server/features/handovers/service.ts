@@ -10,6 +10,7 @@ import { PlantUnit } from '../plant/model';
 import { shiftChangeAt } from '../shifts/crews';
 import { User } from '../users/model';
 import { syncAutomaticItems } from './auto-items';
+import type { Notices } from './notices';
 import { Handover, HandoverAck, HandoverAmendment, HandoverItem, HandoverQuery } from './model';
 
 type Actor = Express.User;
@@ -30,7 +31,7 @@ async function handoverOfItem(itemId: number) {
   return { item, handover: handover! };
 }
 
-export function makeHandoverService(sequelize: Sequelize, realtime: RealtimeHub) {
+export function makeHandoverService(sequelize: Sequelize, realtime: RealtimeHub, notices: Notices) {
   const changed = (h: Handover) => realtime.toUnit(h.unitId, { entity: 'handover', id: h.id });
 
   /** The handover of the shift in progress; created as a draft when an outgoing writer opens it. */
@@ -117,6 +118,8 @@ export function makeHandoverService(sequelize: Sequelize, realtime: RealtimeHub)
       await recordAudit({ actorId: actor.id, action: 'handover.submit', entity: 'handover', entityId: id }, transaction);
     });
     changed(h);
+    // After the commit; a mail failure must not undo the submit.
+    notices.handoverSubmitted(id).catch((error: unknown) => console.error('[mail] submit notice failed', error));
   }
 
   async function amend(actor: Actor, id: number, input: { itemId?: number | null; reason: string; text: string }) {

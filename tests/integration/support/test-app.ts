@@ -26,12 +26,14 @@ export function db(): Sequelize {
 export const SECRET = 'integration-test-secret';
 const opened: BuiltApp[] = [];
 
-export function buildApp(options: { signInRateLimit?: number } = {}): BuiltApp {
+export function buildApp(options: { signInRateLimit?: number; smtpUrl?: string } = {}): BuiltApp {
   const built = createApp(db(), {
     sessionSecret: SECRET,
     production: false,
     behindHttpsProxy: false,
     signInRateLimit: options.signInRateLimit ?? 10_000,
+    smtpUrl: options.smtpUrl,
+    publicUrl: 'http://127.0.0.1:5180',
   });
   opened.push(built);
   return built;

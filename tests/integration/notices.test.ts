@@ -1,0 +1,79 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { Condition } from '../../server/features/conditions/model';
+import { Handover, HandoverItem } from '../../server/features/handovers/model';
+import { buildApp, closeAll, makeStation, makeUser, signedInAgent } from './support/test-app';
+import { startCatcher, waitForMail, type Catcher } from './support/mail';
+
+let catcher: Catcher;
+let built: ReturnType<typeof buildApp>;
+beforeAll(async () => {
+  catcher = await startCatcher();
+  built = buildApp({ smtpUrl: catcher.smtpUrl });
+});
+afterAll(async () => {
+  await catcher.stop();
+  await closeAll();
+});
+
+describe('e-mail notices', () => {
+  it('mails the incoming crew on submit, and the incoming lead once when acceptance is 30 minutes late', async () => {
+    const { station, unit, crews } = await makeStation(2);
+    const [a, b] = crews as [(typeof crews)[0], (typeof crews)[0]];
+    const outgoing = await makeUser('operator', { crewId: a.id });
+    const inLead = await makeUser('shift_lead', { crewId: b.id });
+    const inOperator = await makeUser('operator', { crewId: b.id });
+    await makeUser('operator', { crewId: null });
+    const admin = await signedInAgent(built, (await makeUser('admin')).email);
+    const shifts = await admin.get(`/api/units/${unit.id}/log/shifts`).expect(200);
+    await admin.put(`/api/stations/${station.id}/crew-rotation`).set('X-CSRF-Token', admin.csrf).send({ anchorShiftStart: shifts.body.shifts[0].start, crewIds: [a.id, b.id] }).expect(200);
+
+    const writer = await signedInAgent(built, outgoing.email);
+    const board = (await writer.get(`/api/units/${unit.id}/handovers/current`).expect(200)).body.board;
+    await writer.post(`/api/handovers/${board.handover.id}/items`).set('X-CSRF-Token', writer.csrf).send({ kind: 'follow_up', title: 'Vent waterbox B', priority: 'high' }).expect(201);
+    const before = catcher.messages.length;
+    await writer.post(`/api/handovers/${board.handover.id}/submit`).set('X-CSRF-Token', writer.csrf).send({}).expect(200);
+    const mail = (await waitForMail(catcher, before + 1)).at(-1)!;
+    expect(mail.to.sort()).toEqual([inLead.email, inOperator.email].sort());
+    expect(mail.subject).toMatch(/submitted — 1 items to acknowledge/);
+    expect(mail.text).toContain('[high] Vent waterbox B');
+    expect(mail.text).toContain(`/handover?unit=${unit.id}`);
+
+    // Not accepted 30 minutes into the shift: the incoming lead is told, once.
+    const h = await Handover.findByPk(board.handover.id);
+    const dueAt = new Date(h!.handoverAt.getTime() + 31 * 60_000);
+    const sentBefore = catcher.messages.length;
+    expect(await built.notices.sendDue(dueAt)).toBeGreaterThanOrEqual(1);
+    const reminder = (await waitForMail(catcher, sentBefore + 1)).find((m) => m.subject === `Handover for ${unit.name} not yet accepted`);
+    expect(reminder?.to).toEqual([inLead.email]);
+    expect(await built.notices.sendDue(dueAt)).toBe(0);
+    expect(await HandoverItem.count({ where: { handoverId: h!.id } })).toBe(1);
+  });
+
+  it('mails the shift lead on shift and the owner when a condition’s deadline passes', async () => {
+    const { unit, crews } = await makeStation(1);
+    const lead = await makeUser('shift_lead', { crewId: crews[0]!.id });
+    const owner = await makeUser('operator');
+    const admin = await signedInAgent(built, (await makeUser('admin')).email);
+    const shifts = await admin.get(`/api/units/${unit.id}/log/shifts`).expect(200);
+    await admin.put(`/api/stations/${unit.stationId}/crew-rotation`).set('X-CSRF-Token', admin.csrf).send({ anchorShiftStart: shifts.body.shifts[0].start, crewIds: [crews[0]!.id] }).expect(200);
+    const condition = await Condition.create({
+      unitId: unit.id,
+      title: 'Chlorine dosing pump out of service',
+      requiredAction: 'Restore within 24 h',
+      startedAt: new Date(Date.now() - 25 * 3_600_000),
+      limitAt: new Date(Date.now() - 3_600_000),
+      ownerId: owner.id,
+      openedBy: owner.id,
+      openedAt: new Date(Date.now() - 25 * 3_600_000),
+      closedBy: null,
+      closedAt: null,
+      closingEntryId: null,
+    });
+    const before = catcher.messages.length;
+    await built.notices.sendDue(new Date());
+    const notice = (await waitForMail(catcher, before + 1)).find((m) => m.subject === 'Deadline passed: Chlorine dosing pump out of service');
+    expect(notice?.to.sort()).toEqual([lead.email, owner.email].sort());
+    await condition.reload();
+    expect(condition.expiryNoticeSentAt).not.toBeNull();
+  });
+});

@@ -1,0 +1,18 @@
+// The project's local mail catcher, started in-process on free ports for a test file.
+// @ts-expect-error plain JS helper shared with the bootstrap scripts
+import { startMailCatcher } from '../../../scripts/lib/mail-catcher.mjs';
+
+export type CaughtMail = { from: string; to: string[]; subject: string; text: string; date: string };
+export type Catcher = { smtpUrl: string; viewerUrl: string; messages: CaughtMail[]; stop: () => Promise<void> };
+
+export const startCatcher = (): Promise<Catcher> => startMailCatcher({ smtpPort: 0, viewerPort: 0 });
+
+/** Waits until `count` messages have arrived (SMTP delivery is asynchronous). */
+export async function waitForMail(catcher: Catcher, count: number, timeoutMs = 5000) {
+  const started = Date.now();
+  while (catcher.messages.length < count) {
+    if (Date.now() - started > timeoutMs) throw new Error(`only ${catcher.messages.length} of ${count} messages arrived`);
+    await new Promise((r) => setTimeout(r, 50));
+  }
+  return catcher.messages;
+}
