@@ -27,6 +27,9 @@ test('outgoing writes, incoming acknowledges live, the incoming lead accepts', a
   await signIn(outgoing, 'operator.a@fernhollow.example');
   await openBoard(outgoing);
   await expect(outgoing.getByTestId('handover-status')).toContainText('Draft');
+  // Each board shows who else has it open.
+  await expect(incoming.getByTestId('viewing')).toContainText('Cato Villanueva');
+  await expect(incoming.getByTestId('viewing')).toContainText('Greta Ifeanyi');
   // Open flags and conditions come in by themselves.
   await expect(outgoing.getByRole('article', { name: /Item: 1-CWP-B out of service/ })).toBeVisible();
 

@@ -34,6 +34,8 @@ import { makeHandoverService } from './features/handovers/service';
 import { handoverRoutes } from './features/handovers/routes';
 import { makeNotices, type Notices } from './features/handovers/notices';
 import { createMailer } from './lib/mailer';
+import { storageFromEnv, type Storage } from './lib/storage';
+import { attachmentRoutes } from './features/handovers/attachments';
 
 const SequelizeStore = ConnectSessionSequelize(session.Store);
 
@@ -48,7 +50,11 @@ export type BuiltApp = {
   close: () => void;
 };
 
-export function createApp(sequelize: Sequelize, config: Pick<AppConfig, 'sessionSecret' | 'production' | 'behindHttpsProxy' | 'signInRateLimit' | 'smtpUrl' | 'publicUrl'>): BuiltApp {
+export function createApp(
+  sequelize: Sequelize,
+  config: Pick<AppConfig, 'sessionSecret' | 'production' | 'behindHttpsProxy' | 'signInRateLimit' | 'smtpUrl' | 'publicUrl'>,
+  deps: { storage?: Storage } = {},
+): BuiltApp {
   const app = express();
   const passport = configurePassport();
   if (config.behindHttpsProxy) app.set('trust proxy', 1);
@@ -117,6 +123,7 @@ export function createApp(sequelize: Sequelize, config: Pick<AppConfig, 'session
   app.use('/api', standingOrderRoutes(makeStandingOrderService(sequelize, realtime)));
   app.use('/api', conditionRoutes(makeConditionService(sequelize, realtime, log)));
   app.use('/api', handoverRoutes(sequelize, makeHandoverService(sequelize, realtime, notices)));
+  app.use('/api', attachmentRoutes(deps.storage ?? storageFromEnv(), realtime));
   app.use('/api/calc', calcRoutes());
   app.use('/api', (_req, _res, next) => next(new NotFound('That API route')));
 

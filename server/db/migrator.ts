@@ -6,6 +6,7 @@ import * as roundsAndFlags from './migrations/0003-rounds-and-flags';
 import * as narrativeLog from './migrations/0004-narrative-log';
 import * as handovers from './migrations/0005-handovers';
 import * as notices from './migrations/0006-notices';
+import * as attachments from './migrations/0007-attachments';
 
 // Listed explicitly so the order is obvious and nothing depends on globbing at run time.
 const migrations = [
@@ -15,6 +16,7 @@ const migrations = [
   { name: '0004-narrative-log', ...narrativeLog },
   { name: '0005-handovers', ...handovers },
   { name: '0006-notices', ...notices },
+  { name: '0007-attachments', ...attachments },
 ];
 
 export function createMigrator(sequelize: Sequelize) {

@@ -45,13 +45,26 @@ export function createRealtimeHub(): RealtimeHub {
           }
         }),
       );
+      // Who is looking at a unit's board right now, sent to everyone in its room.
+      const sendPresence = async (room: string) => {
+        const sockets = await io!.in(room).fetchSockets();
+        const people = [...new Set(sockets.map((s) => String(s.data.name)))].sort();
+        io!.to(room).emit('presence', { unitId: Number(room.slice('unit:'.length)), people });
+      };
       io.on('connection', (socket) => {
         const user = (socket.request as IncomingMessage & { user?: { id: number; name: string } }).user!;
+        socket.data.name = user.name;
         socket.join(`user:${user.id}`);
         socket.on('watch-unit', (unitId: unknown) => {
           if (typeof unitId !== 'number' || !Number.isInteger(unitId)) return;
-          for (const room of socket.rooms) if (room.startsWith('unit:')) socket.leave(room);
+          const left = [...socket.rooms].filter((room) => room.startsWith('unit:'));
+          for (const room of left) socket.leave(room);
           socket.join(`unit:${unitId}`);
+          for (const room of [...left, `unit:${unitId}`]) void sendPresence(room);
+        });
+        socket.on('disconnecting', () => {
+          const rooms = [...socket.rooms].filter((room) => room.startsWith('unit:'));
+          setImmediate(() => rooms.forEach((room) => void sendPresence(room)));
         });
       });
       return io;

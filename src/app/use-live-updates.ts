@@ -1,4 +1,4 @@
-import { useEffect } from 'react';
+import { useEffect, useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import { closeSocket, getSocket } from '../lib/socket';
 
@@ -49,4 +49,21 @@ export function useWatchUnit(unitId: number | null) {
       socket.off('connect', join);
     };
   }, [unitId]);
+}
+
+/** Names of the people who have this unit open right now. */
+export function usePresence(unitId: number | null): string[] {
+  const [people, setPeople] = useState<string[]>([]);
+  useEffect(() => {
+    if (!unitId) return;
+    const socket = getSocket();
+    const onPresence = (p: { unitId: number; people: string[] }) => {
+      if (p.unitId === unitId) setPeople(p.people);
+    };
+    socket.on('presence', onPresence);
+    return () => {
+      socket.off('presence', onPresence);
+    };
+  }, [unitId]);
+  return people;
 }

@@ -11,7 +11,7 @@ import { shiftChangeAt } from '../shifts/crews';
 import { User } from '../users/model';
 import { syncAutomaticItems } from './auto-items';
 import type { Notices } from './notices';
-import { Handover, HandoverAck, HandoverAmendment, HandoverItem, HandoverQuery } from './model';
+import { Handover, HandoverAck, HandoverAmendment, HandoverAttachment, HandoverItem, HandoverQuery } from './model';
 
 type Actor = Express.User;
 const crewRoles = ['trainee', 'operator', 'shift_lead'];
@@ -189,11 +189,12 @@ export async function viewHandover(id: number) {
   if (!h) throw new NotFound('That handover');
   const items = await HandoverItem.findAll({ where: { handoverId: id }, order: [['id', 'ASC']] });
   const itemIds = items.map((i) => i.id);
-  const [acks, queries, amendments, incomingCrew] = await Promise.all([
+  const [acks, queries, amendments, incomingCrew, attachments] = await Promise.all([
     itemIds.length ? HandoverAck.findAll({ where: { itemId: itemIds } }) : [],
     itemIds.length ? HandoverQuery.findAll({ where: { itemId: itemIds }, order: [['id', 'ASC']] }) : [],
     HandoverAmendment.findAll({ where: { handoverId: id }, order: [['id', 'ASC']] }),
     h.incomingCrewId ? User.findAll({ where: { crewId: h.incomingCrewId, active: true, role: crewRoles }, attributes: ['id', 'name', 'role'] }) : [],
+    itemIds.length ? HandoverAttachment.findAll({ where: { itemId: itemIds }, order: [['id', 'ASC']] }) : [],
   ]);
   const ids = new Set<number>([h.createdBy, ...[h.submittedBy, h.acceptedBy].filter((x): x is number => x !== null), ...acks.map((a) => a.userId), ...queries.flatMap((q) => [q.askedBy, ...(q.answeredBy ? [q.answeredBy] : [])]), ...amendments.map((a) => a.authorId)]);
   const names = new Map((await User.findAll({ where: { id: [...ids] }, attributes: ['id', 'name'] })).map((u) => [u.id, u.name]));
@@ -213,6 +214,7 @@ export async function viewHandover(id: number) {
       reference: item.reference,
       priority: item.priority,
       sourceId: item.sourceId,
+      attachments: attachments.filter((a) => a.itemId === item.id).map((a) => ({ id: a.id, fileName: a.fileName, mime: a.mime, size: a.size })),
       acknowledgedBy: itemAcks.map((a) => ({ userId: a.userId, name: name(a.userId), at: a.acknowledgedAt.toISOString() })),
       awaiting: missing,
       queries: itemQueries.map((q) => ({ id: q.id, question: q.question, askedBy: name(q.askedBy), askedAt: q.askedAt.toISOString(), answer: q.answer, answeredBy: name(q.answeredBy), answeredAt: q.answeredAt?.toISOString() ?? null })),

@@ -8,6 +8,7 @@ export type BoardItem = {
   detail: string | null;
   reference: string | null;
   priority: 'low' | 'normal' | 'high';
+  attachments: { id: number; fileName: string; mime: string; size: number }[];
   acknowledgedBy: { userId: number; name: string | null; at: string }[];
   awaiting: string[];
   queries: { id: number; question: string; askedBy: string | null; askedAt: string; answer: string | null; answeredBy: string | null; answeredAt: string | null }[];
@@ -75,6 +76,18 @@ export function useHandoverAction() {
         case 'answer':
           return api.post(`/api/handover-queries/${a.queryId}/answer`, { answer: a.answer });
       }
+    },
+    onSettled: () => void queryClient.invalidateQueries({ queryKey: handoverKeys.all }),
+  });
+}
+
+export function useUploadAttachment() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ itemId, file }: { itemId: number; file: File }) => {
+      const form = new FormData();
+      form.append('file', file);
+      return api.upload(`/api/handover-items/${itemId}/attachments`, form);
     },
     onSettled: () => void queryClient.invalidateQueries({ queryKey: handoverKeys.all }),
   });

@@ -1,5 +1,6 @@
 import { useState } from 'react';
-import { useHandoverAction, type Board, type BoardItem } from '../api/handover';
+import { ApiError } from '../../../lib/api-client';
+import { useHandoverAction, useUploadAttachment, type Board, type BoardItem } from '../api/handover';
 
 export const kindLabels: Record<string, string> = {
   equipment: 'Equipment out of service / degraded',
@@ -17,6 +18,7 @@ type Props = { board: Board; item: BoardItem; meId: number; side: 'outgoing' | '
 
 export function BoardItemCard({ board, item, meId, side }: Props) {
   const action = useHandoverAction();
+  const upload = useUploadAttachment();
   const [question, setQuestion] = useState('');
   const [answers, setAnswers] = useState<Record<number, string>>({});
   const submitted = board.handover.status === 'submitted';
@@ -36,6 +38,24 @@ export function BoardItemCard({ board, item, meId, side }: Props) {
           {a.text} <span className="text-xs text-muted">— amended by {a.author}: {a.reason}</span>
         </p>
       ))}
+      {item.attachments.length ? (
+        <ul className="mt-1 flex flex-wrap gap-2 text-sm" aria-label="Attachments">
+          {item.attachments.map((a) => (
+            <li key={a.id}>
+              <a className="text-accent underline" href={`/api/attachments/${a.id}`} target="_blank" rel="noreferrer">
+                {a.mime === 'application/pdf' ? '📄' : '🖼'} {a.fileName} ({Math.ceil(a.size / 1024)} kB)
+              </a>
+            </li>
+          ))}
+        </ul>
+      ) : null}
+      {side === 'outgoing' && board.handover.status !== 'accepted' ? (
+        <label className="mt-1 block text-sm">
+          Add a photo or PDF (max 10 MB):{' '}
+          <input type="file" accept="image/jpeg,image/png,image/webp,application/pdf" onChange={(e) => e.target.files?.[0] && upload.mutate({ itemId: item.id, file: e.target.files[0] })} />
+          {upload.error ? <span role="alert" className="block font-bold text-alarm">⚠ {(upload.error instanceof ApiError && upload.error.fields.file) || upload.error.message}</span> : null}
+        </label>
+      ) : null}
       <p className="mt-1 text-sm">
         {item.acknowledgedBy.map((a) => (
           <span key={a.userId} className="mr-2 font-bold text-normal">

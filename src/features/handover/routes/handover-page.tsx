@@ -3,7 +3,7 @@ import { Link } from 'react-router';
 import { format } from 'date-fns';
 import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-picker';
 import { Notice } from '../../../components/ui/notice';
-import { useWatchUnit } from '../../../app/use-live-updates';
+import { usePresence, useWatchUnit } from '../../../app/use-live-updates';
 import { useCrews } from '../../overview/api/get-crews';
 import { useMe } from '../../session/api/get-me';
 import { useCurrentHandover, useHandoverAction } from '../api/handover';
@@ -18,6 +18,7 @@ export function HandoverPage() {
   const { data: me } = useMe();
   const { unitId, unit } = useSelectedUnit();
   useWatchUnit(unitId);
+  const viewing = usePresence(unitId);
   const current = useCurrentHandover(unitId);
   const crews = useCrews();
   const action = useHandoverAction();
@@ -41,6 +42,11 @@ export function HandoverPage() {
         </div>
         <UnitPicker />
       </div>
+      {viewing.length ? (
+        <p className="text-sm" data-testid="viewing">
+          👁 Viewing now: {viewing.join(', ')}
+        </p>
+      ) : null}
       <aside className="rounded-md border border-watch bg-panel px-4 py-2 text-sm" aria-label="Caution">
         <strong>Caution — </strong>the written handover supports, and does not replace, the face-to-face turnover and panel walkdown your
         procedures require.
