@@ -17,10 +17,17 @@ export const percentile = (values: number[], p: number) => {
   return sorted[Math.min(sorted.length - 1, Math.floor((p / 100) * sorted.length))]!;
 };
 
+export type Client = { call: (path: string, init?: RequestInit) => Promise<Response>; csrf: string; cookie: () => string };
+
 export type Bench = {
   sequelize: Sequelize;
   /** Serves the app and signs in as the demo person with this role; returns a fetch wrapper. */
-  serve(role: string): Promise<{ call: (path: string, init?: RequestInit) => Promise<Response>; csrf: string }>;
+  serve(role: string): Promise<Client>;
+  /** Another signed-in session of the demo person with this e-mail, on the same server. */
+  signIn(email: string): Promise<Client>;
+  /** The Socket.IO server, once `serve` attached it. */
+  io(): import('socket.io').Server;
+  baseUrl(): string;
   stop(): Promise<void>;
 };
 
@@ -32,29 +39,38 @@ export async function startBench(name: string): Promise<Bench> {
   await seedDemo(sequelize);
   let server: http.Server | null = null;
   let closeApp = () => {};
+  let io: import('socket.io').Server | null = null;
+  let base = '';
+  const signIn = async (email: string): Promise<Client> => {
+    let cookie = '';
+    const call = async (path: string, init: RequestInit = {}) => {
+      const response = await fetch(base + path, { ...init, headers: { ...(init.headers ?? {}), cookie, 'content-type': 'application/json' } });
+      const setCookie = response.headers.get('set-cookie');
+      if (setCookie) cookie = setCookie.split(';')[0]!;
+      return response;
+    };
+    const { csrfToken } = (await (await call('/api/session/csrf')).json()) as { csrfToken: string };
+    const response = await call('/api/session', { method: 'POST', headers: { 'x-csrf-token': csrfToken }, body: JSON.stringify({ email, password: people.password }) });
+    if (!response.ok) throw new Error(`sign-in failed: ${response.status}`);
+    return { call, csrf: ((await response.json()) as { csrfToken: string }).csrfToken, cookie: () => cookie };
+  };
   return {
     sequelize,
     async serve(role) {
-      const built = createApp(sequelize, { sessionSecret: 'bench', production: true, behindHttpsProxy: false, signInRateLimit: 1000 });
+      const built = createApp(sequelize, { sessionSecret: 'bench', production: true, behindHttpsProxy: false, signInRateLimit: 100_000 });
       closeApp = built.close;
       server = http.createServer(built.app);
+      io = built.realtime.attach(server, built.sessionMiddleware);
       await new Promise<void>((resolve) => server!.listen(0, '127.0.0.1', resolve));
-      const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
-      let cookie = '';
-      const call = async (path: string, init: RequestInit = {}) => {
-        const response = await fetch(base + path, { ...init, headers: { ...(init.headers ?? {}), cookie, 'content-type': 'application/json' } });
-        const setCookie = response.headers.get('set-cookie');
-        if (setCookie) cookie = setCookie.split(';')[0]!;
-        return response;
-      };
-      const { csrfToken } = (await (await call('/api/session/csrf')).json()) as { csrfToken: string };
-      const person = people.users.find((p) => p.role === role)!;
-      const signIn = await call('/api/session', { method: 'POST', headers: { 'x-csrf-token': csrfToken }, body: JSON.stringify({ email: person.email, password: people.password }) });
-      if (!signIn.ok) throw new Error(`sign-in failed: ${signIn.status}`);
-      return { call, csrf: ((await signIn.json()) as { csrfToken: string }).csrfToken };
+      base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+      return signIn(people.users.find((p) => p.role === role)!.email);
     },
+    signIn,
+    io: () => io!,
+    baseUrl: () => base,
     async stop() {
       closeApp();
+      if (io) await io.close();
       server?.close();
       await sequelize.close();
       await db.stop();

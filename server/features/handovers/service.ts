@@ -1,7 +1,7 @@
 // Shift handover: the outgoing crew writes (notes and items) and submits; the incoming crew
 // acknowledges each item or queries it; the incoming shift lead accepts, and that moment is the
 // recorded turnover. After submit nothing is edited: corrections are amendments.
-import type { Sequelize } from 'sequelize';
+import { UniqueConstraintError, type Sequelize } from 'sequelize';
 import { recordAudit } from '../../lib/audit';
 import { sanitizeRichText } from '../../lib/rich-text';
 import { Conflict, Forbidden, HttpError, NotFound, ValidationError } from '../../lib/errors';
@@ -137,8 +137,13 @@ export function makeHandoverService(sequelize: Sequelize, realtime: RealtimeHub,
     const { handover } = await handoverOfItem(itemId);
     if (!isIncoming(actor, handover)) throw new Forbidden('Only the incoming crew acknowledges handover items');
     if (handover.status !== 'submitted') throw new Conflict(handover.status === 'draft' ? 'The handover is not submitted yet' : 'The handover is already accepted');
-    if (await HandoverAck.findOne({ where: { itemId, userId: actor.id } })) throw new Conflict('You have acknowledged this item already');
-    await HandoverAck.create({ itemId, userId: actor.id, acknowledgedAt: new Date() });
+    try {
+      await HandoverAck.create({ itemId, userId: actor.id, acknowledgedAt: new Date() });
+    } catch (error) {
+      // The primary key (item, person) is the check: one acknowledgement each.
+      if (error instanceof UniqueConstraintError) throw new Conflict('You have acknowledged this item already');
+      throw error;
+    }
     changed(handover);
   }
 
