@@ -5,7 +5,7 @@ afterAll(closeAll);
 const built = buildApp();
 
 // Every API route except sign-in, the CSRF token and the health check needs a session.
-const routes: [method: 'get' | 'post' | 'patch', path: string][] = [
+const routes: [method: 'get' | 'post' | 'patch' | 'put', path: string][] = [
   ['get', '/api/me'],
   ['post', '/api/me/password'],
   ['get', '/api/plant/crews'],
@@ -31,8 +31,37 @@ const routes: [method: 'get' | 'post' | 'patch', path: string][] = [
   ['post', '/api/units/1/imports/inspect'],
   ['post', '/api/units/1/imports/preview'],
   ['post', '/api/units/1/imports'],
+  ['get', '/api/stations/1/settings'],
+  ['get', '/api/units/1/log'],
+  ['post', '/api/units/1/log'],
+  ['post', '/api/log/1/amendments'],
+  ['get', '/api/units/1/log/shifts'],
+  ['post', '/api/units/1/log/reviews'],
+  ['get', '/api/standing-orders'],
+  ['post', '/api/standing-orders'],
+  ['get', '/api/standing-orders/1'],
+  ['post', '/api/standing-orders/1/acknowledge'],
+  ['get', '/api/me/pending-orders'],
+  ['get', '/api/units/1/conditions'],
+  ['post', '/api/units/1/conditions'],
+  ['post', '/api/conditions/1/close'],
+  ['get', '/api/units/1/handovers/current'],
+  ['get', '/api/handovers/1'],
+  ['post', '/api/handovers/1/items'],
+  ['post', '/api/handovers/1/submit'],
+  ['post', '/api/handovers/1/amendments'],
+  ['post', '/api/handovers/1/accept'],
+  ['post', '/api/handover-items/1/acknowledge'],
+  ['post', '/api/handover-items/1/queries'],
+  ['post', '/api/handover-queries/1/answer'],
+  ['post', '/api/handover-items/1/attachments'],
+  ['get', '/api/attachments/1'],
+  ['post', '/api/stations/1/crew-swaps'],
   ['get', '/api/admin/users'],
   ['get', '/api/admin/audit-events'],
+  ['put', '/api/handovers/1/notes'],
+  ['put', '/api/stations/1/settings'],
+  ['put', '/api/stations/1/crew-rotation'],
 ];
 
 describe('signed out', () => {

@@ -1,7 +1,7 @@
 // Shift handover: the outgoing crew writes (notes and items) and submits; the incoming crew
 // acknowledges each item or queries it; the incoming shift lead accepts, and that moment is the
 // recorded turnover. After submit nothing is edited: corrections are amendments.
-import { UniqueConstraintError, type Sequelize } from 'sequelize';
+import { UniqueConstraintError, literal as sequelizeLiteral, type Sequelize } from 'sequelize';
 import { recordAudit } from '../../lib/audit';
 import { sanitizeRichText } from '../../lib/rich-text';
 import { Conflict, Forbidden, HttpError, NotFound, ValidationError } from '../../lib/errors';
@@ -11,6 +11,9 @@ import { shiftChangeAt } from '../shifts/crews';
 import { User } from '../users/model';
 import { syncAutomaticItems } from './auto-items';
 import type { Notices } from './notices';
+import { remainingTime } from '../../../shared/conditions';
+import { Flag } from '../flags/model';
+import { Condition } from '../conditions/model';
 import { Handover, HandoverAck, HandoverAmendment, HandoverAttachment, HandoverItem, HandoverQuery } from './model';
 
 type Actor = Express.User;
@@ -25,10 +28,10 @@ function requireWriter(actor: Actor, h: Handover) {
 }
 
 async function handoverOfItem(itemId: number) {
-  const item = await HandoverItem.findByPk(itemId);
-  if (!item) throw new NotFound('That handover item');
-  const handover = await Handover.findByPk(item.handoverId);
-  return { item, handover: handover! };
+  // One round trip: this sits on the acknowledgement path every open board waits on.
+  const handover = await Handover.findOne({ where: { id: sequelizeLiteral(`(SELECT handover_id FROM handover_items WHERE id = ${Number(itemId)})`) } });
+  if (!handover) throw new NotFound('That handover item');
+  return { handover };
 }
 
 export function makeHandoverService(sequelize: Sequelize, realtime: RealtimeHub, notices: Notices) {
@@ -201,6 +204,27 @@ export async function viewHandover(id: number) {
     h.incomingCrewId ? User.findAll({ where: { crewId: h.incomingCrewId, active: true, role: crewRoles }, attributes: ['id', 'name', 'role'] }) : [],
     itemIds.length ? HandoverAttachment.findAll({ where: { itemId: itemIds }, order: [['id', 'ASC']] }) : [],
   ]);
+  // Items that mirror a flag or condition show that record's state now, not as it was when attached.
+  const flagIds = items.filter((i) => i.kind === 'abnormal_reading' && i.sourceId).map((i) => i.sourceId!);
+  const conditionIds = items.filter((i) => i.kind === 'condition' && i.sourceId).map((i) => i.sourceId!);
+  const [flags, conditions] = await Promise.all([
+    flagIds.length ? Flag.findAll({ where: { id: flagIds } }) : [],
+    conditionIds.length ? Condition.findAll({ where: { id: conditionIds } }) : [],
+  ]);
+  const now = new Date();
+  const liveState = (item: HandoverItem) => {
+    if (item.kind === 'abnormal_reading') {
+      const f = flags.find((x) => x.id === item.sourceId);
+      return f ? { state: f.status === 'cleared' ? 'flag cleared' : `flag open (${f.severity})`, remainingMs: null } : null;
+    }
+    if (item.kind === 'condition') {
+      const c = conditions.find((x) => x.id === item.sourceId);
+      if (!c) return null;
+      const r = remainingTime(c.startedAt, c.limitAt, now, c.closedAt);
+      return { state: r.state === 'closed' ? 'condition closed' : r.state.replace('_', ' '), remainingMs: r.state === 'closed' ? null : r.remainingMs };
+    }
+    return null;
+  };
   const ids = new Set<number>([h.createdBy, ...[h.submittedBy, h.acceptedBy].filter((x): x is number => x !== null), ...acks.map((a) => a.userId), ...queries.flatMap((q) => [q.askedBy, ...(q.answeredBy ? [q.answeredBy] : [])]), ...amendments.map((a) => a.authorId)]);
   const names = new Map((await User.findAll({ where: { id: [...ids] }, attributes: ['id', 'name'] })).map((u) => [u.id, u.name]));
   const name = (uid: number | null) => (uid ? (names.get(uid) ?? `#${uid}`) : null);
@@ -219,6 +243,7 @@ export async function viewHandover(id: number) {
       reference: item.reference,
       priority: item.priority,
       sourceId: item.sourceId,
+      live: liveState(item),
       attachments: attachments.filter((a) => a.itemId === item.id).map((a) => ({ id: a.id, fileName: a.fileName, mime: a.mime, size: a.size })),
       acknowledgedBy: itemAcks.map((a) => ({ userId: a.userId, name: name(a.userId), at: a.acknowledgedAt.toISOString() })),
       awaiting: missing,

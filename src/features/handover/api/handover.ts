@@ -8,6 +8,7 @@ export type BoardItem = {
   detail: string | null;
   reference: string | null;
   priority: 'low' | 'normal' | 'high';
+  live: { state: string; remainingMs: number | null } | null;
   attachments: { id: number; fileName: string; mime: string; size: number }[];
   acknowledgedBy: { userId: number; name: string | null; at: string }[];
   awaiting: string[];

@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import { ApiError } from '../../../lib/api-client';
+import { formatRemaining } from '../../../../shared/conditions';
 import { useHandoverAction, useUploadAttachment, type Board, type BoardItem } from '../api/handover';
 
 export const kindLabels: Record<string, string> = {
@@ -32,6 +33,12 @@ export function BoardItemCard({ board, item, meId, side }: Props) {
         {item.reference ? <span className="reading text-xs">ref {item.reference}</span> : null}
       </header>
       <h3 className="font-bold">{item.title}</h3>
+      {item.live ? (
+        <p className="text-sm font-bold" data-testid={`live-${item.id}`}>
+          Now: {item.live.state}
+          {item.live.remainingMs !== null ? ` · ${formatRemaining(item.live.remainingMs)}` : ''}
+        </p>
+      ) : null}
       {item.detail ? <p className="text-sm">{item.detail}</p> : null}
       {amendments.map((a) => (
         <p key={a.id} className="mt-1 border-l-4 border-accent pl-2 text-sm">
