@@ -2,7 +2,7 @@ import { expect, test } from '@playwright/test';
 import { DEMO_PASSWORD, signIn, signOut } from './support';
 
 const everyone = ['Overview', 'Handover', 'Shift log', 'Standing orders', 'Rounds', 'Flags', 'Trends', 'Condenser check', 'Plant setup', 'My password'];
-const adminOnly = ['People', 'Audit trail'];
+const adminOnly = ['People', 'Shifts', 'Audit trail'];
 
 const roles = [
   { email: 'trainee.a@fernhollow.example', label: 'Trainee', admin: false },
@@ -88,4 +88,22 @@ test('an admin adds a person, who then signs in and must change the password', a
   await signIn(page, email, 'my own long passphrase');
   await expect(page.getByRole('heading', { name: 'Overview' })).toBeVisible();
   expect(DEMO_PASSWORD).not.toBe('my own long passphrase');
+});
+
+test('an admin sets the shift clock and records a one-off crew swap', async ({ page }) => {
+  await signIn(page, 'admin@fernhollow.example');
+  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Shifts' }).click();
+  const clock = page.getByRole('form', { name: 'Station clock and shifts' });
+  await clock.getByLabel('Time zone (IANA)').fill('Mars/Olympus');
+  await clock.getByRole('button', { name: 'Save' }).click();
+  await expect(clock.getByRole('alert')).toContainText('IANA');
+  await clock.getByLabel('Time zone (IANA)').fill('Europe/Berlin');
+  await clock.getByRole('button', { name: 'Save' }).click();
+  await expect(clock.getByText('Saved.')).toBeVisible();
+  const swap = page.getByRole('form', { name: 'One-off swap' });
+  await swap.getByLabel('Shift starting (local time of this device)').fill('2027-01-10T06:00');
+  await swap.getByLabel('Crew working it instead').selectOption({ label: 'Crew C' });
+  await swap.getByLabel('Reason').fill('Crew A on training');
+  await swap.getByRole('button', { name: 'Record swap' }).click();
+  await expect(swap.getByText('Swap recorded.')).toBeVisible();
 });

@@ -15,6 +15,7 @@ export const navigation: NavItem[] = [
   { to: '/import', label: 'Import', roles: ['operator', 'shift_lead', 'admin'] },
   { to: '/plant', label: 'Plant setup', roles: 'all' },
   { to: '/admin/people', label: 'People', roles: ['admin'] },
+  { to: '/admin/shifts', label: 'Shifts', roles: ['admin'] },
   { to: '/admin/audit', label: 'Audit trail', roles: ['admin'] },
   { to: '/account/password', label: 'My password', roles: 'all' },
 ];

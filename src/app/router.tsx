@@ -41,6 +41,7 @@ export function createAppRouter(queryClient: QueryClient) {
           element: <RequireRole roles={['admin']} />,
           children: [
             { path: 'people', lazy: async () => ({ Component: (await import('../features/admin-users/routes/users-page')).UsersPage }) },
+            { path: 'shifts', lazy: async () => ({ Component: (await import('../features/shifts/routes/shifts-page')).ShiftsPage }) },
             { path: 'audit', lazy: async () => ({ Component: (await import('../features/audit/routes/audit-page')).AuditPage }) },
           ],
         },

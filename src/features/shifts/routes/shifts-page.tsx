@@ -1,0 +1,147 @@
+import { useState } from 'react';
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { StationSettings } from '../../../../shared/schemas/log';
+import { useSelectedUnit } from '../../../components/readings/unit-picker';
+import { Notice } from '../../../components/ui/notice';
+import { ApiError, api } from '../../../lib/api-client';
+import { useCrews } from '../../overview/api/get-crews';
+
+const field = 'rounded-md border border-line bg-field px-2 py-1';
+const fieldsOf = (error: unknown) => (error instanceof ApiError ? Object.entries(error.fields).map(([k, v]) => `${k}: ${v}`).join('; ') || error.message : error instanceof Error ? error.message : '');
+
+/** Administrators: the station's clock and shift pattern, crew rotation and one-off swaps. */
+export function ShiftsPage() {
+  const { unit, unitId } = useSelectedUnit();
+  const stationId = unit?.stationId ?? null;
+  const queryClient = useQueryClient();
+  const crews = useCrews();
+  const shifts = useQuery({
+    queryKey: ['log', 'shifts', unitId],
+    queryFn: () => api.get<{ settings: StationSettings; shifts: { start: string; label: string }[] }>(`/api/units/${unitId}/log/shifts`),
+    enabled: unitId !== null,
+  });
+  const [timeZone, setTimeZone] = useState<string | null>(null);
+  const [times, setTimes] = useState<string | null>(null);
+  const [late, setLate] = useState<string | null>(null);
+  const [anchor, setAnchor] = useState('');
+  const [order, setOrder] = useState<number[]>([]);
+  const [swap, setSwap] = useState({ shiftStart: '', crewId: '', reason: '' });
+  const refresh = () => void queryClient.invalidateQueries();
+  const saveSettings = useMutation({
+    mutationFn: (settings: StationSettings) => api.put(`/api/stations/${stationId}/settings`, settings),
+    onSuccess: refresh,
+  });
+  const saveRotation = useMutation({ mutationFn: (body: { anchorShiftStart: string; crewIds: number[] }) => api.put(`/api/stations/${stationId}/crew-rotation`, body), onSuccess: refresh });
+  const addSwap = useMutation({ mutationFn: (body: { shiftStart: string; crewId: number; reason: string }) => api.post(`/api/stations/${stationId}/crew-swaps`, body), onSuccess: refresh });
+  const settings = shifts.data?.settings;
+  if (!settings) return <p className="text-muted">Loading…</p>;
+
+  return (
+    <section className="flex max-w-3xl flex-col gap-4">
+      <h1 className="text-2xl font-bold">Shifts and crews</h1>
+      <form
+        aria-label="Station clock and shifts"
+        className="flex flex-col gap-2 rounded-lg border border-line bg-panel p-3 text-sm"
+        onSubmit={(e) => {
+          e.preventDefault();
+          saveSettings.mutate({
+            ...settings,
+            timeZone: timeZone ?? settings.timeZone,
+            shiftChangeTimes: (times ?? settings.shiftChangeTimes.join(', ')).split(',').map((t) => t.trim()).filter(Boolean),
+            lateEntryMinutes: Number(late ?? settings.lateEntryMinutes),
+          });
+        }}
+      >
+        <h2 className="font-bold">Station clock and shifts</h2>
+        <label className="flex flex-col">
+          Time zone (IANA)
+          <input className={field} value={timeZone ?? settings.timeZone} onChange={(e) => setTimeZone(e.target.value)} />
+        </label>
+        <label className="flex flex-col">
+          Shift change times, local (e.g. 06:00, 18:00 for 12-hour shifts; 06:00, 14:00, 22:00 for 8-hour)
+          <input className={field} value={times ?? settings.shiftChangeTimes.join(', ')} onChange={(e) => setTimes(e.target.value)} />
+        </label>
+        <label className="flex flex-col">
+          Late entry after (minutes)
+          <input className={field} inputMode="numeric" value={late ?? String(settings.lateEntryMinutes)} onChange={(e) => setLate(e.target.value)} />
+        </label>
+        {saveSettings.error ? <Notice kind="error">{fieldsOf(saveSettings.error)}</Notice> : null}
+        {saveSettings.isSuccess ? <Notice kind="success">Saved.</Notice> : null}
+        <button type="submit" className="self-start rounded-md bg-accent px-3 py-1 font-bold text-on-accent">
+          Save
+        </button>
+      </form>
+
+      <form
+        aria-label="Crew rotation"
+        className="flex flex-col gap-2 rounded-lg border border-line bg-panel p-3 text-sm"
+        onSubmit={(e) => {
+          e.preventDefault();
+          saveRotation.mutate({ anchorShiftStart: anchor, crewIds: order });
+        }}
+      >
+        <h2 className="font-bold">Crew rotation</h2>
+        <p>Crews take the shifts in the order ticked, one shift each, starting with the chosen shift.</p>
+        <label className="flex flex-col">
+          First shift of the rotation
+          <select className={field} value={anchor} onChange={(e) => setAnchor(e.target.value)}>
+            <option value="">Choose…</option>
+            {shifts.data?.shifts.map((s) => (
+              <option key={s.start} value={s.start}>
+                {s.label}
+              </option>
+            ))}
+          </select>
+        </label>
+        <div className="flex flex-wrap gap-2">
+          {crews.data?.map((c) => (
+            <button key={c.id} type="button" className={`rounded-md border px-2 py-1 ${order.includes(c.id) ? 'border-accent font-bold' : 'border-line'}`} onClick={() => setOrder(order.includes(c.id) ? order.filter((x) => x !== c.id) : [...order, c.id])}>
+              Crew {c.name}
+              {order.includes(c.id) ? ` (#${order.indexOf(c.id) + 1})` : ''}
+            </button>
+          ))}
+        </div>
+        {saveRotation.error ? <Notice kind="error">{fieldsOf(saveRotation.error)}</Notice> : null}
+        {saveRotation.isSuccess ? <Notice kind="success">Rotation saved.</Notice> : null}
+        <button type="submit" className="self-start rounded-md bg-accent px-3 py-1 font-bold text-on-accent">
+          Save rotation
+        </button>
+      </form>
+
+      <form
+        aria-label="One-off swap"
+        className="flex flex-col gap-2 rounded-lg border border-line bg-panel p-3 text-sm"
+        onSubmit={(e) => {
+          e.preventDefault();
+          addSwap.mutate({ shiftStart: swap.shiftStart ? new Date(swap.shiftStart).toISOString() : '', crewId: Number(swap.crewId), reason: swap.reason });
+        }}
+      >
+        <h2 className="font-bold">One-off swap</h2>
+        <label className="flex flex-col">
+          Shift starting (local time of this device)
+          <input type="datetime-local" className={field} value={swap.shiftStart} onChange={(e) => setSwap({ ...swap, shiftStart: e.target.value })} />
+        </label>
+        <label className="flex flex-col">
+          Crew working it instead
+          <select className={field} value={swap.crewId} onChange={(e) => setSwap({ ...swap, crewId: e.target.value })}>
+            <option value="">Choose…</option>
+            {crews.data?.map((c) => (
+              <option key={c.id} value={c.id}>
+                Crew {c.name}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="flex flex-col">
+          Reason
+          <input className={field} value={swap.reason} onChange={(e) => setSwap({ ...swap, reason: e.target.value })} />
+        </label>
+        {addSwap.error ? <Notice kind="error">{fieldsOf(addSwap.error)}</Notice> : null}
+        {addSwap.isSuccess ? <Notice kind="success">Swap recorded.</Notice> : null}
+        <button type="submit" className="self-start rounded-md bg-accent px-3 py-1 font-bold text-on-accent">
+          Record swap
+        </button>
+      </form>
+    </section>
+  );
+}
