@@ -62,7 +62,9 @@ try {
 
   await step('typecheck', () => runLocal('tsc', ['-p', 'tsconfig.json', '--noEmit']));
   await step('lint', () => runLocal('eslint', ['.', '--max-warnings=0']));
-  await step('vitest (unit + integration)', () => runLocal('vitest', ['run'], { TEST_DATABASE_URL: integrationUrl }));
+  await step('vitest unit', () => runLocal('vitest', ['run', '--project', 'unit']));
+  // On its own, so nothing else competes with the shared database while its files run in turn.
+  await step('vitest integration', () => runLocal('vitest', ['run', '--project', 'integration'], { TEST_DATABASE_URL: integrationUrl }));
   await step('client build', () => runLocal('vite', ['build', '--logLevel', 'warn']));
   const { startMailCatcher } = await import('./lib/mail-catcher.mjs');
   mail = await startMailCatcher({ smtpPort: 0, viewerPort: 0 });

@@ -68,7 +68,8 @@ describe('shift handover', () => {
     // Nothing is acknowledged before submit; the outgoing crew submits.
     const board = (await agents.inOperator.get(`/api/handovers/${id}`)).body.board;
     const itemIds: number[] = board.items.map((i: { id: number }) => i.id);
-    await post(agents.inOperator, `/api/handover-items/${itemIds[0]}/acknowledge`).expect(409);
+    const beforeSubmit = await post(agents.inOperator, `/api/handover-items/${itemIds[0]}/acknowledge`);
+    expect(beforeSubmit.status, JSON.stringify(beforeSubmit.body)).toBe(409);
     await post(agents.inOperator, `/api/handovers/${id}/submit`).expect(403);
     await post(agents.outOperator, `/api/handovers/${id}/submit`).expect(200);
 
@@ -83,7 +84,8 @@ describe('shift handover', () => {
       await post(agents.inOperator, `/api/handover-items/${itemId}/acknowledge`).expect(201);
       await post(agents.inTrainee, `/api/handover-items/${itemId}/acknowledge`).expect(201);
     }
-    await post(agents.inOperator, `/api/handover-items/${itemIds[0]}/acknowledge`).expect(409);
+    const tooEarly = await post(agents.inOperator, `/api/handover-items/${itemIds[0]}/acknowledge`);
+    expect(tooEarly.status, JSON.stringify(tooEarly.body)).toBe(409);
     const query = await post(agents.inOperator, `/api/handover-items/${itemIds[0]}/queries`, { question: 'Is the TTD trend logged hourly?' });
     expect(query.status).toBe(201);
 
