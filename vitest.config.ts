@@ -2,6 +2,8 @@ import { defineConfig } from 'vitest/config';
 
 export default defineConfig({
   test: {
+    // Integration files share one database; they run one after another (unit files are quick).
+    fileParallelism: false,
     projects: [
       {
         test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node' },
