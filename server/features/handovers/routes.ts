@@ -28,7 +28,7 @@ export function handoverRoutes(sequelize: Sequelize, handovers: HandoverService)
     const change = await shiftChangeAt(unit.stationId);
     const handover = await handovers.current(req.user!, unitId);
     res.json({
-      shiftChange: { shiftStart: change.shiftStart.toISOString(), handoverAt: change.handoverAt.toISOString(), outgoingCrewId: change.outgoingCrewId, incomingCrewId: change.incomingCrewId },
+      shiftChange: { shiftStart: change.shiftStart.toISOString(), handoverAt: change.handoverAt.toISOString(), timeZone: change.settings.timeZone, outgoingCrewId: change.outgoingCrewId, incomingCrewId: change.incomingCrewId },
       board: handover ? await viewHandover(handover.id) : null,
     });
   });

@@ -36,7 +36,7 @@ export type Board = {
   waiting: string[];
 };
 export type CurrentHandover = {
-  shiftChange: { shiftStart: string; handoverAt: string; outgoingCrewId: number | null; incomingCrewId: number | null };
+  shiftChange: { shiftStart: string; handoverAt: string; timeZone: string; outgoingCrewId: number | null; incomingCrewId: number | null };
   board: Board | null;
 };
 

@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { Link } from 'react-router';
 import { format } from 'date-fns';
+import { stationLocalLabel } from '../../../../shared/shift-time';
 import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-picker';
 import { Notice } from '../../../components/ui/notice';
 import { usePresence, useWatchUnit } from '../../../app/use-live-updates';
@@ -37,14 +38,14 @@ export function HandoverPage() {
           <h1 className="text-2xl font-bold">Shift handover</h1>
           <p className="text-muted">
             {unit ? `${unit.name} · ` : ''}
-            {change ? `${crewName(change.outgoingCrewId)} hands over to ${crewName(change.incomingCrewId)} at ${stamp(change.handoverAt)}` : ''}
+            {change ? `${crewName(change.outgoingCrewId)} hands over to ${crewName(change.incomingCrewId)} at ${stationLocalLabel(new Date(change.handoverAt), change.timeZone)} (${change.timeZone})` : ''}
           </p>
         </div>
         <UnitPicker />
       </div>
       {viewing.length ? (
         <p className="text-sm" data-testid="viewing">
-          👁 Viewing now: {viewing.join(', ')}
+          Viewing now: {viewing.join(', ')}
         </p>
       ) : null}
       <aside className="rounded-md border border-watch bg-panel px-4 py-2 text-sm" aria-label="Caution">
