@@ -61,10 +61,3 @@ export function useFlagAction() {
     onSettled: () => void queryClient.invalidateQueries({ queryKey: flagKeys.all }),
   });
 }
-
-export const usePeople = () =>
-  useQuery({
-    queryKey: ['plant', 'people'],
-    queryFn: async () => (await api.get<{ people: { id: number; name: string; role: string }[] }>('/api/plant/people')).people,
-    staleTime: 5 * 60_000,
-  });

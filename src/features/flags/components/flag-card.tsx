@@ -4,13 +4,13 @@ import { Link } from 'react-router';
 import { defaultDisplayPreferences, displayQuantity } from '../../../../shared/display';
 import { StatusBadge } from '../../../components/ui/status-badge';
 import { Notice } from '../../../components/ui/notice';
-import { useFlagAction, usePeople, type FlagView } from '../api/flags';
+import { useFlagAction, type FlagView } from '../api/flags';
+import { PersonSelect } from '../../../components/people/person-select';
 
 const stamp = (iso: string) => format(new Date(iso), 'yyyy-MM-dd HH:mm');
 
 export function FlagCard({ flag, mayLead }: { flag: FlagView; mayLead: boolean }) {
   const action = useFlagAction();
-  const people = usePeople();
   const [mode, setMode] = useState<'none' | 'assign' | 'clear'>('none');
   const [text, setText] = useState('');
   const [assignee, setAssignee] = useState('');
@@ -77,18 +77,7 @@ export function FlagCard({ flag, mayLead }: { flag: FlagView; mayLead: boolean }
               }}
             >
               {mode === 'assign' ? (
-                <label className="flex flex-col text-sm">
-                  Who follows it up
-                  <select className="rounded-md border border-line bg-field px-2 py-1" value={assignee} onChange={(e) => setAssignee(e.target.value)}>
-                    <option value="">Choose…</option>
-                    {people.data?.map((p) => (
-                      <option key={p.id} value={p.id}>
-                        {p.name}
-                      </option>
-                    ))}
-                  </select>
-                  {fieldError.assignedTo ? <span className="text-alarm">⚠ {fieldError.assignedTo}</span> : null}
-                </label>
+                <PersonSelect label="Who follows it up" value={assignee} onChange={setAssignee} error={fieldError.assignedTo} />
               ) : null}
               <label className="flex flex-col text-sm">
                 {mode === 'assign' ? 'What to do' : 'Closing comment'}

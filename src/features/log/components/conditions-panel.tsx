@@ -2,7 +2,7 @@ import { useEffect, useState } from 'react';
 import { formatRemaining } from '../../../../shared/conditions';
 import { StatusBadge } from '../../../components/ui/status-badge';
 import { ApiError } from '../../../lib/api-client';
-import { usePeople } from '../../flags/api/flags';
+import { PersonSelect } from '../../../components/people/person-select';
 import { useCloseCondition, useConditions, useOpenCondition, type ConditionView } from '../api/log';
 
 const stateBadge = { running: 'normal', due_soon: 'watch', overdue: 'alarm', closed: 'unknown' } as const;
@@ -47,7 +47,6 @@ function CloseForm({ condition, position }: { condition: ConditionView; position
 
 function OpenForm({ unitId }: { unitId: number }) {
   const open = useOpenCondition(unitId);
-  const people = usePeople();
   const [title, setTitle] = useState('');
   const [action, setAction] = useState('');
   const [hours, setHours] = useState('72');
@@ -76,18 +75,7 @@ function OpenForm({ unitId }: { unitId: number }) {
         Time allowed (hours from now)
         <input inputMode="decimal" className="rounded-md border border-line bg-field px-2 py-1" value={hours} onChange={(e) => setHours(e.target.value)} />
       </label>
-      <label className="flex flex-col">
-        Owner
-        <select className="rounded-md border border-line bg-field px-2 py-1" value={owner} onChange={(e) => setOwner(e.target.value)}>
-          <option value="">Choose…</option>
-          {people.data?.map((p) => (
-            <option key={p.id} value={p.id}>
-              {p.name}
-            </option>
-          ))}
-        </select>
-        {fields.ownerId ? <span className="text-alarm">⚠ {fields.ownerId}</span> : null}
-      </label>
+      <PersonSelect label="Owner" value={owner} onChange={setOwner} error={fields.ownerId} />
       <button type="submit" className="rounded-md bg-accent px-3 py-1 font-bold text-on-accent sm:col-span-2">
         Open condition
       </button>
