@@ -7,6 +7,7 @@ import * as narrativeLog from './migrations/0004-narrative-log';
 import * as handovers from './migrations/0005-handovers';
 import * as notices from './migrations/0006-notices';
 import * as attachments from './migrations/0007-attachments';
+import * as trendIndex from './migrations/0008-trend-index';
 
 // Listed explicitly so the order is obvious and nothing depends on globbing at run time.
 const migrations = [
@@ -17,6 +18,7 @@ const migrations = [
   { name: '0005-handovers', ...handovers },
   { name: '0006-notices', ...notices },
   { name: '0007-attachments', ...attachments },
+  { name: '0008-trend-index', ...trendIndex },
 ];
 
 export function createMigrator(sequelize: Sequelize) {

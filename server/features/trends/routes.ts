@@ -18,19 +18,28 @@ export function trendRoutes(sequelize: Sequelize): Router {
     await requireUnit(unitId);
     const from = new Date(q.from);
     const to = new Date(q.to);
-    const series = await Promise.all(
-      q.parameters.map(async (parameter) => {
-        // Index range scan on (unit_id, parameter, taken_at).
-        const rows = await sequelize.query<Point>(
-          `SELECT taken_at AS t, value AS v, status AS s FROM reading_values
-           WHERE unit_id = ? AND parameter = ? AND taken_at BETWEEN ? AND ? ORDER BY taken_at`,
-          { replacements: [unitId, parameter, from, to], type: QueryTypes.SELECT },
-        );
-        return { parameter, points: rows.map((r) => ({ t: new Date(r.t).toISOString(), v: r.v, s: r.s })) };
+    // The series, the limit versions and the flags are independent reads: run them together.
+    const [series, versions, flags] = await Promise.all([
+      Promise.all(
+        q.parameters.map(async (parameter) => {
+          // Index-only range scan on (unit_id, parameter, taken_at, value, status).
+          const rows = await sequelize.query<Point>(
+            `SELECT taken_at AS t, value AS v, status AS s FROM reading_values
+             WHERE unit_id = ? AND parameter = ? AND taken_at BETWEEN ? AND ? ORDER BY taken_at`,
+            { replacements: [unitId, parameter, from, to], type: QueryTypes.SELECT },
+          );
+          // Times as epoch milliseconds: a third of the bytes of ISO strings, and what charts plot.
+          return { parameter, points: rows.map((r) => ({ t: new Date(r.t).getTime(), v: r.v, s: r.s })) };
+        }),
+      ),
+      LimitSetVersion.findAll({ where: { unitId, effectiveFrom: { [Op.lte]: to } }, order: [['effectiveFrom', 'ASC'], ['id', 'ASC']] }),
+      Flag.findAll({
+        where: { unitId, parameter: q.parameters, raisedAt: { [Op.lte]: to }, [Op.or]: [{ clearedAt: null }, { clearedAt: { [Op.gte]: from } }] },
+        order: [['raisedAt', 'ASC']],
+        limit: 500,
       }),
-    );
+    ]);
     // Limit versions: the one in force at `from` and every one that starts inside the range.
-    const versions = await LimitSetVersion.findAll({ where: { unitId, effectiveFrom: { [Op.lte]: to } }, order: [['effectiveFrom', 'ASC'], ['id', 'ASC']] });
     const bands = versions
       .map((v, i) => ({ from: v.effectiveFrom, to: versions[i + 1]?.effectiveFrom ?? to, limits: v.limits }))
       .filter((b) => b.to >= from)
@@ -39,11 +48,6 @@ export function trendRoutes(sequelize: Sequelize): Router {
         to: b.to.toISOString(),
         bands: Object.fromEntries(q.parameters.map((p) => [p, b.limits[p] ?? null])),
       }));
-    const flags = await Flag.findAll({
-      where: { unitId, parameter: q.parameters, raisedAt: { [Op.lte]: to }, [Op.or]: [{ clearedAt: null }, { clearedAt: { [Op.gte]: from } }] },
-      order: [['raisedAt', 'ASC']],
-      limit: 500,
-    });
     res.json({
       series,
       limitBands: bands,

@@ -3,7 +3,8 @@ import type { LimitBand, Status } from '../../../../shared/calc/limits';
 import { api } from '../../../lib/api-client';
 
 export type TrendResponse = {
-  series: { parameter: string; points: { t: string; v: number; s: Status }[] }[];
+  /** t: epoch milliseconds (UTC) */
+  series: { parameter: string; points: { t: number; v: number; s: Status }[] }[];
   limitBands: { from: string; to: string; bands: Record<string, LimitBand | null> }[];
   flags: { id: number; parameter: string; severity: 'watch' | 'alarm'; status: string; origin: string; raisedAt: string; clearedAt: string | null }[];
 };

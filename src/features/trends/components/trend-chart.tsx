@@ -16,7 +16,7 @@ export function toRows(data: TrendResponse, prefs: DisplayPreferences): { rows: 
   for (const series of data.series) {
     const quantity = checkCatalog[series.parameter as CheckKey].quantity;
     for (const p of series.points) {
-      const t = Date.parse(p.t);
+      const t = p.t;
       const shown = convertForDisplay(p.v, quantity, prefs);
       unit = shown.unit;
       const row = byTime.get(t) ?? ({ t } as ChartRow);

@@ -42,7 +42,7 @@ export function TrendsPage() {
     const rows = trend.data.series.flatMap((s) =>
       s.points.map((p) => {
         const shown = convertForDisplay(p.v, checkCatalog[s.parameter as CheckKey].quantity, prefs);
-        return { time_utc: p.t, parameter: s.parameter, value: shown.value, unit: shown.unit, status: p.s };
+        return { time_utc: new Date(p.t).toISOString(), parameter: s.parameter, value: shown.value, unit: shown.unit, status: p.s };
       }),
     );
     const blob = new Blob([Papa.unparse(rows)], { type: 'text/csv;charset=utf-8' });
