@@ -1,10 +1,10 @@
 import { useState } from 'react';
 import { tubeGauges, tubeMaterials } from '../../../../shared/calc/hei';
 import type { UnitDesign } from '../../../../shared/schemas/plant';
-import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { ApiError } from '../../../lib/api-client';
 import { useChangeSetup } from '../api/setup';
+import { SaveVersion } from './save-version';
 
 // Each box: its label, unit, and the conversion between what is typed and SI.
 type Spec = { key: keyof UnitDesign; label: string; unit: string; toSi?: (v: number) => number; fromSi?: (v: number) => number; optional?: boolean };
@@ -136,20 +136,7 @@ export function DesignForm({ unitId, design, editable }: { unitId: number; desig
           {fields['design.backpressureCorrection'] ? <span role="alert" className="text-alarm">⚠ {fields['design.backpressureCorrection']}</span> : null}
         </div>
       </fieldset>
-      {editable ? (
-        <>
-          <label className="flex flex-col text-sm">
-            What changed and why
-            <input className="rounded-md border border-line bg-field px-2 py-1" value={note} onChange={(e) => setNote(e.target.value)} />
-            {fields.note ? <span role="alert" className="text-alarm">⚠ {fields.note}</span> : null}
-          </label>
-          <Button type="submit" disabled={change.isPending}>
-            Save as a new version
-          </Button>
-        </>
-      ) : (
-        <p className="text-sm text-muted">Only an administrator changes design data.</p>
-      )}
+      <SaveVersion editable={editable} note={note} onNote={setNote} error={fields.note} pending={change.isPending} saveLabel="Save as a new version" readOnlyText="Only an administrator changes design data." />
     </form>
   );
 }

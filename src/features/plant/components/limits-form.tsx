@@ -2,10 +2,10 @@ import { useState } from 'react';
 import { checkCatalog, checkKeys, type CheckKey } from '../../../../shared/calc/check-catalog';
 import type { LimitBand, LimitSet } from '../../../../shared/calc/limits';
 import { convertForDisplay, defaultDisplayPreferences } from '../../../../shared/display';
-import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { ApiError } from '../../../lib/api-client';
 import { useChangeSetup } from '../api/setup';
+import { SaveVersion } from './save-version';
 
 const bandKeys = ['lowAlarm', 'lowWatch', 'highWatch', 'highAlarm'] as const;
 const prefs = { ...defaultDisplayPreferences, currency: 'money' };
@@ -90,20 +90,7 @@ export function LimitsForm({ unitId, limits, editable }: { unitId: number; limit
           </tbody>
         </table>
       </div>
-      {editable ? (
-        <>
-          <label className="flex flex-col text-sm">
-            What changed and why
-            <input className="rounded-md border border-line bg-field px-2 py-1" value={note} onChange={(e) => setNote(e.target.value)} />
-            {fields.note ? <span role="alert" className="text-alarm">⚠ {fields.note}</span> : null}
-          </label>
-          <Button type="submit" disabled={change.isPending}>
-            Save limits as a new version
-          </Button>
-        </>
-      ) : (
-        <p className="text-sm text-muted">Only an administrator changes limits.</p>
-      )}
+      <SaveVersion editable={editable} note={note} onNote={setNote} error={fields.note} pending={change.isPending} saveLabel="Save limits as a new version" readOnlyText="Only an administrator changes limits." />
     </form>
   );
 }
