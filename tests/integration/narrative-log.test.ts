@@ -1,6 +1,6 @@
 import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from 'vitest';
 import { LogEntry } from '../../server/features/log/model';
-import { buildApp, closeAll, makeCrew, makeUnit, makeUser, signedInAgent, anonymousAgent, type Agent } from './support/test-app';
+import { buildApp, closeAll, makeCrew, makeStation, makeUnit, makeUser, signedInAgent, anonymousAgent, type Agent } from './support/test-app';
 import type { Role } from '../../shared/roles';
 
 afterAll(closeAll);
@@ -230,5 +230,30 @@ describe('station settings', () => {
     expect(bad.status).toBe(400);
     expect(bad.body.error.fields.timeZone).toMatch(/IANA/);
     await admin.put(`/api/stations/${stationId}/settings`).set('X-CSRF-Token', admin.csrf).send({ ...settings, lateEntryMinutes: 20 }).expect(200);
+  });
+});
+
+describe('standing-order prompt during the person’s shift', () => {
+  it('prompts a crew member only while their crew is on shift under the station’s rotation', async () => {
+    const { station, crews } = await makeStation(2);
+    const [onShift, offShift] = crews as [(typeof crews)[0], (typeof crews)[0]];
+    const admin = await signedInAgent(built, (await makeUser('admin')).email);
+    const unitId = (await admin.get('/api/plant/units').expect(200)).body.units.find((u: { stationId: number }) => u.stationId === station.id).id;
+    const shifts = await admin.get(`/api/units/${unitId}/log/shifts`).expect(200);
+    await admin.put(`/api/stations/${station.id}/crew-rotation`).set('X-CSRF-Token', admin.csrf).send({ anchorShiftStart: shifts.body.shifts[0].start, crewIds: [onShift.id, offShift.id] }).expect(200);
+    const issuer = await signedInAgent(built, (await makeUser('shift_lead')).email);
+    const order = await post(issuer, `/api/standing-orders?stationId=${station.id}`, {
+      title: 'Check the hotwell level glass each round',
+      bodyHtml: '<p>Compare with the transmitter.</p>',
+      effectiveFrom: new Date(Date.now() - 60_000).toISOString(),
+      crewIds: [onShift.id, offShift.id],
+    });
+    expect(order.status).toBe(201);
+    const working = await signedInAgent(built, (await makeUser('operator', { crewId: onShift.id })).email);
+    const resting = await signedInAgent(built, (await makeUser('operator', { crewId: offShift.id })).email);
+    expect((await working.get('/api/me/pending-orders')).body.orders.map((o: { id: number }) => o.id)).toContain(order.body.order.id);
+    expect((await resting.get('/api/me/pending-orders')).body.orders.map((o: { id: number }) => o.id)).not.toContain(order.body.order.id);
+    // Off shift they can still read and acknowledge it on the orders page.
+    await post(resting, `/api/standing-orders/${order.body.order.id}/acknowledge`).expect(201);
   });
 });

@@ -6,6 +6,7 @@ import { Conflict, Forbidden, NotFound, ValidationError } from '../../lib/errors
 import type { RealtimeHub } from '../../lib/realtime';
 import { Crew } from '../plant/model';
 import { User } from '../users/model';
+import { shiftChangeAt } from '../shifts/crews';
 import { StandingOrder, StandingOrderAck } from './model';
 
 const inScopeRoles = ['trainee', 'operator', 'shift_lead'] as const;
@@ -115,12 +116,22 @@ export async function presentOrder(order: StandingOrder, withPeople: boolean) {
   };
 }
 
-/** Orders in force that ask this person to acknowledge and that they have not yet. */
+/**
+ * Orders in force that ask this person to acknowledge and that they have not yet — prompted while
+ * their crew is on shift (always, where the station has no crew rotation or they have no crew).
+ */
 export async function pendingFor(userId: number) {
   const person = await User.findByPk(userId);
   if (!person) return [];
   const now = new Date();
   const orders = await StandingOrder.findAll({ where: { effectiveFrom: { [Op.lte]: now }, [Op.or]: [{ effectiveTo: null }, { effectiveTo: { [Op.gt]: now } }] } });
   const acked = new Set((await StandingOrderAck.findAll({ where: { userId, orderId: orders.map((o) => o.id) } })).map((a) => a.orderId));
-  return orders.filter((o) => inScope(o, person) && !acked.has(o.id)).map((o) => ({ id: o.id, title: o.title, bodyHtml: o.bodyHtml, effectiveFrom: o.effectiveFrom.toISOString() }));
+  const onShift = new Map<number, boolean>();
+  for (const stationId of new Set(orders.map((o) => o.stationId))) {
+    const crewNow = person.crewId === null ? null : (await shiftChangeAt(stationId, now)).outgoingCrewId;
+    onShift.set(stationId, crewNow === null || crewNow === person.crewId);
+  }
+  return orders
+    .filter((o) => inScope(o, person) && !acked.has(o.id) && onShift.get(o.stationId))
+    .map((o) => ({ id: o.id, title: o.title, bodyHtml: o.bodyHtml, effectiveFrom: o.effectiveFrom.toISOString() }));
 }
