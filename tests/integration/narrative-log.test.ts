@@ -254,6 +254,6 @@ describe('standing-order prompt during the person’s shift', () => {
     expect((await working.get('/api/me/pending-orders')).body.orders.map((o: { id: number }) => o.id)).toContain(order.body.order.id);
     expect((await resting.get('/api/me/pending-orders')).body.orders.map((o: { id: number }) => o.id)).not.toContain(order.body.order.id);
     // Off shift they can still read and acknowledge it on the orders page.
-    await post(resting, `/api/standing-orders/${order.body.order.id}/acknowledge`).expect(201);
+    await post(resting, `/api/standing-orders/${order.body.order.id}/acknowledge`, {}).expect(201);
   });
 });
