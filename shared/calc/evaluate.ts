@@ -5,6 +5,7 @@ import { backpressureDeviationCost, expectedBackpressure, type CorrectionCurve }
 import { checkCatalog, checkKeys, siUnitOf, type CheckKey, type Quantity } from './check-catalog';
 import { langelierIndex, ryznarIndex, type WaterSample } from './chemistry';
 import {
+  cwFlowFromDuty,
   cwTemperatureRise,
   heatDuty,
   initialTemperatureDifference,
@@ -144,7 +145,7 @@ export function evaluateReadingSet(reading: ReadingSetSi, design: CondenserDesig
   const u = compute('overallU', () => overallU(need(duty, 'the duty'), design.surfaceAreaM2, need(lmtd, 'the LMTD')));
 
   // With only the steam side known, the CW flow follows from duty and rise.
-  const cwFlow = reading.cwFlowKgS ?? (duty !== null && rise !== null ? duty / (4180 * rise) : null);
+  const cwFlow = reading.cwFlowKgS ?? (duty !== null && rise !== null ? cwFlowFromDuty(duty, rise) : null);
   compute('cwFlow', () => optional(reading.cwFlowKgS), 'not measured');
   const density = waterDensity(Math.min(Math.max(reading.cwInletK, 273.15), 373.15));
   const velocity = compute('tubeVelocity', () => tubeVelocity(

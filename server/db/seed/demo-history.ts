@@ -4,7 +4,7 @@ import type { Sequelize } from 'sequelize';
 import { expectedBackpressure } from '../../../shared/calc/backpressure';
 import type { UnitDesign } from '../../../shared/schemas/plant';
 import { cleanUHei, tubeVelocity } from '../../../shared/calc/hei';
-import { waterDensity } from '../../../shared/calc/water';
+import { WATER_CP, waterDensity } from '../../../shared/calc/water';
 import type { ReadingSetInput } from '../../../shared/schemas/reading-set';
 import { convertReadingSet } from '../../lib/convert-readings';
 import { ReadingSet } from '../../features/readings/model';
@@ -29,7 +29,7 @@ export function demoRound(design: UnitDesign, hour: number, fouling: boolean, ne
   const velocity = tubeVelocity({ tubeOdMm: design.tubeOdMm, gaugeBwg: design.tubeGaugeBwg, tubeCount: design.tubeCount, passes: design.passes }, flowKgS, waterDensity(inletK));
   const u = cleanUHei({ tubeOdMm: design.tubeOdMm, gaugeBwg: design.tubeGaugeBwg, material: design.tubeMaterial, velocityMS: velocity, inletK }) * cleanliness;
   const expected = expectedBackpressure({ uWM2K: u, surfaceAreaM2: design.surfaceAreaM2, cwFlowKgS: flowKgS, cwInletK: inletK, dutyW });
-  const riseK = dutyW / (flowKgS * 4180);
+  const riseK = dutyW / (flowKgS * WATER_CP);
   const round1 = (v: number, d = 1) => Math.round(v * 10 ** d) / 10 ** d;
   return {
     takenAtOffsetH: hour,
