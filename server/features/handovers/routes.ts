@@ -7,11 +7,9 @@ import { NotFound, ValidationError } from '../../lib/errors';
 import { parseId, parseInput } from '../../lib/validate';
 import { Crew, Station } from '../plant/model';
 import { CrewSwap } from '../shifts/model';
-import { shiftChangeAt } from '../shifts/crews';
 import { StationSettingsRow } from '../stations/model';
 import { defaultStationSettings } from '../stations/settings';
 import { viewHandover, type HandoverService } from './service';
-import { PlantUnit } from '../plant/model';
 import { shiftStartFor } from '../../../shared/shift-time';
 import { settingsForStation } from '../stations/settings';
 
@@ -22,11 +20,7 @@ export function handoverRoutes(sequelize: Sequelize, handovers: HandoverService)
   const router = Router();
 
   router.get('/units/:unitId/handovers/current', signedIn, async (req, res) => {
-    const unitId = parseId(req.params.unitId, 'unitId');
-    const unit = await PlantUnit.findByPk(unitId);
-    if (!unit) throw new NotFound('That unit');
-    const change = await shiftChangeAt(unit.stationId);
-    const handover = await handovers.current(req.user!, unitId);
+    const { change, handover } = await handovers.current(req.user!, parseId(req.params.unitId, 'unitId'));
     res.json({
       shiftChange: { shiftStart: change.shiftStart.toISOString(), handoverAt: change.handoverAt.toISOString(), timeZone: change.settings.timeZone, outgoingCrewId: change.outgoingCrewId, incomingCrewId: change.incomingCrewId },
       board: handover ? await viewHandover(handover.id) : null,

@@ -37,18 +37,18 @@ async function handoverOfItem(itemId: number) {
 export function makeHandoverService(sequelize: Sequelize, realtime: RealtimeHub, notices: Notices) {
   const changed = (h: Handover) => realtime.toUnit(h.unitId, { entity: 'handover', id: h.id });
 
-  /** The handover of the shift in progress; created as a draft when an outgoing writer opens it. */
-  async function current(actor: Actor, unitId: number): Promise<Handover | null> {
+  /** The shift change in progress and its handover; created as a draft when an outgoing writer opens it. */
+  async function current(actor: Actor, unitId: number): Promise<{ change: Awaited<ReturnType<typeof shiftChangeAt>>; handover: Handover | null }> {
     const unit = await PlantUnit.findByPk(unitId);
     if (!unit) throw new NotFound('That unit');
     const change = await shiftChangeAt(unit.stationId);
     const existing = await Handover.findOne({ where: { unitId, shiftStart: change.shiftStart } });
     if (existing) {
       if (existing.status === 'draft') await sequelize.transaction((t) => syncAutomaticItems(existing, actor.id, t));
-      return existing;
+      return { change, handover: existing };
     }
     const mayStart = change.outgoingCrewId !== null && actor.crewId === change.outgoingCrewId && ['operator', 'shift_lead'].includes(actor.role);
-    if (!mayStart) return null;
+    if (!mayStart) return { change, handover: null };
     const created = await sequelize.transaction(async (transaction) => {
       const h = await Handover.create(
         {
@@ -72,7 +72,7 @@ export function makeHandoverService(sequelize: Sequelize, realtime: RealtimeHub,
       return h;
     });
     changed(created);
-    return created;
+    return { change, handover: created };
   }
 
   /** Saves the draft notes under a version check; a stale save gets 409 with the stored text. */

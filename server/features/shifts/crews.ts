@@ -2,7 +2,7 @@
 // anchor shift), unless a one-off swap says otherwise.
 import { nextShiftStart, shiftStartFor } from '../../../shared/shift-time';
 import { StationSettingsRow } from '../stations/model';
-import { settingsForStation } from '../stations/settings';
+import { defaultStationSettings, settingsFromRow } from '../stations/settings';
 import { CrewSwap } from './model';
 
 export type CrewRotation = { anchorShiftStart: string; crewIds: number[] };
@@ -13,23 +13,24 @@ export function shiftIndex(anchor: Date, shiftStart: Date, changesPerDay: number
   return Math.round((shiftStart.getTime() - anchor.getTime()) / (86_400_000 / changesPerDay));
 }
 
-export async function crewOnShift(stationId: number, shiftStart: Date): Promise<number | null> {
+/** The crew of the shift starting at `shiftStart`, from a swap or the rotation (null without one). */
+export async function crewOnShift(stationId: number, shiftStart: Date, rotation: CrewRotation | null, changesPerDay: number): Promise<number | null> {
   const swap = await CrewSwap.findOne({ where: { stationId, shiftStart } });
   if (swap) return swap.crewId;
-  const row = await StationSettingsRow.findByPk(stationId);
-  const rotation: CrewRotation | null | undefined = row?.crewRotation;
   if (!rotation || rotation.crewIds.length === 0) return null;
-  const settings = await settingsForStation(stationId);
-  const index = shiftIndex(new Date(rotation.anchorShiftStart), shiftStart, settings.shiftChangeTimes.length);
+  const index = shiftIndex(new Date(rotation.anchorShiftStart), shiftStart, changesPerDay);
   const n = rotation.crewIds.length;
   return rotation.crewIds[((index % n) + n) % n]!;
 }
 
-/** The shift in progress at `at`, the one after it, and the crews of both. */
+/** The shift in progress at `at`, the one after it, and the crews of both. Reads the settings once. */
 export async function shiftChangeAt(stationId: number, at = new Date()) {
-  const settings = await settingsForStation(stationId);
+  const row = await StationSettingsRow.findByPk(stationId);
+  const settings = row ? { ...defaultStationSettings, ...settingsFromRow(row) } : defaultStationSettings;
   const current = shiftStartFor(at, settings.timeZone, settings.shiftChangeTimes);
   const next = nextShiftStart(current, settings.timeZone, settings.shiftChangeTimes);
-  const [outgoingCrewId, incomingCrewId] = await Promise.all([crewOnShift(stationId, current), crewOnShift(stationId, next)]);
+  const rotation = row?.crewRotation ?? null;
+  const perDay = settings.shiftChangeTimes.length;
+  const [outgoingCrewId, incomingCrewId] = await Promise.all([crewOnShift(stationId, current, rotation, perDay), crewOnShift(stationId, next, rotation, perDay)]);
   return { settings, shiftStart: current, handoverAt: next, outgoingCrewId, incomingCrewId };
 }

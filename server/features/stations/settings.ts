@@ -33,7 +33,10 @@ export const defaultStationSettings: StationSettings = {
 
 export async function settingsForStation(stationId: number, transaction?: Transaction): Promise<StationSettings> {
   const row = await StationSettingsRow.findByPk(stationId, { transaction });
-  if (!row) return defaultStationSettings;
+  return row ? settingsFromRow(row) : defaultStationSettings;
+}
+
+export function settingsFromRow(row: StationSettingsRow): StationSettings {
   return {
     timeZone: row.timeZone,
     lateEntryMinutes: row.lateEntryMinutes,
