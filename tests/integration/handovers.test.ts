@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Role } from '../../shared/roles';
+import { Handover } from '../../server/features/handovers/model';
 import { anonymousAgent, buildApp, closeAll, makeStation, makeUser, signedInAgent, type Agent } from './support/test-app';
 
 afterAll(closeAll);
@@ -10,6 +11,24 @@ let unitId = 0;
 const agents = {} as Record<'outOperator' | 'outLead' | 'inOperator' | 'inLead' | 'inTrainee' | 'admin', Agent>;
 
 beforeAll(async () => {
+  // Another station's handover exists first, so a lookup that ignores the item would find it.
+  const decoy = await makeStation(2);
+  const decoyOwner = await makeUser('operator', { crewId: decoy.crews[0]!.id });
+  await Handover.create({
+    unitId: decoy.unit.id,
+    shiftStart: new Date('2026-01-01T05:00:00Z'),
+    handoverAt: new Date('2026-01-01T17:00:00Z'),
+    outgoingCrewId: decoy.crews[0]!.id,
+    incomingCrewId: decoy.crews[1]!.id,
+    notesHtml: '',
+    status: 'submitted',
+    createdBy: decoyOwner.id,
+    createdAt: new Date(),
+    submittedBy: decoyOwner.id,
+    submittedAt: new Date(),
+    acceptedBy: null,
+    acceptedAt: null,
+  });
   const { station, unit, crews } = await makeStation(2);
   unitId = unit.id;
   const [a, b] = crews as [(typeof crews)[0], (typeof crews)[0]];

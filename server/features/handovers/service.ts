@@ -1,7 +1,7 @@
 // Shift handover: the outgoing crew writes (notes and items) and submits; the incoming crew
 // acknowledges each item or queries it; the incoming shift lead accepts, and that moment is the
 // recorded turnover. After submit nothing is edited: corrections are amendments.
-import { UniqueConstraintError, literal as sequelizeLiteral, type Sequelize } from 'sequelize';
+import { Op, UniqueConstraintError, literal as sequelizeLiteral, type Sequelize } from 'sequelize';
 import { recordAudit } from '../../lib/audit';
 import { sanitizeRichText } from '../../lib/rich-text';
 import { Conflict, Forbidden, HttpError, NotFound, ValidationError } from '../../lib/errors';
@@ -29,7 +29,7 @@ function requireWriter(actor: Actor, h: Handover) {
 
 async function handoverOfItem(itemId: number) {
   // One round trip: this sits on the acknowledgement path every open board waits on.
-  const handover = await Handover.findOne({ where: { id: sequelizeLiteral(`(SELECT handover_id FROM handover_items WHERE id = ${Number(itemId)})`) } });
+  const handover = await Handover.findOne({ where: { id: { [Op.eq]: sequelizeLiteral(`(SELECT handover_id FROM handover_items WHERE id = ${Number(itemId)})`) } } });
   if (!handover) throw new NotFound('That handover item');
   return { handover };
 }
