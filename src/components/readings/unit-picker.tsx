@@ -4,7 +4,7 @@ import { api } from '../../lib/api-client';
 
 export type UnitSummary = { id: number; code: string; name: string; stationId: number; station: string };
 export const unitsQueryKey = ['plant', 'units'] as const;
-const useUnitList = () =>
+export const useUnitList = () =>
   useQuery({ queryKey: unitsQueryKey, queryFn: async () => (await api.get<{ units: UnitSummary[] }>('/api/plant/units')).units, staleTime: 5 * 60_000 });
 
 /** The unit a page shows, kept in the address (?unit=) so a link or reload keeps it. */

@@ -6,7 +6,7 @@ import { SelectField, TextField } from '../../../components/ui/form-field';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { applyServerErrors } from '../../../lib/form-errors';
-import type { CrewSummary } from '../../overview/api/get-crews';
+import type { CrewSummary } from '../../../components/plant/crews';
 import { useChangeUser } from '../api/change-user';
 
 export function CreateUserForm({ crews }: { crews: CrewSummary[] }) {

@@ -1,6 +1,6 @@
 import type { PublicUser } from '../../../../shared/schemas/auth';
 import { roleLabels, roles, type Role } from '../../../../shared/roles';
-import type { CrewSummary } from '../../overview/api/get-crews';
+import type { CrewSummary } from '../../../components/plant/crews';
 import { useChangeUser } from '../api/change-user';
 
 type Props = { user: PublicUser; crews: CrewSummary[]; isSelf: boolean; onError: (message: string) => void };

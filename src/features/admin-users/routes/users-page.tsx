@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { Notice } from '../../../components/ui/notice';
 import { useMe } from '../../session/api/get-me';
-import { useCrews } from '../../overview/api/get-crews';
+import { useCrews } from '../../../components/plant/crews';
 import { useUsers } from '../api/get-users';
 import { CreateUserForm } from '../components/create-user-form';
 import { UserRow } from '../components/user-row';

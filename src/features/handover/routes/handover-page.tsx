@@ -5,7 +5,7 @@ import { stationLocalLabel } from '../../../../shared/shift-time';
 import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-picker';
 import { Notice } from '../../../components/ui/notice';
 import { usePresence, useWatchUnit } from '../../../app/use-live-updates';
-import { useCrews } from '../../overview/api/get-crews';
+import { useCrews } from '../../../components/plant/crews';
 import { useMe } from '../../session/api/get-me';
 import { useCurrentHandover, useHandoverAction } from '../api/handover';
 import { AddItemForm } from '../components/add-item-form';

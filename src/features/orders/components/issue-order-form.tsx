@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { RichTextEditor } from '../../../components/ui/rich-text-editor';
 import { Notice } from '../../../components/ui/notice';
 import { ApiError } from '../../../lib/api-client';
-import { useCrews } from '../../overview/api/get-crews';
+import { useCrews } from '../../../components/plant/crews';
 import { useIssueOrder } from '../api/orders';
 
 const field = 'rounded-md border border-line bg-field px-2 py-1';

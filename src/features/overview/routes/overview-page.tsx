@@ -2,11 +2,11 @@ import { Link } from 'react-router';
 import { roleLabels } from '../../../../shared/roles';
 import { CautionNote, Notice } from '../../../components/ui/notice';
 import { useMe } from '../../session/api/get-me';
-import { useUnits } from '../api/get-units';
+import { useUnitList } from '../../../components/readings/unit-picker';
 
 export function OverviewPage() {
   const { data: me } = useMe();
-  const units = useUnits();
+  const units = useUnitList();
   return (
     <section className="flex flex-col gap-6">
       <div>

@@ -4,7 +4,7 @@ import type { StationSettings } from '../../../../shared/schemas/log';
 import { useSelectedUnit } from '../../../components/readings/unit-picker';
 import { Notice } from '../../../components/ui/notice';
 import { ApiError, api } from '../../../lib/api-client';
-import { useCrews } from '../../overview/api/get-crews';
+import { useCrews } from '../../../components/plant/crews';
 
 const field = 'rounded-md border border-line bg-field px-2 py-1';
 const fieldsOf = (error: unknown) => (error instanceof ApiError ? Object.entries(error.fields).map(([k, v]) => `${k}: ${v}`).join('; ') || error.message : error instanceof Error ? error.message : '');
