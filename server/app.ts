@@ -2,12 +2,12 @@
 import express, { type RequestHandler } from 'express';
 import session from 'express-session';
 import helmet from 'helmet';
-import ConnectSessionSequelize from 'connect-session-sequelize';
 import { csrfSync } from 'csrf-sync';
 import path from 'node:path';
 import type { Sequelize } from 'sequelize';
 import type { AppConfig } from './config';
 import { configurePassport } from './lib/auth';
+import { createSessionStore } from './lib/session-store';
 import { NotFound, errorMiddleware } from './lib/errors';
 import { sessionRoutes } from './features/session/routes';
 import { adminUserRoutes } from './features/users/routes';
@@ -37,7 +37,6 @@ import { createMailer } from './lib/mailer';
 import { storageFromEnv, type Storage } from './lib/storage';
 import { attachmentRoutes } from './features/handovers/attachments';
 
-const SequelizeStore = ConnectSessionSequelize(session.Store);
 
 export type BuiltApp = {
   app: express.Express;
@@ -71,15 +70,7 @@ export function createApp(
   );
   app.use(express.json({ limit: '1mb' }));
 
-  const store = new SequelizeStore({
-    db: sequelize,
-    table: 'Session',
-    extendDefaultFields: (defaults: { data: string; expires: Date }, sess: { passport?: { user?: number } }) => ({
-      data: defaults.data,
-      expires: defaults.expires,
-      userId: sess.passport?.user ?? null,
-    }),
-  });
+  const store = createSessionStore(sequelize);
   const sessionMiddleware = session({
     name: 'hotwell.sid',
     secret: config.sessionSecret,

@@ -42,14 +42,14 @@ export async function verifyCredentials(email: string, password: string): Promis
   return ok && user.active ? user : null;
 }
 
-function toSessionUser(user: User): Express.User {
+function toSessionUser(user: Pick<User, 'id' | 'name' | 'email' | 'role' | 'crewId' | 'mustChangePassword'>): Express.User {
   return {
     id: user.id,
     name: user.name,
     email: user.email,
     role: user.role,
     crewId: user.crewId,
-    mustChangePassword: user.mustChangePassword,
+    mustChangePassword: Boolean(user.mustChangePassword), // a plain row carries MariaDB's 0/1
   };
 }
 
@@ -62,9 +62,10 @@ export function configurePassport() {
     }),
   );
   passport.serializeUser((user, done) => done(null, user.id));
-  // Loaded fresh on every request so a role change or deactivation applies at once.
+  // Loaded fresh on every request so a role change or deactivation applies at once; a plain row
+  // (no model instance) because every request pays for it.
   passport.deserializeUser((id: number, done) => {
-    User.findByPk(id)
+    User.findByPk(id, { raw: true, attributes: ['id', 'name', 'email', 'role', 'crewId', 'mustChangePassword', 'active'] })
       .then((user) => done(null, user && user.active ? toSessionUser(user) : false))
       .catch(done);
   });

@@ -8,6 +8,7 @@ const built = buildApp();
 const post = (agent: Agent, path: string, body: unknown = {}) => agent.post(path).set('X-CSRF-Token', agent.csrf).send(body as object);
 
 let unitId = 0;
+let joinIncomingCrew: () => Promise<Agent>;
 const agents = {} as Record<'outOperator' | 'outLead' | 'inOperator' | 'inLead' | 'inTrainee' | 'admin', Agent>;
 
 beforeAll(async () => {
@@ -39,6 +40,7 @@ beforeAll(async () => {
   agents.inLead = await person('shift_lead', b.id);
   agents.inTrainee = await person('trainee', b.id);
   agents.admin = await person('admin', null);
+  joinIncomingCrew = async () => person('operator', b.id);
   // Crew A works the shift in progress, crew B the next one.
   const shifts = await agents.admin.get(`/api/units/${unitId}/log/shifts`).expect(200);
   await agents.admin
@@ -103,8 +105,9 @@ describe('shift handover', () => {
       await post(agents.inOperator, `/api/handover-items/${itemId}/acknowledge`).expect(201);
       await post(agents.inTrainee, `/api/handover-items/${itemId}/acknowledge`).expect(201);
     }
-    const tooEarly = await post(agents.inOperator, `/api/handover-items/${itemIds[0]}/acknowledge`);
-    expect(tooEarly.status, JSON.stringify(tooEarly.body)).toBe(409);
+    const twice = await post(agents.inOperator, `/api/handover-items/${itemIds[0]}/acknowledge`);
+    expect(twice.status, JSON.stringify(twice.body)).toBe(409);
+    expect(twice.body.error.message).toMatch(/already/);
     const query = await post(agents.inOperator, `/api/handover-items/${itemIds[0]}/queries`, { question: 'Is the TTD trend logged hourly?' });
     expect(query.status).toBe(201);
 
@@ -126,6 +129,13 @@ describe('shift handover', () => {
     expect(accepted.body.board.handover.acceptedBy).toBeTruthy();
     expect(accepted.body.board.amendments[0]).toMatchObject({ reason: 'Permit number was wrong' });
     await post(agents.inLead, `/api/handovers/${id}/accept`).expect(409);
+
+    // After the turnover nothing more is acknowledged, and an unknown item is a 404, not a 409.
+    const latecomer = await joinIncomingCrew();
+    const afterTurnover = await post(latecomer, `/api/handover-items/${itemIds[0]}/acknowledge`);
+    expect(afterTurnover.status).toBe(409);
+    expect(afterTurnover.body.error.message).toMatch(/already accepted/);
+    await post(latecomer, '/api/handover-items/999999/acknowledge').expect(404);
   });
 });
 

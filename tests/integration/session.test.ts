@@ -123,6 +123,30 @@ describe('session store', () => {
     expect(res.status).toBe(200);
     expect(res.body.user.email).toBe(user.email);
   });
+
+  it('refuses a session whose stored expiry has passed, even before the clean-up removes the row', async () => {
+    const user = await makeUser('operator');
+    const agent = await signedInAgent(buildApp(), user.email);
+    await agent.get('/api/me').expect(200);
+    await SessionRow.update({ expires: new Date(Date.now() - 1000) }, { where: { userId: user.id } });
+    await agent.get('/api/me').expect(401);
+  });
+
+  it('writes the rolling expiry at most once a minute, and again once a minute has passed', async () => {
+    const user = await makeUser('operator');
+    const agent = await signedInAgent(buildApp(), user.email);
+    const stored = async () => (await SessionRow.findOne({ where: { userId: user.id } }))!.expires!.getTime();
+    // Pretend the row was last written 30 s ago: a request now moves the expiry by ~30 s, under a minute.
+    const recent = new Date(Date.now() + 13 * 3600_000 - 30_000);
+    await SessionRow.update({ expires: recent }, { where: { userId: user.id } });
+    await agent.get('/api/me').expect(200);
+    expect(await stored()).toBe(recent.getTime() - (recent.getTime() % 1000));
+    // Two minutes ago: the request writes the new expiry.
+    const older = new Date(Date.now() + 13 * 3600_000 - 120_000);
+    await SessionRow.update({ expires: older }, { where: { userId: user.id } });
+    await agent.get('/api/me').expect(200);
+    expect(await stored()).toBeGreaterThan(older.getTime() + 60_000);
+  });
 });
 
 describe('POST /api/me/password', () => {

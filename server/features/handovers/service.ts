@@ -1,7 +1,7 @@
 // Shift handover: the outgoing crew writes (notes and items) and submits; the incoming crew
 // acknowledges each item or queries it; the incoming shift lead accepts, and that moment is the
 // recorded turnover. After submit nothing is edited: corrections are amendments.
-import { Op, UniqueConstraintError, literal as sequelizeLiteral, type Sequelize } from 'sequelize';
+import { Op, QueryTypes, UniqueConstraintError, literal as sequelizeLiteral, type Sequelize } from 'sequelize';
 import { recordAudit } from '../../lib/audit';
 import { sanitizeRichText } from '../../lib/rich-text';
 import { Conflict, Forbidden, HttpError, NotFound, ValidationError } from '../../lib/errors';
@@ -137,17 +137,34 @@ export function makeHandoverService(sequelize: Sequelize, realtime: RealtimeHub,
   }
 
   async function acknowledge(actor: Actor, itemId: number) {
-    const { handover } = await handoverOfItem(itemId);
-    if (!isIncoming(actor, handover)) throw new Forbidden('Only the incoming crew acknowledges handover items');
-    if (handover.status !== 'submitted') throw new Conflict(handover.status === 'draft' ? 'The handover is not submitted yet' : 'The handover is already accepted');
+    // The insert carries its own rules (submitted, the actor's crew incoming), so an acceptance
+    // landing in between cannot slip an acknowledgement in; the lookup runs beside it rather than
+    // before it, for the room to notify and for the reason when nothing was inserted.
+    const [{ handover }, inserted] = await Promise.all([
+      handoverOfItem(itemId),
+      crewRoles.includes(actor.role) && actor.crewId !== null ? insertAcknowledgement(actor, itemId) : Promise.resolve(0),
+    ]);
+    if (!inserted) {
+      if (!isIncoming(actor, handover)) throw new Forbidden('Only the incoming crew acknowledges handover items');
+      throw new Conflict(handover.status === 'draft' ? 'The handover is not submitted yet' : 'The handover is already accepted');
+    }
+    changed(handover);
+  }
+
+  async function insertAcknowledgement(actor: Actor, itemId: number): Promise<number> {
     try {
-      await HandoverAck.create({ itemId, userId: actor.id, acknowledgedAt: new Date() });
+      const [, affected] = await sequelize.query(
+        `INSERT INTO handover_acks (item_id, user_id, acknowledged_at)
+         SELECT i.id, ?, ? FROM handover_items i JOIN handovers h ON h.id = i.handover_id
+         WHERE i.id = ? AND h.status = 'submitted' AND h.incoming_crew_id = ?`,
+        { replacements: [actor.id, new Date(), itemId, actor.crewId], type: QueryTypes.INSERT },
+      );
+      return Number(affected);
     } catch (error) {
       // The primary key (item, person) is the check: one acknowledgement each.
       if (error instanceof UniqueConstraintError) throw new Conflict('You have acknowledged this item already');
       throw error;
     }
-    changed(handover);
   }
 
   async function ask(actor: Actor, itemId: number, question: string) {
