@@ -36,6 +36,10 @@ import { makeNotices, type Notices } from './features/handovers/notices';
 import { createMailer } from './lib/mailer';
 import { storageFromEnv, type Storage } from './lib/storage';
 import { attachmentRoutes } from './features/handovers/attachments';
+import { logbookRoutes } from './features/logbook/routes';
+import { makeReviewCommentService } from './features/logbook/review-comments';
+import { trainingRoutes } from './features/training/routes';
+import { makeTrainingService } from './features/training/service';
 
 
 export type BuiltApp = {
@@ -115,6 +119,8 @@ export function createApp(
   app.use('/api', conditionRoutes(makeConditionService(sequelize, realtime, log)));
   app.use('/api', handoverRoutes(sequelize, makeHandoverService(sequelize, realtime, notices)));
   app.use('/api', attachmentRoutes(deps.storage ?? storageFromEnv(), realtime));
+  app.use('/api', logbookRoutes(sequelize, makeReviewCommentService(sequelize, realtime)));
+  app.use('/api', trainingRoutes(makeTrainingService(sequelize)));
   app.use('/api/calc', calcRoutes());
   app.use('/api', (_req, _res, next) => next(new NotFound('That API route')));
 

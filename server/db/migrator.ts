@@ -8,6 +8,7 @@ import * as handovers from './migrations/0005-handovers';
 import * as notices from './migrations/0006-notices';
 import * as attachments from './migrations/0007-attachments';
 import * as trendIndex from './migrations/0008-trend-index';
+import * as trainingAndLogbook from './migrations/0009-training-and-logbook';
 
 // Listed explicitly so the order is obvious and nothing depends on globbing at run time.
 const migrations = [
@@ -19,6 +20,7 @@ const migrations = [
   { name: '0006-notices', ...notices },
   { name: '0007-attachments', ...attachments },
   { name: '0008-trend-index', ...trendIndex },
+  { name: '0009-training-and-logbook', ...trainingAndLogbook },
 ];
 
 export function createMigrator(sequelize: Sequelize) {

@@ -12,6 +12,9 @@ import { initStandingOrderModels } from '../features/standing-orders/model';
 import { initConditionModel } from '../features/conditions/model';
 import { initHandoverModels } from '../features/handovers/model';
 import { initShiftModels } from '../features/shifts/model';
+import { initTrainingModels } from '../features/training/model';
+import { initLogbookModels } from '../features/logbook/model';
+import { registerLogbookIndexHooks } from '../features/logbook/index-hooks';
 
 /** Registers every model on the instance. Schema comes from migrations, never from sync(). */
 export function initModels(sequelize: Sequelize) {
@@ -28,4 +31,7 @@ export function initModels(sequelize: Sequelize) {
   initConditionModel(sequelize);
   initHandoverModels(sequelize);
   initShiftModels(sequelize);
+  initTrainingModels(sequelize);
+  initLogbookModels(sequelize);
+  registerLogbookIndexHooks(sequelize);
 }

@@ -10,6 +10,7 @@ export type RealtimeEvent = { entity: string; id: number | string; unitId?: numb
 export type RealtimeHub = {
   toUnit(unitId: number, event: RealtimeEvent): void;
   toEveryone(event: RealtimeEvent): void;
+  toUser(userId: number, event: RealtimeEvent): void;
   attach(http: HttpServer, sessionMiddleware: RequestHandler): Server;
 };
 
@@ -30,6 +31,9 @@ export function createRealtimeHub(): RealtimeHub {
     },
     toEveryone(event) {
       io?.emit('changed', event);
+    },
+    toUser(userId, event) {
+      io?.to(`user:${userId}`).emit('changed', event);
     },
     attach(http, sessionMiddleware) {
       io = new Server(http, { serveClient: false, cors: { origin: false } });

@@ -17,6 +17,11 @@ export function shiftIndex(anchor: Date, shiftStart: Date, changesPerDay: number
 export async function crewOnShift(stationId: number, shiftStart: Date, rotation: CrewRotation | null, changesPerDay: number): Promise<number | null> {
   const swap = await CrewSwap.findOne({ where: { stationId, shiftStart } });
   if (swap) return swap.crewId;
+  return crewFromRotation(rotation, shiftStart, changesPerDay);
+}
+
+/** The crew the rotation alone puts on the shift starting at `shiftStart` (swaps not considered). */
+export function crewFromRotation(rotation: CrewRotation | null, shiftStart: Date, changesPerDay: number): number | null {
   if (!rotation || rotation.crewIds.length === 0) return null;
   const index = shiftIndex(new Date(rotation.anchorShiftStart), shiftStart, changesPerDay);
   const n = rotation.crewIds.length;

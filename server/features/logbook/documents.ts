@@ -1,0 +1,132 @@
+// The logbook search index: one row in logbook_documents per searchable record (log entries and
+// their amendments, standing orders, handover notes, items, questions and amendments, flags,
+// abnormal or amended rounds, time-limited conditions). Each kind is one INSERT … SELECT from its
+// own table, used both to rebuild everything and to refresh single rows, so there is one
+// definition of what a document holds. The crew and shift come from the station's rotation.
+import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
+import { shiftStartFor } from '../../../shared/shift-time';
+import { StationSettingsRow } from '../stations/model';
+import { defaultStationSettings, settingsFromRow } from '../stations/settings';
+import { CrewSwap } from '../shifts/model';
+import { crewFromRotation } from '../shifts/crews';
+
+export const documentKinds = [
+  'log_entry',
+  'log_amendment',
+  'standing_order',
+  'handover_notes',
+  'handover_item',
+  'handover_query',
+  'handover_amendment',
+  'flag',
+  'round',
+  'condition',
+] as const;
+export type DocumentKind = (typeof documentKinds)[number];
+
+// Columns: kind, ref_id, unit_id, station_id, occurred_at, shift_start, crew_id, person_id, severity, title, body.
+// `{ids}` is replaced by the refresh filter (or TRUE for a full rebuild).
+const sources: Record<DocumentKind, string> = {
+  log_entry: `SELECT 'log_entry', e.id, e.unit_id, u.station_id, e.event_at, e.shift_start, NULL, e.author_id, NULL,
+      LEFT(CONCAT(e.category, ' · ', e.position), 300), e.text
+    FROM log_entries e JOIN units u ON u.id = e.unit_id WHERE {ids:e.id}`,
+  log_amendment: `SELECT 'log_amendment', a.id, e.unit_id, u.station_id, a.amended_at, NULL, NULL, a.author_id, NULL,
+      LEFT(CONCAT('Amendment: ', a.reason), 300), a.text
+    FROM log_amendments a JOIN log_entries e ON e.id = a.entry_id JOIN units u ON u.id = e.unit_id WHERE {ids:a.id}`,
+  standing_order: `SELECT 'standing_order', o.id, NULL, o.station_id, o.issued_at, NULL, NULL, o.issued_by, NULL, o.title, o.body_text
+    FROM standing_orders o WHERE {ids:o.id}`,
+  handover_notes: `SELECT 'handover_notes', h.id, h.unit_id, u.station_id, h.handover_at, h.shift_start, h.outgoing_crew_id,
+      COALESCE(h.submitted_by, h.created_by), NULL, 'Handover notes', REGEXP_REPLACE(h.notes_html, '<[^>]*>', ' ')
+    FROM handovers h JOIN units u ON u.id = h.unit_id WHERE h.notes_html <> '' AND {ids:h.id}`,
+  handover_item: `SELECT 'handover_item', i.id, h.unit_id, u.station_id, i.created_at, h.shift_start, h.outgoing_crew_id, i.created_by, i.priority,
+      i.title, CONCAT_WS(' ', REPLACE(i.kind, '_', ' '), i.detail, i.reference)
+    FROM handover_items i JOIN handovers h ON h.id = i.handover_id JOIN units u ON u.id = h.unit_id WHERE {ids:i.id}`,
+  handover_query: `SELECT 'handover_query', q.id, h.unit_id, u.station_id, q.asked_at, h.shift_start, h.incoming_crew_id, q.asked_by, NULL,
+      LEFT(CONCAT('Question: ', q.question), 300), CONCAT_WS(' ', q.question, q.answer)
+    FROM handover_queries q JOIN handover_items i ON i.id = q.item_id JOIN handovers h ON h.id = i.handover_id JOIN units u ON u.id = h.unit_id
+    WHERE {ids:q.id}`,
+  handover_amendment: `SELECT 'handover_amendment', a.id, h.unit_id, u.station_id, a.amended_at, NULL, NULL, a.author_id, NULL,
+      LEFT(CONCAT('Amendment: ', a.reason), 300), a.text
+    FROM handover_amendments a JOIN handovers h ON h.id = a.handover_id JOIN units u ON u.id = h.unit_id WHERE {ids:a.id}`,
+  flag: `SELECT 'flag', f.id, f.unit_id, u.station_id, f.raised_at, NULL, NULL, f.raised_by, f.severity,
+      CONCAT(IF(f.origin = 'manual', 'Flag: ', 'Automatic flag: '), f.parameter),
+      CONCAT_WS(' ', f.parameter, f.severity, f.status, f.comment, f.follow_up, f.clear_comment)
+    FROM flags f JOIN units u ON u.id = f.unit_id WHERE {ids:f.id}`,
+  // Only rounds with something to find: outside limits, or amended.
+  round: `SELECT 'round', r.id, r.unit_id, u.station_id, r.taken_at, NULL, NULL, r.recorded_by, r.worst_status,
+      CONCAT('Round: ', r.worst_status),
+      CONCAT_WS(' ',
+        (SELECT GROUP_CONCAT(CONCAT(v.parameter, ' ', v.status) SEPARATOR ', ') FROM reading_values v WHERE v.reading_set_id = r.id AND v.status IN ('watch', 'alarm')),
+        (SELECT GROUP_CONCAT(CONCAT('Amendment: ', a.reason) SEPARATOR ' ') FROM reading_amendments a WHERE a.reading_set_id = r.id))
+    FROM reading_sets r JOIN units u ON u.id = r.unit_id
+    WHERE (r.worst_status IN ('watch', 'alarm') OR EXISTS (SELECT 1 FROM reading_amendments a WHERE a.reading_set_id = r.id)) AND {ids:r.id}`,
+  condition: `SELECT 'condition', c.id, c.unit_id, u.station_id, c.started_at, NULL, NULL, c.opened_by, NULL,
+      LEFT(CONCAT('Condition: ', c.title), 300), CONCAT_WS(' ', c.required_action, IF(c.closed_at IS NULL, 'open', 'closed'))
+    FROM conditions c JOIN units u ON u.id = c.unit_id WHERE {ids:c.id}`,
+};
+
+const columns = 'kind, ref_id, unit_id, station_id, occurred_at, shift_start, crew_id, person_id, severity, title, body';
+const upsert = `ON DUPLICATE KEY UPDATE unit_id = VALUES(unit_id), occurred_at = VALUES(occurred_at), person_id = VALUES(person_id),
+  severity = VALUES(severity), title = VALUES(title), body = VALUES(body),
+  shift_start = COALESCE(VALUES(shift_start), logbook_documents.shift_start), crew_id = COALESCE(VALUES(crew_id), logbook_documents.crew_id)`;
+
+function sourceSql(kind: DocumentKind, ids: readonly number[] | null) {
+  return sources[kind].replace(/\{ids:([a-z]\.id)\}/, (_m, column: string) => (ids ? `${column} IN (${ids.map((id) => Number(id)).join(',')})` : 'TRUE'));
+}
+
+/** Writes (or refreshes) the documents of `kind` for these source ids; all of them when `ids` is null. */
+export async function indexDocuments(sequelize: Sequelize, kind: DocumentKind, ids: readonly number[] | null, transaction?: Transaction | null) {
+  if (ids && ids.length === 0) return;
+  await sequelize.query(`INSERT INTO logbook_documents (${columns}) ${sourceSql(kind, ids)} ${upsert}`, { transaction: transaction ?? undefined });
+  // A round back inside limits and never amended is no longer a document.
+  if (kind === 'round' && ids) {
+    await sequelize.query(
+      `DELETE d FROM logbook_documents d JOIN reading_sets r ON r.id = d.ref_id
+       WHERE d.kind = 'round' AND d.ref_id IN (${ids.map(Number).join(',')}) AND r.worst_status NOT IN ('watch', 'alarm')
+         AND NOT EXISTS (SELECT 1 FROM reading_amendments a WHERE a.reading_set_id = r.id)`,
+      { transaction: transaction ?? undefined },
+    );
+  }
+  await assignShiftsAndCrews(sequelize, transaction, ids ? { kind, ids } : null);
+}
+
+/** Rebuilds the whole index from the logbook tables (demo seed, benchmark, and an empty index at start). */
+export async function rebuildLogbookIndex(sequelize: Sequelize) {
+  for (const kind of documentKinds) await indexDocuments(sequelize, kind, null);
+}
+
+/**
+ * Fills shift start and crew where the source row does not carry them: the shift that contains
+ * the time, and the crew the rotation (or a swap) put on it.
+ */
+async function assignShiftsAndCrews(sequelize: Sequelize, transaction: Transaction | null | undefined, only: { kind: DocumentKind; ids: readonly number[] } | null) {
+  const filter = only ? `AND kind = '${only.kind}' AND ref_id IN (${only.ids.map(Number).join(',')})` : '';
+  const rows = await sequelize.query<{ id: number; stationId: number; occurredAt: Date; shiftStart: Date | null }>(
+    `SELECT id, station_id AS stationId, occurred_at AS occurredAt, shift_start AS shiftStart FROM logbook_documents
+     WHERE (crew_id IS NULL OR shift_start IS NULL) ${filter}`,
+    { type: QueryTypes.SELECT, transaction: transaction ?? undefined },
+  );
+  if (rows.length === 0) return;
+  const byStation = new Map<number, typeof rows>();
+  for (const row of rows) (byStation.get(row.stationId) ?? byStation.set(row.stationId, []).get(row.stationId)!).push(row);
+  const updates = new Map<string, number[]>(); // "shiftStartMs|crewId" → document ids
+  for (const [stationId, docs] of byStation) {
+    const settingsRow = await StationSettingsRow.findByPk(stationId, { transaction: transaction ?? undefined });
+    const settings = settingsRow ? { ...defaultStationSettings, ...settingsFromRow(settingsRow) } : defaultStationSettings;
+    const swaps = new Map((await CrewSwap.findAll({ where: { stationId }, transaction: transaction ?? undefined })).map((s) => [s.shiftStart.getTime(), s.crewId]));
+    const perDay = settings.shiftChangeTimes.length;
+    for (const doc of docs) {
+      const shiftStart = doc.shiftStart ? new Date(doc.shiftStart) : shiftStartFor(new Date(doc.occurredAt), settings.timeZone, settings.shiftChangeTimes);
+      const crewId = swaps.get(shiftStart.getTime()) ?? crewFromRotation(settingsRow?.crewRotation ?? null, shiftStart, perDay);
+      const key = `${shiftStart.getTime()}|${crewId ?? ''}`;
+      (updates.get(key) ?? updates.set(key, []).get(key)!).push(doc.id);
+    }
+  }
+  for (const [key, ids] of updates) {
+    const [shiftMs, crew] = key.split('|');
+    await sequelize.query(`UPDATE logbook_documents SET shift_start = ?, crew_id = COALESCE(crew_id, ?) WHERE id IN (${ids.join(',')})`, {
+      replacements: [new Date(Number(shiftMs)), crew ? Number(crew) : null],
+      transaction: transaction ?? undefined,
+    });
+  }
+}

@@ -1,0 +1,47 @@
+// Keeps the logbook search index current: every write to a logbook table, through any service,
+// refreshes its document in the writer's own transaction (so a rolled-back write leaves no trace
+// in the index either). Registered once per model init.
+import type { Model, ModelStatic, Sequelize, Transaction, WhereOptions } from 'sequelize';
+import { LogAmendment, LogEntry } from '../log/model';
+import { StandingOrder } from '../standing-orders/model';
+import { Handover, HandoverAmendment, HandoverItem, HandoverQuery } from '../handovers/model';
+import { Flag } from '../flags/model';
+import { ReadingAmendment, ReadingValue } from '../readings/model';
+import { Condition } from '../conditions/model';
+import { indexDocuments, type DocumentKind } from './documents';
+
+type AnyModel = ModelStatic<Model>;
+type Options = { transaction?: Transaction | null; where?: WhereOptions };
+const HOOK = 'logbook-index';
+
+export function registerLogbookIndexHooks(sequelize: Sequelize) {
+  const watch = (model: AnyModel, kind: DocumentKind, idOf: (row: Model) => number = (row) => Number(row.get('id'))) => {
+    const refresh = (ids: number[], options: Options) => indexDocuments(sequelize, kind, [...new Set(ids)], options.transaction);
+    const add = (type: 'afterCreate' | 'afterUpdate' | 'afterBulkCreate' | 'afterBulkUpdate', fn: (...args: never[]) => Promise<void>) => {
+      model.removeHook(type, HOOK);
+      model.addHook(type, HOOK, fn as never);
+    };
+    add('afterCreate', (row: Model, options: Options) => refresh([idOf(row)], options));
+    add('afterUpdate', (row: Model, options: Options) => refresh([idOf(row)], options));
+    add('afterBulkCreate', (rows: Model[], options: Options) => refresh(rows.map(idOf), options));
+    add('afterBulkUpdate', async (options: Options) => {
+      // The services update by id (plus a version or status check that no longer matches after the update).
+      const id = (options.where as { id?: unknown } | undefined)?.id;
+      if (typeof id === 'number') return refresh([id], options);
+      const rows = await model.findAll({ where: options.where, attributes: ['id'], transaction: options.transaction ?? undefined });
+      return refresh(rows.map(idOf), options);
+    });
+  };
+  watch(LogEntry as unknown as AnyModel, 'log_entry');
+  watch(LogAmendment as unknown as AnyModel, 'log_amendment');
+  watch(StandingOrder as unknown as AnyModel, 'standing_order');
+  watch(Handover as unknown as AnyModel, 'handover_notes');
+  watch(HandoverItem as unknown as AnyModel, 'handover_item');
+  watch(HandoverQuery as unknown as AnyModel, 'handover_query');
+  watch(HandoverAmendment as unknown as AnyModel, 'handover_amendment');
+  watch(Flag as unknown as AnyModel, 'flag');
+  watch(Condition as unknown as AnyModel, 'condition');
+  // A round's document is about its values and amendments, written after the round row itself.
+  watch(ReadingValue as unknown as AnyModel, 'round', (row) => Number(row.get('readingSetId')));
+  watch(ReadingAmendment as unknown as AnyModel, 'round', (row) => Number(row.get('readingSetId')));
+}

@@ -1,0 +1,85 @@
+// Trainers' review comments on past logbook records. A comment is visible to the people involved
+// in the record — whoever wrote it and the crew on shift then — and to those who review
+// (trainers, shift leads, administrators). Comments are only inserted.
+import { Op, QueryTypes, type Sequelize } from 'sequelize';
+import { NotFound } from '../../lib/errors';
+import { recordAudit } from '../../lib/audit';
+import type { RealtimeHub } from '../../lib/realtime';
+import { User } from '../users/model';
+import { ReviewComment } from './model';
+
+const REVIEWERS = ['trainer', 'shift_lead', 'admin'];
+
+type DocumentRow = { id: number; kind: string; refId: number; unitId: number | null; shiftStart: Date | null; personId: number | null; crewId: number | null; title: string };
+
+async function documentsById(sequelize: Sequelize, ids: number[]) {
+  if (ids.length === 0) return new Map<number, DocumentRow>();
+  const rows = await sequelize.query<DocumentRow>(
+    `SELECT id, kind, ref_id AS refId, unit_id AS unitId, shift_start AS shiftStart, person_id AS personId, crew_id AS crewId, title
+     FROM logbook_documents WHERE id IN (${ids.map(Number).join(',')})`,
+    { type: QueryTypes.SELECT },
+  );
+  return new Map(rows.map((r) => [Number(r.id), { ...r, id: Number(r.id), refId: Number(r.refId) }]));
+}
+
+export function mayRead(viewer: Express.User, doc: Pick<DocumentRow, 'personId' | 'crewId'>) {
+  return REVIEWERS.includes(viewer.role) || doc.personId === viewer.id || (viewer.crewId !== null && doc.crewId === viewer.crewId);
+}
+
+/** The comments on these documents that the viewer may read, oldest first. */
+export async function commentsOn(sequelize: Sequelize, viewer: Express.User, documentIds: number[]) {
+  if (documentIds.length === 0) return [];
+  const docs = await documentsById(sequelize, documentIds);
+  const comments = await ReviewComment.findAll({ where: { documentId: documentIds }, order: [['id', 'ASC']] });
+  return present(comments.filter((c) => mayRead(viewer, docs.get(c.documentId)!)), docs);
+}
+
+async function present(comments: ReviewComment[], docs: Map<number, DocumentRow>) {
+  const authors = new Map((await User.findAll({ where: { id: [...new Set(comments.map((c) => c.authorId))] }, attributes: ['id', 'name'] })).map((u) => [u.id, u.name]));
+  return comments.map((c) => {
+    const doc = docs.get(c.documentId)!;
+    return {
+      id: c.id,
+      documentId: c.documentId,
+      kind: doc.kind,
+      refId: doc.refId,
+      unitId: doc.unitId,
+      shiftStart: doc.shiftStart ? new Date(doc.shiftStart).toISOString() : null,
+      about: doc.title,
+      author: authors.get(c.authorId) ?? `#${c.authorId}`,
+      body: c.body,
+      createdAt: c.createdAt.toISOString(),
+    };
+  });
+}
+
+export function makeReviewCommentService(sequelize: Sequelize, realtime: RealtimeHub) {
+  async function add(actor: Express.User, input: { documentId: number; body: string }) {
+    const doc = (await documentsById(sequelize, [input.documentId])).get(input.documentId);
+    if (!doc) throw new NotFound('That logbook record');
+    const comment = await sequelize.transaction(async (transaction) => {
+      const created = await ReviewComment.create({ documentId: doc.id, authorId: actor.id, body: input.body, createdAt: new Date() }, { transaction });
+      await recordAudit({ actorId: actor.id, action: 'logbook.review_comment', entity: 'review_comment', entityId: created.id }, transaction);
+      return created;
+    });
+    if (doc.personId) realtime.toUser(doc.personId, { entity: 'review_comment', id: comment.id });
+    return (await present([comment], new Map([[doc.id, doc]])))[0]!;
+  }
+
+  /** Comments on records the person wrote or that their crew's shifts produced, newest first. */
+  async function forPerson(viewer: Express.User, limit = 50) {
+    const docs = await sequelize.query<DocumentRow>(
+      `SELECT DISTINCT d.id, d.kind, d.ref_id AS refId, d.unit_id AS unitId, d.shift_start AS shiftStart, d.person_id AS personId, d.crew_id AS crewId, d.title
+       FROM review_comments c JOIN logbook_documents d ON d.id = c.document_id
+       WHERE d.person_id = ? ${viewer.crewId !== null ? 'OR d.crew_id = ?' : ''}`,
+      { replacements: viewer.crewId !== null ? [viewer.id, viewer.crewId] : [viewer.id], type: QueryTypes.SELECT },
+    );
+    const byId = new Map(docs.map((d) => [Number(d.id), { ...d, id: Number(d.id), refId: Number(d.refId) }]));
+    if (byId.size === 0) return [];
+    const comments = await ReviewComment.findAll({ where: { documentId: { [Op.in]: [...byId.keys()] } }, order: [['id', 'DESC']], limit });
+    return present(comments, byId);
+  }
+
+  return { add, forPerson };
+}
+export type ReviewCommentService = ReturnType<typeof makeReviewCommentService>;

@@ -1,0 +1,121 @@
+// Logbook search: MariaDB FULLTEXT over the documents index, ranked with exact phrases first,
+// then by relevance, then newest first. The text is reduced to words before it reaches SQL, so
+// quotes, boolean operators and wildcards typed by a person are searched as plain words.
+import { TZDate } from '@date-fns/tz';
+import { QueryTypes, type Sequelize } from 'sequelize';
+import type { LogbookSearch } from '../../../shared/schemas/logbook';
+import { ValidationError } from '../../lib/errors';
+
+// InnoDB's default FULLTEXT stopwords and its minimum token length (3): such words are not in the
+// index, so requiring them would match nothing.
+const STOPWORDS = new Set(
+  'a about an are as at be by com de en for from how i in is it la of on or that the this to was what when where who will with und www'.split(' '),
+);
+const MIN_WORD = 3;
+const MAX_WORDS = 12;
+
+export function searchWords(text: string): string[] {
+  const words = (text.normalize('NFKC').toLowerCase().match(/[\p{L}\p{N}]+/gu) ?? []).filter((w) => w.length >= MIN_WORD && !STOPWORDS.has(w));
+  return [...new Set(words)].slice(0, MAX_WORDS);
+}
+
+/** Midnight at the start of the station-local day `date` (YYYY-MM-DD), plus `days` days. */
+function localMidnight(date: string, timeZone: string, days = 0) {
+  const [y, m, d] = date.split('-').map(Number) as [number, number, number];
+  return new Date(new TZDate(y, m - 1, d + days, 0, 0, 0, timeZone).getTime());
+}
+
+const likeEscape = (text: string) => text.replace(/[\\%_]/g, (c) => `\\${c}`);
+
+export type SearchHit = {
+  documentId: number;
+  kind: string;
+  refId: number;
+  unitId: number | null;
+  unitName: string | null;
+  occurredAt: string;
+  shiftStart: string | null;
+  crewName: string | null;
+  personName: string | null;
+  severity: string | null;
+  title: string;
+  snippet: string;
+  exactPhrase: boolean;
+};
+
+/** `timeZone` turns the date filters into the station's local days. */
+export async function searchLogbook(sequelize: Sequelize, filters: LogbookSearch, timeZone: string, limitOverride?: number) {
+  const text = filters.q.trim();
+  const words = searchWords(text);
+  if (text && words.length === 0) {
+    throw new ValidationError({ q: 'Search for words of at least three letters or digits (common words such as “the” are not indexed)' });
+  }
+  const where: string[] = [];
+  const params: unknown[] = [];
+  if (words.length) {
+    where.push('MATCH(d.title, d.body) AGAINST(? IN BOOLEAN MODE)');
+    params.push(words.map((w) => `+${w}`).join(' '));
+  }
+  const filter = (sql: string, value: unknown) => {
+    where.push(sql);
+    params.push(value);
+  };
+  if (filters.unitId) filter('(d.unit_id = ? OR d.unit_id IS NULL)', filters.unitId);
+  if (filters.crewId) filter('d.crew_id = ?', filters.crewId);
+  if (filters.personId) filter('d.person_id = ?', filters.personId);
+  if (filters.kind) filter('d.kind = ?', filters.kind);
+  if (filters.severity) filter('d.severity = ?', filters.severity);
+  if (filters.from) filter('d.occurred_at >= ?', localMidnight(filters.from, timeZone));
+  if (filters.to) filter('d.occurred_at < ?', localMidnight(filters.to, timeZone, 1));
+  const whereSql = where.length ? `WHERE ${where.join(' AND ')}` : '';
+
+  const pageSize = limitOverride ?? filters.pageSize;
+  const offset = limitOverride ? 0 : (filters.page - 1) * filters.pageSize;
+  // Rank: the typed text as it stands (an exact phrase) first, then relevance, then newest.
+  const phrase = words.length > 1 ? `%${likeEscape(text.toLowerCase())}%` : null;
+  const rankSql = words.length
+    ? `${phrase ? '(LOWER(d.title) LIKE ? OR LOWER(d.body) LIKE ?)' : 'FALSE'} AS exact, MATCH(d.title, d.body) AGAINST(? IN NATURAL LANGUAGE MODE) AS score`
+    : 'FALSE AS exact, 0 AS score';
+  const rankParams = words.length ? [...(phrase ? [phrase, phrase] : []), words.join(' ')] : [];
+
+  const [rows, counted] = await Promise.all([
+    sequelize.query<Record<string, unknown>>(
+      `SELECT d.id, d.kind, d.ref_id, d.unit_id, u.name AS unit_name, d.occurred_at, d.shift_start, c.name AS crew_name, p.name AS person_name,
+              d.severity, d.title, LEFT(d.body, 4000) AS body, ${rankSql}
+       FROM logbook_documents d
+       LEFT JOIN units u ON u.id = d.unit_id LEFT JOIN crews c ON c.id = d.crew_id LEFT JOIN users p ON p.id = d.person_id
+       ${whereSql}
+       ORDER BY exact DESC, score DESC, d.occurred_at DESC, d.id DESC
+       LIMIT ? OFFSET ?`,
+      { replacements: [...rankParams, ...params, pageSize, offset], type: QueryTypes.SELECT },
+    ),
+    sequelize.query<{ total: number }>(`SELECT COUNT(*) AS total FROM logbook_documents d ${whereSql}`, { replacements: params, type: QueryTypes.SELECT }),
+  ]);
+
+  const hits: SearchHit[] = rows.map((r) => ({
+    documentId: Number(r.id),
+    kind: String(r.kind),
+    refId: Number(r.ref_id),
+    unitId: r.unit_id === null ? null : Number(r.unit_id),
+    unitName: (r.unit_name as string | null) ?? null,
+    occurredAt: new Date(r.occurred_at as string).toISOString(),
+    shiftStart: r.shift_start ? new Date(r.shift_start as string).toISOString() : null,
+    crewName: (r.crew_name as string | null) ?? null,
+    personName: (r.person_name as string | null) ?? null,
+    severity: (r.severity as string | null) ?? null,
+    title: String(r.title),
+    snippet: snippetAround(String(r.body), words),
+    exactPhrase: Number(r.exact) === 1,
+  }));
+  return { hits, total: Number(counted[0]?.total ?? 0), page: limitOverride ? 1 : filters.page, pageSize, words };
+}
+
+/** About 240 characters of the body around the first word found, with whitespace tidied. */
+export function snippetAround(body: string, words: string[]) {
+  const clean = body.replace(/\s+/g, ' ').trim();
+  const lower = clean.toLowerCase();
+  const at = words.map((w) => lower.indexOf(w)).filter((i) => i >= 0).sort((a, b) => a - b)[0] ?? 0;
+  const start = Math.max(0, at - 80);
+  const cut = clean.slice(start, start + 240);
+  return `${start > 0 ? '…' : ''}${cut}${start + 240 < clean.length ? '…' : ''}`;
+}
