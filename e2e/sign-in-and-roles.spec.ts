@@ -1,7 +1,7 @@
 import { expect, test } from '@playwright/test';
 import { DEMO_PASSWORD, signIn, signOut } from './support';
 
-const everyone = ['Overview', 'Handover', 'Shift log', 'Standing orders', 'Rounds', 'Flags', 'Trends', 'Condenser check', 'Plant setup', 'My password'];
+const everyone = ['Overview', 'Handover', 'Shift log', 'Standing orders', 'Rounds', 'Flags', 'Trends', 'Condenser check', 'Logbook history', 'Training', 'Plant setup', 'My password'];
 const adminOnly = ['People', 'Shifts', 'Audit trail'];
 
 const roles = [

@@ -12,6 +12,8 @@ export const navigation: NavItem[] = [
   { to: '/flags', label: 'Flags', roles: 'all' },
   { to: '/trends', label: 'Trends', roles: 'all' },
   { to: '/condenser-check', label: 'Condenser check', roles: 'all' },
+  { to: '/logbook', label: 'Logbook history', roles: 'all' },
+  { to: '/training', label: 'Training', roles: 'all' },
   { to: '/import', label: 'Import', roles: ['operator', 'shift_lead', 'admin'] },
   { to: '/plant', label: 'Plant setup', roles: 'all' },
   { to: '/admin/people', label: 'People', roles: ['admin'] },

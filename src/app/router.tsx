@@ -31,6 +31,13 @@ export function createAppRouter(queryClient: QueryClient) {
         { path: 'flags', lazy: async () => ({ Component: (await import('../features/flags/routes/flags-page')).FlagsPage }) },
         { path: 'trends', lazy: async () => ({ Component: (await import('../features/trends/routes/trends-page')).TrendsPage }) },
         { path: 'import', lazy: async () => ({ Component: (await import('../features/imports/routes/import-page')).ImportPage }) },
+        { path: 'logbook', lazy: async () => ({ Component: (await import('../features/logbook/routes/logbook-page')).LogbookPage }) },
+        {
+          path: 'logbook/units/:unitId/shifts/:shiftStart',
+          lazy: async () => ({ Component: (await import('../features/logbook/routes/past-shift-page')).PastShiftPage }),
+        },
+        { path: 'training', lazy: async () => ({ Component: (await import('../features/training/routes/training-page')).TrainingPage }) },
+        { path: 'training/trainees/:id', lazy: async () => ({ Component: (await import('../features/training/routes/trainee-page')).TraineePage }) },
         { path: 'plant', lazy: async () => ({ Component: (await import('../features/plant/routes/plant-page')).PlantPage }) },
         {
           path: 'condenser-check',

@@ -11,6 +11,7 @@ const keysFor: Record<string, string[][]> = {
   condition: [['conditions'], ['log']],
   standing_order: [['orders'], ['pending-orders']],
   handover: [['handover']],
+  review_comment: [['logbook']],
 };
 
 /** Sockets notify, queries fetch: invalidate on each event, and everything after a reconnect. */

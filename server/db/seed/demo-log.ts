@@ -26,6 +26,7 @@ export async function seedDemoLog(sequelize: Sequelize, stationId: number, unitI
     const operator = await person('operator.a@fernhollow.example');
     const field = await person('operator.b@fernhollow.example');
     const lead = await person('lead.a@fernhollow.example');
+    const trainee = await person('trainee.a@fernhollow.example');
     const pumpB = await Equipment.findOne({ where: { unitId, tag: '1-CWP-B' }, transaction });
     const settings = defaultStationSettings;
     const now = Date.now();
@@ -51,11 +52,13 @@ export async function seedDemoLog(sequelize: Sequelize, stationId: number, unitI
         { transaction },
       );
     };
+    // Three days back, on an earlier shift: something for the logbook history and a trainer's review.
+    await entry(3 * 24 * 60 + 120, trainee.id, 'field_cw_tower', 'alarm_abnormal', 'Hotwell level creeping up on Unit 1 during the round; told the control room. Level controller found in manual, put back to auto by the operator.');
     await entry(300, operator.id, 'control_room', 'communication', 'Took the shift from crew D; walked down the condenser panel with the outgoing operator.');
     await entry(240, field.id, 'field_cw_tower', 'equipment_status', 'Isolated 1-CWP-B for seal replacement under permit WP-1187; 1-CWP-A carrying the load.', { equipmentId: pumpB?.id ?? null, carryToHandover: true });
     await entry(180, operator.id, 'control_room', 'alarm_abnormal', 'Backpressure 5.3 kPa a, 0.5 kPa above expected; cleanliness trending down. Informed the shift lead.', { carryToHandover: true });
     await entry(90, field.id, 'field_cw_tower', 'operation', 'Backwashed Unit 1 waterbox A; screen ΔP back to normal.');
-    created += 4;
+    created += 5;
     await StandingOrder.create(
       {
         stationId,

@@ -8,6 +8,7 @@ import type { Role } from '../../../shared/roles';
 import people from './demo-people.json';
 import { demoCondenserDesign, demoCrews, demoStation, demoUnits } from './demo-plant';
 import { seedDemoHistory } from './demo-history';
+import { seedDemoTraining } from './demo-training';
 import { seedDemoLog } from './demo-log';
 
 export async function seedDemo(sequelize: Sequelize): Promise<{ created: number }> {
@@ -82,5 +83,6 @@ export async function seedDemo(sequelize: Sequelize): Promise<{ created: number 
   );
   const station = await Station.findOne({ where: { code: demoStation.code } });
   const logRows = await seedDemoLog(sequelize, station!.id, unitIds[0]!);
-  return { created: created + history + logRows };
+  const trainingRows = await seedDemoTraining(sequelize);
+  return { created: created + history + logRows + trainingRows };
 }

@@ -1,0 +1,146 @@
+import { useState, type FormEvent } from 'react';
+import { Link, useSearchParams } from 'react-router';
+import { format } from 'date-fns';
+import { documentKindLabels } from '../../../../shared/schemas/logbook';
+import { useUnitList } from '../../../components/readings/unit-picker';
+import { useCrews } from '../../../components/plant/crews';
+import { usePeople } from '../../../components/people/person-select';
+import { FilterSelect } from '../../../components/ui/filter-select';
+import { Notice } from '../../../components/ui/notice';
+import { ApiError } from '../../../lib/api-client';
+import { searchParams, shiftLink, useLogbookSearch, type SearchFilters } from '../api/logbook';
+import { MyReviewComments } from '../components/my-review-comments';
+
+const FILTER_KEYS = ['q', 'unitId', 'crewId', 'personId', 'kind', 'severity', 'from', 'to', 'page'] as const;
+const kindOptions = Object.entries(documentKindLabels).map(([value, label]) => ({ value, label }));
+const severityOptions = [
+  { value: 'alarm', label: 'Alarm' },
+  { value: 'watch', label: 'Watch' },
+  { value: 'high', label: 'High priority (handover)' },
+];
+const inputClass = 'rounded-md border border-line bg-field px-2 py-1';
+
+/** The filters live in the address, so a search can be bookmarked, shared and reloaded. */
+function useFilters(): [SearchFilters, (next: Partial<SearchFilters>) => void] {
+  const [params, setParams] = useSearchParams();
+  const filters: SearchFilters = { q: params.get('q') ?? '', page: Math.max(1, Number(params.get('page')) || 1) };
+  for (const key of FILTER_KEYS) if (key !== 'q' && key !== 'page' && params.get(key)) filters[key] = params.get(key)!;
+  const update = (next: Partial<SearchFilters>) => {
+    const merged = { ...filters, page: 1, ...next };
+    const out = new URLSearchParams();
+    for (const key of FILTER_KEYS) if (merged[key] !== undefined && merged[key] !== '' && !(key === 'page' && merged.page === 1)) out.set(key, String(merged[key]));
+    setParams(out);
+  };
+  return [filters, update];
+}
+
+export function LogbookPage() {
+  const [filters, update] = useFilters();
+  const [text, setText] = useState(filters.q);
+  const units = useUnitList();
+  const crews = useCrews();
+  const people = usePeople();
+  const anyFilter = Boolean(filters.q || filters.unitId || filters.crewId || filters.personId || filters.kind || filters.severity || filters.from || filters.to);
+  const results = useLogbookSearch(filters, anyFilter);
+  const fieldErrors = results.error instanceof ApiError ? results.error.fields : {};
+  const fallbackUnit = filters.unitId ? Number(filters.unitId) : (units.data?.[0]?.id ?? null);
+  const pages = results.data ? Math.max(1, Math.ceil(results.data.total / results.data.pageSize)) : 1;
+
+  const submit = (e: FormEvent) => {
+    e.preventDefault();
+    update({ q: text.trim() });
+  };
+  return (
+    <section className="flex flex-col gap-4">
+      <div>
+        <h1 className="text-2xl font-bold">Logbook history</h1>
+        <p className="text-muted">Search past log entries, standing orders, handovers, flags, conditions and rounds; open any shift as it was recorded.</p>
+      </div>
+      <form role="search" aria-label="Search the logbook" onSubmit={submit} className="flex flex-col gap-3 rounded-lg border border-line bg-panel p-3">
+        <div className="flex flex-wrap items-end gap-2">
+          <label className="flex min-w-64 flex-1 flex-col text-sm font-bold">
+            Words to find
+            <input className={`${inputClass} text-base font-normal`} value={text} onChange={(e) => setText(e.target.value)} placeholder="e.g. air ejector, waterbox backwash" aria-invalid={Boolean(fieldErrors.q)} />
+          </label>
+          <button type="submit" className="rounded-md bg-accent px-4 py-2 font-bold text-on-accent">
+            Search
+          </button>
+        </div>
+        {fieldErrors.q ? <p role="alert" className="text-sm font-bold text-alarm">⚠ {fieldErrors.q}</p> : null}
+        <div className="flex flex-wrap gap-3 text-sm">
+          <FilterSelect label="Unit" anyLabel="All units" value={filters.unitId} options={(units.data ?? []).map((u) => ({ value: u.id, label: u.name }))} onChange={(v) => update({ unitId: v })} />
+          <FilterSelect label="Crew on shift" anyLabel="Any crew" value={filters.crewId} options={(crews.data ?? []).map((c) => ({ value: c.id, label: `Crew ${c.name}` }))} onChange={(v) => update({ crewId: v })} />
+          <FilterSelect label="Person" anyLabel="Anyone" value={filters.personId} options={(people.data ?? []).map((p) => ({ value: p.id, label: p.name }))} onChange={(v) => update({ personId: v })} />
+          <FilterSelect label="Record" anyLabel="Any record" value={filters.kind} options={kindOptions} onChange={(v) => update({ kind: v })} />
+          <FilterSelect label="Severity" anyLabel="Any" value={filters.severity} options={severityOptions} onChange={(v) => update({ severity: v })} />
+          <label className="flex flex-col">
+            From (station day)
+            <input type="date" className={inputClass} value={filters.from ?? ''} onChange={(e) => update({ from: e.target.value || undefined })} />
+          </label>
+          <label className="flex flex-col">
+            To (station day)
+            <input type="date" className={inputClass} value={filters.to ?? ''} onChange={(e) => update({ to: e.target.value || undefined })} />
+            {fieldErrors.to ? <span role="alert" className="text-alarm">⚠ {fieldErrors.to}</span> : null}
+          </label>
+        </div>
+      </form>
+
+      {!anyFilter ? <Notice kind="info">Type some words or choose a filter to search the logbook.</Notice> : null}
+      {results.error && !fieldErrors.q ? <Notice kind="error">{results.error.message}</Notice> : null}
+      {results.data ? (
+        <div className="flex flex-col gap-2" aria-live="polite">
+          <div className="flex flex-wrap items-center gap-3">
+            <p className="font-bold" data-testid="result-count">
+              {results.data.total} {results.data.total === 1 ? 'record' : 'records'} found
+            </p>
+            {results.data.total > 0 ? (
+              <a className="text-sm underline" href={`/api/logbook/search.csv?${searchParams(filters, 100)}`} download>
+                Export up to 5 000 as CSV
+              </a>
+            ) : null}
+          </div>
+          <ol className="flex flex-col gap-2">
+            {results.data.hits.map((hit) => {
+              const link = shiftLink(hit, fallbackUnit);
+              return (
+                <li key={hit.documentId} className="rounded-lg border border-line bg-panel p-3" data-testid="search-hit">
+                  <div className="flex flex-wrap items-baseline gap-2 text-sm">
+                    <span className="rounded border border-line px-1.5 text-xs font-bold">{documentKindLabels[hit.kind as keyof typeof documentKindLabels] ?? hit.kind}</span>
+                    {hit.exactPhrase ? <span className="text-xs font-bold text-accent">exact phrase</span> : null}
+                    {hit.severity ? <span className="text-xs font-bold">severity: {hit.severity}</span> : null}
+                    <span className="text-muted">
+                      {format(new Date(hit.occurredAt), 'yyyy-MM-dd HH:mm')} · {hit.unitName ?? 'whole station'}
+                      {hit.crewName ? ` · crew ${hit.crewName}` : ''}
+                      {hit.personName ? ` · ${hit.personName}` : ''}
+                    </span>
+                  </div>
+                  <p className="font-bold">{hit.title}</p>
+                  <p className="text-sm">{hit.snippet}</p>
+                  {link ? (
+                    <Link className="text-sm underline" to={link}>
+                      Open the shift as it was
+                    </Link>
+                  ) : null}
+                </li>
+              );
+            })}
+          </ol>
+          {pages > 1 ? (
+            <nav aria-label="Result pages" className="flex items-center gap-3">
+              <button type="button" className="rounded-md border border-line px-3 py-1 disabled:opacity-50" disabled={filters.page <= 1} onClick={() => update({ page: filters.page - 1 })}>
+                ← Previous
+              </button>
+              <span>
+                Page {filters.page} of {pages}
+              </span>
+              <button type="button" className="rounded-md border border-line px-3 py-1 disabled:opacity-50" disabled={filters.page >= pages} onClick={() => update({ page: filters.page + 1 })}>
+                Next →
+              </button>
+            </nav>
+          ) : null}
+        </div>
+      ) : null}
+      <MyReviewComments />
+    </section>
+  );
+}

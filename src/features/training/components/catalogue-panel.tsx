@@ -1,0 +1,151 @@
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { qualificationSystemLabels, qualificationSystems } from '../../../../shared/schemas/training';
+import { SelectField, TextField } from '../../../components/ui/form-field';
+import { Notice } from '../../../components/ui/notice';
+import { applyServerErrors } from '../../../lib/form-errors';
+import { ApiError } from '../../../lib/api-client';
+import { useRetireTask, useSaveTask, useTasks, useTaskVersions, type TaskView } from '../api/training';
+
+type Values = { taskKey: string; position: string; system: string; title: string; standard: string; procedureRef: string; requiredPerformances: string; changeNote: string };
+const blank: Values = { taskKey: '', position: 'field_operator', system: 'circulating_water', title: '', standard: '', procedureRef: '', requiredPerformances: '3', changeNote: '' };
+
+function TaskForm({ editing, onDone }: { editing: TaskView | null; onDone: () => void }) {
+  const save = useSaveTask();
+  const form = useForm<Values>({
+    defaultValues: editing ? { ...blank, ...editing, procedureRef: editing.procedureRef ?? '', requiredPerformances: String(editing.requiredPerformances), changeNote: '' } : blank,
+  });
+  const errors = form.formState.errors;
+  const submit = form.handleSubmit(async (v) => {
+    const body: Record<string, unknown> = { position: v.position, system: v.system, title: v.title, standard: v.standard, procedureRef: v.procedureRef || null, requiredPerformances: Number(v.requiredPerformances) };
+    if (editing) body.changeNote = v.changeNote;
+    try {
+      await save.mutateAsync({ mode: editing ? 'change' : 'create', taskKey: editing?.taskKey ?? v.taskKey, body });
+      onDone();
+    } catch (error) {
+      form.setError('root', { message: applyServerErrors(error, form.setError) });
+    }
+  });
+  return (
+    <form onSubmit={submit} aria-label={editing ? `Change ${editing.taskKey}` : 'New task'} className="grid gap-3 rounded-lg border border-accent bg-panel p-3 sm:grid-cols-2">
+      <h3 className="font-bold sm:col-span-2">{editing ? `Change ${editing.taskKey} (becomes version ${editing.version + 1})` : 'New qualification task'}</h3>
+      {errors.root?.message ? <div className="sm:col-span-2"><Notice kind="error">{errors.root.message}</Notice></div> : null}
+      {editing ? null : <TextField label="Key" hint="e.g. CW-07" error={errors.taskKey?.message} {...form.register('taskKey')} />}
+      <TextField label="Position" hint="e.g. field_operator, control_room_operator" error={errors.position?.message} {...form.register('position')} />
+      <SelectField label="System" error={errors.system?.message} {...form.register('system')}>
+        {qualificationSystems.map((s) => (
+          <option key={s} value={s}>
+            {qualificationSystemLabels[s]}
+          </option>
+        ))}
+      </SelectField>
+      <TextField label="Title" error={errors.title?.message} {...form.register('title')} />
+      <div className="sm:col-span-2">
+        <TextField label="Standard to meet" error={errors.standard?.message} {...form.register('standard')} />
+      </div>
+      <TextField label="Procedure reference" error={errors.procedureRef?.message} {...form.register('procedureRef')} />
+      <TextField label="Supervised performances before sign-off" type="number" min={1} error={errors.requiredPerformances?.message} {...form.register('requiredPerformances')} />
+      {editing ? (
+        <div className="sm:col-span-2">
+          <TextField label="What changed and why" error={errors.changeNote?.message} {...form.register('changeNote')} />
+        </div>
+      ) : null}
+      <div className="flex gap-2 sm:col-span-2">
+        <button type="submit" className="rounded-md bg-accent px-3 py-2 font-bold text-on-accent" disabled={form.formState.isSubmitting}>
+          Save
+        </button>
+        <button type="button" className="rounded-md border border-line px-3 py-2" onClick={onDone}>
+          Cancel
+        </button>
+      </div>
+    </form>
+  );
+}
+
+function Versions({ taskKey }: { taskKey: string }) {
+  const versions = useTaskVersions(taskKey);
+  return (
+    <ul className="mt-1 text-xs">
+      {versions.data?.map((v) => (
+        <li key={v.id}>
+          v{v.version} · {v.createdAt.slice(0, 10)} · {v.changeNote ?? ''} · {v.requiredPerformances} performances{v.retired ? ' · retired' : ''}
+        </li>
+      ))}
+    </ul>
+  );
+}
+
+/** The qualification catalogue: everyone reads it; trainers and administrators change it (each change a new version). */
+export function CataloguePanel({ mayEdit }: { mayEdit: boolean }) {
+  const tasks = useTasks();
+  const retire = useRetireTask();
+  const [editing, setEditing] = useState<TaskView | 'new' | null>(null);
+  const [history, setHistory] = useState<string | null>(null);
+  return (
+    <section aria-label="Qualification catalogue" className="flex flex-col gap-2">
+      <div className="flex items-center gap-3">
+        <h2 className="text-lg font-bold">Qualification catalogue</h2>
+        {mayEdit && editing === null ? (
+          <button type="button" className="rounded-md border border-line px-3 py-1" onClick={() => setEditing('new')}>
+            New task
+          </button>
+        ) : null}
+      </div>
+      {editing ? <TaskForm editing={editing === 'new' ? null : editing} onDone={() => setEditing(null)} /> : null}
+      {retire.error ? <Notice kind="error">{retire.error instanceof ApiError ? retire.error.message : 'Not retired'}</Notice> : null}
+      <div className="overflow-x-auto rounded-lg border border-line bg-panel">
+        <table className="w-full text-left text-sm">
+          <thead>
+            <tr>
+              <th className="p-2">Key</th>
+              <th className="p-2">Task and standard</th>
+              <th className="p-2">System · position</th>
+              <th className="p-2">Procedure</th>
+              <th className="p-2 text-right">Needed</th>
+              <th className="p-2">Version</th>
+            </tr>
+          </thead>
+          <tbody>
+            {tasks.data?.map((t) => (
+              <tr key={t.taskKey} className="border-t border-line align-top">
+                <td className="p-2 font-bold">{t.taskKey}</td>
+                <td className="p-2">
+                  {t.title}
+                  <span className="block text-xs text-muted">{t.standard}</span>
+                </td>
+                <td className="p-2">
+                  {qualificationSystemLabels[t.system as keyof typeof qualificationSystemLabels] ?? t.system} · {t.position.replace(/_/g, ' ')}
+                </td>
+                <td className="p-2">{t.procedureRef ?? '—'}</td>
+                <td className="p-2 text-right">{t.requiredPerformances}</td>
+                <td className="p-2">
+                  <button type="button" className="underline" onClick={() => setHistory(history === t.taskKey ? null : t.taskKey)}>
+                    v{t.version}
+                  </button>
+                  {history === t.taskKey ? <Versions taskKey={t.taskKey} /> : null}
+                  {mayEdit ? (
+                    <span className="mt-1 flex gap-2 text-xs">
+                      <button type="button" className="underline" onClick={() => setEditing(t)}>
+                        Change
+                      </button>
+                      <button
+                        type="button"
+                        className="text-alarm underline"
+                        onClick={() => {
+                          const note = window.prompt(`Why is ${t.taskKey} retired?`);
+                          if (note) retire.mutate({ taskKey: t.taskKey, changeNote: note });
+                        }}
+                      >
+                        Retire
+                      </button>
+                    </span>
+                  ) : null}
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+    </section>
+  );
+}

@@ -1,0 +1,116 @@
+import { useState } from 'react';
+import { format } from 'date-fns';
+import { qualificationSystemLabels, taskStatusLabels, type TaskStatus } from '../../../../shared/schemas/training';
+import { Notice } from '../../../components/ui/notice';
+import { ApiError } from '../../../lib/api-client';
+import { useDecide, type Progress, type ProgressRow } from '../api/training';
+
+// Status carried by a symbol and a word as well as colour.
+const statusLook: Record<TaskStatus, { icon: string; className: string }> = {
+  not_started: { icon: '○', className: 'text-muted' },
+  in_progress: { icon: '◐', className: 'text-ink' },
+  ready_for_sign_off: { icon: '◉', className: 'text-accent' },
+  returned: { icon: '↺', className: 'text-watch' },
+  signed_off: { icon: '✔', className: 'text-normal' },
+};
+
+export function TaskStatusLabel({ status }: { status: TaskStatus }) {
+  return (
+    <span className={`font-bold whitespace-nowrap ${statusLook[status].className}`}>
+      <span aria-hidden="true">{statusLook[status].icon}</span> {taskStatusLabels[status]}
+    </span>
+  );
+}
+
+function DecisionForm({ traineeId, row }: { traineeId: number; row: ProgressRow }) {
+  const decide = useDecide();
+  const [comments, setComments] = useState('');
+  const fields = decide.error instanceof ApiError ? decide.error.fields : {};
+  const send = (decision: 'signed_off' | 'returned') => decide.mutate({ traineeId, taskKey: row.task.taskKey, decision, comments }, { onSuccess: () => setComments('') });
+  return (
+    <form className="flex flex-col gap-1" aria-label={`Decide on ${row.task.taskKey}`} onSubmit={(e) => e.preventDefault()}>
+      <label className="flex flex-col text-xs font-bold">
+        Trainer’s comments
+        <textarea className="rounded-md border border-line bg-field p-1 font-normal" rows={2} value={comments} onChange={(e) => setComments(e.target.value)} />
+      </label>
+      {fields.comments ? <span role="alert" className="text-xs font-bold text-alarm">⚠ {fields.comments}</span> : null}
+      {decide.error && !fields.comments ? <Notice kind="error">{decide.error.message}</Notice> : null}
+      <div className="flex gap-1">
+        <button type="button" className="rounded-md bg-accent px-2 py-1 text-xs font-bold text-on-accent disabled:opacity-50" disabled={decide.isPending || row.status !== 'ready_for_sign_off'} onClick={() => send('signed_off')}>
+          Sign off
+        </button>
+        <button type="button" className="rounded-md border border-line px-2 py-1 text-xs" disabled={decide.isPending} onClick={() => send('returned')}>
+          Return with comments
+        </button>
+      </div>
+    </form>
+  );
+}
+
+/** Tasks down the side, where the trainee stands across. Trainers get sign-off controls per row. */
+export function ProgressMatrix({ progress, mayDecide }: { progress: Progress; mayDecide: boolean }) {
+  return (
+    <div className="overflow-x-auto rounded-lg border border-line bg-panel">
+      <table className="w-full text-left text-sm" aria-label={`Qualification tasks for ${progress.trainee.name}`}>
+        <thead>
+          <tr className="border-b border-line">
+            <th className="p-2">Task</th>
+            <th className="p-2">System</th>
+            <th className="p-2">Status</th>
+            <th className="p-2 text-right">Observed</th>
+            <th className="p-2 text-right">Supervised</th>
+            <th className="p-2 text-right">Alone</th>
+            <th className="p-2 text-right">Counted / needed</th>
+            <th className="p-2">Dates</th>
+            <th className="p-2">Last decision</th>
+            {mayDecide ? <th className="p-2">Trainer</th> : null}
+          </tr>
+        </thead>
+        <tbody>
+          {progress.rows.map((row) => (
+            <tr key={row.task.taskKey} className="border-t border-line align-top" data-testid={`task-row-${row.task.taskKey}`}>
+              <td className="p-2">
+                <strong>{row.task.taskKey}</strong> {row.task.title}
+                <span className="block text-xs text-muted">
+                  v{row.task.version}
+                  {row.task.procedureRef ? ` · ${row.task.procedureRef}` : ''}
+                  {row.task.retired ? ' · retired' : ''}
+                </span>
+              </td>
+              <td className="p-2">{qualificationSystemLabels[row.task.system as keyof typeof qualificationSystemLabels] ?? row.task.system}</td>
+              <td className="p-2">
+                <TaskStatusLabel status={row.status} />
+                {row.signedVersion !== null ? <span className="block text-xs">signed against v{row.signedVersion}</span> : null}
+                {row.newerVersionSinceSignOff ? <span className="block text-xs font-bold text-watch">▲ task changed since (v{row.task.version})</span> : null}
+                {row.counts.awaitingCountersign ? <span className="block text-xs">{row.counts.awaitingCountersign} awaiting countersign</span> : null}
+              </td>
+              <td className="p-2 text-right">{row.counts.observed}</td>
+              <td className="p-2 text-right">{row.counts.supervised}</td>
+              <td className="p-2 text-right">{row.counts.alone}</td>
+              <td className="p-2 text-right">
+                {row.performances} / {row.task.requiredPerformances}
+              </td>
+              <td className="p-2 text-xs">{row.firstPracticeOn ? `${row.firstPracticeOn} – ${row.lastPracticeOn}` : '—'}</td>
+              <td className="p-2 text-xs">
+                {row.lastDecision ? (
+                  <>
+                    {row.lastDecision.decision === 'signed_off' ? 'Signed off' : 'Returned'} by {row.lastDecision.trainer}, {format(new Date(row.lastDecision.decidedAt), 'yyyy-MM-dd')}
+                    <span className="block italic">“{row.lastDecision.comments}”</span>
+                    {row.lastDecision.amendments.map((a) => (
+                      <span key={a.id} className="block">
+                        Amended by {a.by}: <em>{a.reason}</em> — {a.text}
+                      </span>
+                    ))}
+                  </>
+                ) : (
+                  '—'
+                )}
+              </td>
+              {mayDecide ? <td className="p-2">{row.status === 'signed_off' || row.task.retired ? null : <DecisionForm traineeId={progress.trainee.id} row={row} />}</td> : null}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}

@@ -1,0 +1,83 @@
+import { useForm } from 'react-hook-form';
+import { trainingLevelLabels, trainingLevels, type NewTrainingEntry } from '../../../../shared/schemas/training';
+import { SelectField, TextField } from '../../../components/ui/form-field';
+import { Notice } from '../../../components/ui/notice';
+import { usePeople } from '../../../components/people/person-select';
+import { useUnitList } from '../../../components/readings/unit-picker';
+import { applyServerErrors } from '../../../lib/form-errors';
+import { useRecordEntry, useTasks } from '../api/training';
+
+type Values = { taskKey: string; performedOn: string; level: string; supervisorId: string; unitId: string; note: string };
+
+/** A trainee records one practice of a task; a supervising operator countersigns it later. */
+export function RecordPracticeForm() {
+  const tasks = useTasks();
+  const people = usePeople();
+  const units = useUnitList();
+  const record = useRecordEntry();
+  const form = useForm<Values>({ defaultValues: { taskKey: '', performedOn: new Date().toISOString().slice(0, 10), level: 'supervised', supervisorId: '', unitId: '', note: '' } });
+  const errors = form.formState.errors;
+  const submit = form.handleSubmit(async (values) => {
+    const input: NewTrainingEntry = {
+      taskKey: values.taskKey,
+      performedOn: values.performedOn,
+      level: values.level as NewTrainingEntry['level'],
+      note: values.note,
+      supervisorId: values.supervisorId ? Number(values.supervisorId) : null,
+      unitId: values.unitId ? Number(values.unitId) : null,
+    };
+    try {
+      await record.mutateAsync(input);
+      form.reset({ ...values, note: '' });
+    } catch (error) {
+      form.setError('root', { message: applyServerErrors(error, form.setError) });
+    }
+  });
+  return (
+    <form onSubmit={submit} aria-label="Record a practice" className="grid gap-3 rounded-lg border border-line bg-panel p-3 sm:grid-cols-2">
+      <h2 className="text-lg font-bold sm:col-span-2">Record a practice</h2>
+      {errors.root?.message ? <div className="sm:col-span-2"><Notice kind="error">{errors.root.message}</Notice></div> : null}
+      {record.isSuccess && !form.formState.isDirty ? <div className="sm:col-span-2"><Notice kind="success">Recorded; it now waits for a countersign.</Notice></div> : null}
+      <SelectField label="Task" error={errors.taskKey?.message} {...form.register('taskKey')}>
+        <option value="">Choose…</option>
+        {tasks.data?.map((t) => (
+          <option key={t.taskKey} value={t.taskKey}>
+            {t.taskKey} — {t.title}
+          </option>
+        ))}
+      </SelectField>
+      <TextField label="Date" type="date" error={errors.performedOn?.message} {...form.register('performedOn')} />
+      <SelectField label="Level" error={errors.level?.message} {...form.register('level')}>
+        {trainingLevels.map((l) => (
+          <option key={l} value={l}>
+            {trainingLevelLabels[l]}
+          </option>
+        ))}
+      </SelectField>
+      <SelectField label="Supervising operator" hint="Optional: only they (or a shift lead) can then countersign." error={errors.supervisorId?.message} {...form.register('supervisorId')}>
+        <option value="">Any operator</option>
+        {people.data
+          ?.filter((p) => p.role === 'operator' || p.role === 'shift_lead')
+          .map((p) => (
+            <option key={p.id} value={p.id}>
+              {p.name}
+            </option>
+          ))}
+      </SelectField>
+      <SelectField label="Unit" error={errors.unitId?.message} {...form.register('unitId')}>
+        <option value="">Not tied to a unit</option>
+        {units.data?.map((u) => (
+          <option key={u.id} value={u.id}>
+            {u.name}
+          </option>
+        ))}
+      </SelectField>
+      <div className="sm:col-span-2">
+        <TextField label="What you did" error={errors.note?.message} {...form.register('note')} />
+      </div>
+      <button type="submit" className="rounded-md bg-accent px-3 py-2 font-bold text-on-accent sm:col-span-1" disabled={form.formState.isSubmitting}>
+        Record practice
+      </button>
+    </form>
+  );
+}

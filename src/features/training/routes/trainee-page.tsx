@@ -1,0 +1,32 @@
+import { Link, useParams } from 'react-router';
+import { Notice } from '../../../components/ui/notice';
+import { useMe } from '../../session/api/get-me';
+import { useTraineeProgress } from '../api/training';
+import { EntryList } from '../components/entry-list';
+import { ProgressMatrix } from '../components/progress-matrix';
+
+/** One trainee's record for trainers, shift leads and administrators; trainers sign off here. */
+export function TraineePage() {
+  const id = Number(useParams().id);
+  const progress = useTraineeProgress(id);
+  const { data: me } = useMe();
+  if (progress.error) return <Notice kind="error">{progress.error.message}</Notice>;
+  if (!progress.data) return <p>Loading…</p>;
+  const p = progress.data;
+  return (
+    <section className="flex flex-col gap-4">
+      <Link to="/training" className="text-sm underline">
+        ← Training
+      </Link>
+      <h1 className="text-2xl font-bold">{p.trainee.name}: qualification record</h1>
+      <p>
+        {p.left} {p.left === 1 ? 'task' : 'tasks'} left. Sign-offs are final; a correction is an amendment with a reason.
+      </p>
+      <ProgressMatrix progress={p} mayDecide={me?.role === 'trainer'} />
+      <section aria-label="Training entries" className="flex flex-col gap-2">
+        <h2 className="text-lg font-bold">Training entries</h2>
+        <EntryList entries={p.entries} mayAmend={me?.role === 'trainer' || me?.role === 'admin'} />
+      </section>
+    </section>
+  );
+}

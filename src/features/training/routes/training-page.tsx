@@ -1,0 +1,76 @@
+import { useState } from 'react';
+import { Notice } from '../../../components/ui/notice';
+import { useMe } from '../../session/api/get-me';
+import { MyReviewComments } from '../../logbook/components/my-review-comments';
+import { useMyProgress } from '../api/training';
+import { CataloguePanel } from '../components/catalogue-panel';
+import { CountersignQueue } from '../components/countersign-queue';
+import { CrewQualifications } from '../components/crew-qualifications';
+import { EntryList } from '../components/entry-list';
+import { ProgressMatrix } from '../components/progress-matrix';
+import { RecordPracticeForm } from '../components/record-practice-form';
+import { ReviewQueue } from '../components/review-queue';
+
+type Tab = 'mine' | 'countersign' | 'queue' | 'crews' | 'catalogue';
+const tabLabels: Record<Tab, string> = { mine: 'My qualification record', countersign: 'Countersign', queue: 'Trainer’s queue', crews: 'Crew qualifications', catalogue: 'Catalogue' };
+
+function tabsFor(role: string): Tab[] {
+  if (role === 'trainee') return ['mine', 'catalogue'];
+  if (role === 'operator') return ['countersign', 'crews', 'catalogue'];
+  if (role === 'shift_lead') return ['countersign', 'crews', 'catalogue'];
+  return ['queue', 'crews', 'catalogue']; // trainer, admin
+}
+
+function MyRecord() {
+  const progress = useMyProgress(true);
+  if (progress.error) return <Notice kind="error">{progress.error.message}</Notice>;
+  if (!progress.data) return <p>Loading your record…</p>;
+  return (
+    <div className="flex flex-col gap-4">
+      <p>
+        <strong>{progress.data.left}</strong> {progress.data.left === 1 ? 'task' : 'tasks'} left before you are qualified on everything in the catalogue.
+      </p>
+      <ProgressMatrix progress={progress.data} mayDecide={false} />
+      <RecordPracticeForm />
+      <MyReviewComments />
+      <section aria-label="My training entries" className="flex flex-col gap-2">
+        <h2 className="text-lg font-bold">My training entries</h2>
+        <EntryList entries={progress.data.entries} mayAmend />
+      </section>
+    </div>
+  );
+}
+
+export function TrainingPage() {
+  const { data: me } = useMe();
+  const tabs = me ? tabsFor(me.role) : [];
+  const [chosen, setChosen] = useState<Tab | null>(null);
+  const tab = chosen && tabs.includes(chosen) ? chosen : tabs[0];
+  if (!me || !tab) return null;
+  const mayEdit = me.role === 'trainer' || me.role === 'admin';
+  return (
+    <section className="flex flex-col gap-4">
+      <div>
+        <h1 className="text-2xl font-bold">Training</h1>
+        <p className="text-muted">Qualification tasks on the cooling-water and condenser systems, practice countersigned by operators and signed off by trainers.</p>
+      </div>
+      <aside className="rounded-md border border-watch bg-panel px-4 py-2 text-sm" aria-label="Caution">
+        <strong>Caution — </strong>a sign-off here records training; it does not authorise anyone to operate plant. The station’s qualification procedure and the shift lead decide who may do what.
+      </aside>
+      <div role="tablist" aria-label="Training views" className="flex flex-wrap gap-1 border-b border-line">
+        {tabs.map((t) => (
+          <button key={t} role="tab" type="button" aria-selected={t === tab} className={`rounded-t-md px-3 py-2 ${t === tab ? 'border border-b-0 border-line bg-panel font-bold' : 'text-muted'}`} onClick={() => setChosen(t)}>
+            {tabLabels[t]}
+          </button>
+        ))}
+      </div>
+      <div role="tabpanel" aria-label={tabLabels[tab]}>
+        {tab === 'mine' ? <MyRecord /> : null}
+        {tab === 'countersign' ? <CountersignQueue /> : null}
+        {tab === 'queue' ? <ReviewQueue /> : null}
+        {tab === 'crews' ? <CrewQualifications defaultCrewId={me.crewId} /> : null}
+        {tab === 'catalogue' ? <CataloguePanel mayEdit={mayEdit} /> : null}
+      </div>
+    </section>
+  );
+}
