@@ -134,6 +134,17 @@ describe('logbook search', () => {
     expect(await kindOf('rolledback')).toEqual([]);
   });
 
+  it('finds an equipment tag whole, not every record that shares a fragment of it', async () => {
+    const write = (text: string) => post(agents.operator, `/api/units/${unitId}/log`, { position: 'control_room', category: 'operation', text });
+    await write(`Started 1-CWP-B; ${word('tagcheck')} discharge pressure normal.`).expect(201);
+    await write(`Stopped 1-CWP-A; ${word('tagcheck')} for the outage.`).expect(201);
+    await write(`Pump 1 CWP B fragments only, ${word('tagcheck')}.`).expect(201);
+    const tag = await search(agents.trainer, { q: `1-CWP-B ${word('tagcheck')}` });
+    expect(tag.body.total).toBe(1);
+    expect(tag.body.hits[0].snippet).toContain('Started 1-CWP-B');
+    expect((await search(agents.trainer, { q: word('tagcheck') })).body.total).toBe(3);
+  });
+
   it('handles hostile input with a clear 400 or a safe search, never a 500', async () => {
     for (const q of [`"vacuum ${word('loss')}"`, `+vacuum -pump ${word('loss')}*`, `vacuum) AND (${word('loss')}`, `@distance ~${word('loss')} <>`, `' OR 1=1 -- ${word('loss')}`, `%_\\ ${word('loss')}`]) {
       const res = await search(agents.trainee, { q });

@@ -15,7 +15,7 @@ const when = (allowNull = false) => ({ type: DataTypes.DATE(3), allowNull });
 //   task key, so entries and decisions keep pointing at the version they were made against.
 // - Training entries and trainer decisions are only inserted; corrections are amendments.
 // - logbook_documents is the search index over the logbook (one row per searchable record,
-//   FULLTEXT over title and body), kept by model hooks in the writer's transaction.
+//   FULLTEXT over title, body and joined terms), kept by model hooks in the writer's transaction.
 // - Review comments point at a logbook document and are only inserted.
 export async function up({ context: qi }: { context: QueryInterface }) {
   await qi.createTable('qualification_tasks', {
@@ -92,11 +92,14 @@ export async function up({ context: qi }: { context: QueryInterface }) {
     severity: { type: DataTypes.STRING(16), allowNull: true },
     title: { type: DataTypes.STRING(300), allowNull: false },
     body: { type: DataTypes.TEXT('medium'), allowNull: false },
+    // Tags and other hyphenated terms (1-CWP-B, WP-1187) as single words (1_cwp_b), which the
+    // FULLTEXT parser would otherwise split into fragments too short to index.
+    terms: { type: DataTypes.TEXT, allowNull: true },
   });
   await qi.addIndex('logbook_documents', ['kind', 'ref_id'], { unique: true });
   await qi.addIndex('logbook_documents', ['unit_id', 'occurred_at']);
   await qi.addIndex('logbook_documents', ['station_id', 'occurred_at']);
-  await qi.addIndex('logbook_documents', ['title', 'body'], { type: 'FULLTEXT', name: 'logbook_documents_text' });
+  await qi.addIndex('logbook_documents', ['title', 'body', 'terms'], { type: 'FULLTEXT', name: 'logbook_documents_text' });
 
   await qi.createTable('review_comments', {
     id,

@@ -65,6 +65,10 @@ const sources: Record<DocumentKind, string> = {
     FROM conditions c JOIN units u ON u.id = c.unit_id WHERE {ids:c.id}`,
 };
 
+// Keeps only the hyphen- or slash-joined terms of title and body (everything else becomes a
+// space), then joins their parts with "_", which the FULLTEXT parser keeps inside a word.
+const JOINED_TERMS = `REPLACE(REPLACE(REGEXP_REPLACE(CONCAT(title, ' ', body), '([[:alnum:]]+(?:[-/][[:alnum:]]+)+)|.', '\\\\1 '), '-', '_'), '/', '_')`;
+
 const columns = 'kind, ref_id, unit_id, station_id, occurred_at, shift_start, crew_id, person_id, severity, title, body';
 const upsert = `ON DUPLICATE KEY UPDATE unit_id = VALUES(unit_id), occurred_at = VALUES(occurred_at), person_id = VALUES(person_id),
   severity = VALUES(severity), title = VALUES(title), body = VALUES(body),
@@ -78,6 +82,8 @@ function sourceSql(kind: DocumentKind, ids: readonly number[] | null) {
 export async function indexDocuments(sequelize: Sequelize, kind: DocumentKind, ids: readonly number[] | null, transaction?: Transaction | null) {
   if (ids && ids.length === 0) return;
   await sequelize.query(`INSERT INTO logbook_documents (${columns}) ${sourceSql(kind, ids)} ${upsert}`, { transaction: transaction ?? undefined });
+  const only = ids ? `AND ref_id IN (${ids.map(Number).join(',')})` : '';
+  await sequelize.query(`UPDATE logbook_documents SET terms = ${JOINED_TERMS} WHERE kind = '${kind}' ${only}`, { transaction: transaction ?? undefined });
   // A round back inside limits and never amended is no longer a document.
   if (kind === 'round' && ids) {
     await sequelize.query(

@@ -15,8 +15,13 @@ const MIN_WORD = 3;
 const MAX_WORDS = 12;
 
 export function searchWords(text: string): string[] {
-  const words = (text.normalize('NFKC').toLowerCase().match(/[\p{L}\p{N}]+/gu) ?? []).filter((w) => w.length >= MIN_WORD && !STOPWORDS.has(w));
-  return [...new Set(words)].slice(0, MAX_WORDS);
+  const terms: string[] = [];
+  for (const group of text.normalize('NFKC').toLowerCase().match(/[\p{L}\p{N}]+(?:[-/][\p{L}\p{N}]+)*/gu) ?? []) {
+    // A joined term (a tag such as 1-CWP-B) is searched whole, as the index stores it.
+    if (/[-/]/.test(group)) terms.push(group.replace(/[-/]/g, '_'));
+    else if (group.length >= MIN_WORD && !STOPWORDS.has(group)) terms.push(group);
+  }
+  return [...new Set(terms)].slice(0, MAX_WORDS);
 }
 
 /** Midnight at the start of the station-local day `date` (YYYY-MM-DD), plus `days` days. */
@@ -53,7 +58,7 @@ export async function searchLogbook(sequelize: Sequelize, filters: LogbookSearch
   const where: string[] = [];
   const params: unknown[] = [];
   if (words.length) {
-    where.push('MATCH(d.title, d.body) AGAINST(? IN BOOLEAN MODE)');
+    where.push('MATCH(d.title, d.body, d.terms) AGAINST(? IN BOOLEAN MODE)');
     params.push(words.map((w) => `+${w}`).join(' '));
   }
   const filter = (sql: string, value: unknown) => {
@@ -71,26 +76,31 @@ export async function searchLogbook(sequelize: Sequelize, filters: LogbookSearch
 
   const pageSize = limitOverride ?? filters.pageSize;
   const offset = limitOverride ? 0 : (filters.page - 1) * filters.pageSize;
-  // Rank: the typed text as it stands (an exact phrase) first, then relevance, then newest.
-  const phrase = words.length > 1 ? `%${likeEscape(text.toLowerCase())}%` : null;
+  // Rank: the text as typed (an exact phrase: "vacuum loss", "1-CWP-B") first, then relevance,
+  // then newest. The relevance is the same MATCH as the filter, so the index is searched once;
+  // the columns' case-insensitive collation makes LIKE ignore case.
+  const phrase = words.length > 1 || (words.length === 1 && text.trim().toLowerCase() !== words[0]) ? `%${likeEscape(text)}%` : null;
   const rankSql = words.length
-    ? `${phrase ? '(LOWER(d.title) LIKE ? OR LOWER(d.body) LIKE ?)' : 'FALSE'} AS exact, MATCH(d.title, d.body) AGAINST(? IN NATURAL LANGUAGE MODE) AS score`
+    ? `${phrase ? '(d.title LIKE ? OR d.body LIKE ?)' : 'FALSE'} AS exact, MATCH(d.title, d.body, d.terms) AGAINST(? IN BOOLEAN MODE) AS score`
     : 'FALSE AS exact, 0 AS score';
-  const rankParams = words.length ? [...(phrase ? [phrase, phrase] : []), words.join(' ')] : [];
+  const rankParams = words.length ? [...(phrase ? [phrase, phrase] : []), params[0]] : [];
 
-  const [rows, counted] = await Promise.all([
-    sequelize.query<Record<string, unknown>>(
-      `SELECT d.id, d.kind, d.ref_id, d.unit_id, u.name AS unit_name, d.occurred_at, d.shift_start, c.name AS crew_name, p.name AS person_name,
-              d.severity, d.title, LEFT(d.body, 4000) AS body, ${rankSql}
-       FROM logbook_documents d
-       LEFT JOIN units u ON u.id = d.unit_id LEFT JOIN crews c ON c.id = d.crew_id LEFT JOIN users p ON p.id = d.person_id
-       ${whereSql}
-       ORDER BY exact DESC, score DESC, d.occurred_at DESC, d.id DESC
-       LIMIT ? OFFSET ?`,
-      { replacements: [...rankParams, ...params, pageSize, offset], type: QueryTypes.SELECT },
-    ),
-    sequelize.query<{ total: number }>(`SELECT COUNT(*) AS total FROM logbook_documents d ${whereSql}`, { replacements: params, type: QueryTypes.SELECT }),
-  ]);
+  // Rank narrow first (ids and sort keys only, with the total from the same pass), then fetch
+  // the page's details: sorting wide rows with their text for every match costs far more.
+  const rows = await sequelize.query<Record<string, unknown>>(
+    `SELECT d.id, d.kind, d.ref_id, d.unit_id, u.name AS unit_name, d.occurred_at, d.shift_start, c.name AS crew_name, p.name AS person_name,
+            d.severity, d.title, LEFT(d.body, 4000) AS body, ranked.exact, ranked.total
+     FROM (SELECT d.id, ${rankSql}, d.occurred_at, COUNT(*) OVER () AS total FROM logbook_documents d ${whereSql}
+           ORDER BY exact DESC, score DESC, d.occurred_at DESC, d.id DESC LIMIT ? OFFSET ?) ranked
+     JOIN logbook_documents d ON d.id = ranked.id
+     LEFT JOIN units u ON u.id = d.unit_id LEFT JOIN crews c ON c.id = d.crew_id LEFT JOIN users p ON p.id = d.person_id
+     ORDER BY ranked.exact DESC, ranked.score DESC, ranked.occurred_at DESC, ranked.id DESC`,
+    { replacements: [...rankParams, ...params, pageSize, offset], type: QueryTypes.SELECT },
+  );
+  // A page past the end carries no total: count separately only then.
+  const total = rows.length
+    ? Number(rows[0]!.total)
+    : Number((await sequelize.query<{ total: number }>(`SELECT COUNT(*) AS total FROM logbook_documents d ${whereSql}`, { replacements: params, type: QueryTypes.SELECT }))[0]?.total ?? 0);
 
   const hits: SearchHit[] = rows.map((r) => ({
     documentId: Number(r.id),
@@ -107,14 +117,14 @@ export async function searchLogbook(sequelize: Sequelize, filters: LogbookSearch
     snippet: snippetAround(String(r.body), words),
     exactPhrase: Number(r.exact) === 1,
   }));
-  return { hits, total: Number(counted[0]?.total ?? 0), page: limitOverride ? 1 : filters.page, pageSize, words };
+  return { hits, total, page: limitOverride ? 1 : filters.page, pageSize, words };
 }
 
 /** About 240 characters of the body around the first word found, with whitespace tidied. */
 export function snippetAround(body: string, words: string[]) {
   const clean = body.replace(/\s+/g, ' ').trim();
   const lower = clean.toLowerCase();
-  const at = words.map((w) => lower.indexOf(w)).filter((i) => i >= 0).sort((a, b) => a - b)[0] ?? 0;
+  const at = words.map((w) => lower.indexOf(w.replace(/_/g, '-'))).filter((i) => i >= 0).sort((a, b) => a - b)[0] ?? 0;
   const start = Math.max(0, at - 80);
   const cut = clean.slice(start, start + 240);
   return `${start > 0 ? '…' : ''}${cut}${start + 240 < clean.length ? '…' : ''}`;
