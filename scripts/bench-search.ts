@@ -131,11 +131,20 @@ async function main() {
       if (variant === 2) params.set('crewId', String(crews[i % crews.length]));
       if (variant === 3) params.set('kind', 'handover_item');
       if (variant === 4) params.set('severity', 'high');
-      if (variant === 5) (params.set('from', `${year(2)}-01-01`), params.set('to', `${year(2)}-12-31`));
+      if (variant === 5) {
+        params.set('from', `${year(2)}-01-01`);
+        params.set('to', `${year(2)}-12-31`);
+      }
       if (variant === 6) params.set('page', '3');
-      if (variant === 7) (params.set('unitId', String(units[1]!.id)), params.set('kind', 'log_entry'));
+      if (variant === 7) {
+        params.set('unitId', String(units[1]!.id));
+        params.set('kind', 'log_entry');
+      }
       if (variant === 8) params.set('kind', 'flag');
-      if (variant === 9) (params.set('personId', String(people[i % people.length])), params.set('from', `${year(1)}-06-01`));
+      if (variant === 9) {
+        params.set('personId', String(people[i % people.length]));
+        params.set('from', `${year(1)}-06-01`);
+      }
       queries.push(params.toString());
     }
     // One unrecorded pass over a few queries warms the pool and the JIT, as a running server would be.
