@@ -2,7 +2,8 @@
 import argon2 from 'argon2';
 import passport from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
-import type { RequestHandler } from 'express';
+import type { Request, RequestHandler } from 'express';
+import { takeSessionPerson } from './session-store';
 import type { Role } from '../../shared/roles';
 import { User } from '../features/users/model';
 import { Forbidden, Unauthorized } from './errors';
@@ -62,9 +63,11 @@ export function configurePassport() {
     }),
   );
   passport.serializeUser((user, done) => done(null, user.id));
-  // Loaded fresh on every request so a role change or deactivation applies at once; a plain row
-  // (no model instance) because every request pays for it.
-  passport.deserializeUser((id: number, done) => {
+  // Read fresh on every request so a role change or deactivation applies at once: the session
+  // store reads the person with the session (one query); only without that row is it asked again.
+  passport.deserializeUser((req: Request, id: number, done: (error: unknown, user?: Express.User | false) => void) => {
+    const prefetched = takeSessionPerson(req.sessionID);
+    if (prefetched && prefetched.id === id) return done(null, prefetched.active ? toSessionUser(prefetched as Parameters<typeof toSessionUser>[0]) : false);
     User.findByPk(id, { raw: true, attributes: ['id', 'name', 'email', 'role', 'crewId', 'mustChangePassword', 'active'] })
       .then((user) => done(null, user && user.active ? toSessionUser(user) : false))
       .catch(done);
