@@ -77,5 +77,14 @@ test('the trainer opens a past shift from the logbook and comments; the trainee 
   await expect(trainee.page.getByRole('article').filter({ hasText: 'Level controller found in manual' }).getByTestId('review-comment')).toBeVisible();
   // Trainees read the logbook but do not comment.
   await expect(trainee.page.getByRole('button', { name: 'Add a review comment' })).toHaveCount(0);
+
+  // Practice can be recorded from the shift it came from, and keeps the link.
+  await trainee.page.getByRole('link', { name: 'Record as training practice' }).first().click();
+  await expect(trainee.page.getByTestId('practice-link')).toContainText('Linked to the shift');
+  const form = trainee.page.getByRole('form', { name: 'Record a practice' });
+  await form.getByLabel('Task').selectOption('CT-02');
+  await form.getByLabel('What you did').fill('Reported the hotwell level creeping up and followed the controller check');
+  await form.getByRole('button', { name: 'Record practice' }).click();
+  await expect(trainee.page.getByTestId('training-entry').filter({ hasText: 'followed the controller check' })).toContainText('From the shift of');
   await trainee.close();
 });

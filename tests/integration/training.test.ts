@@ -48,12 +48,41 @@ describe('qualification catalogue', () => {
     await agents.trainee.put(`/api/training/tasks/${key}`).set('X-CSRF-Token', agents.trainee.csrf).send({ ...task, changeNote: 'x' }).expect(403);
   });
 
-  it('answers 401 signed out on the training routes', async () => {
+  it('answers 401 signed out on every training route', async () => {
     const anon = await anonymousAgent(built);
-    for (const path of ['/api/training/tasks', '/api/training/me', '/api/training/review-queue', '/api/training/countersign-queue', `/api/training/trainees/1`]) {
+    for (const path of ['/api/training/tasks', `/api/training/tasks/${key}/versions`, '/api/training/me', '/api/training/review-queue', '/api/training/countersign-queue', '/api/training/trainees/1', '/api/training/crews/1']) {
       await anon.get(path).expect(401);
     }
-    await post(anon, '/api/training/entries', {}).expect(401);
+    for (const path of ['/api/training/tasks', `/api/training/tasks/${key}/retire`, '/api/training/entries', '/api/training/entries/1/countersign', '/api/training/entries/1/reject', '/api/training/decisions', '/api/training/amendments']) {
+      await post(anon, path, {}).expect(401);
+    }
+    await anon.put(`/api/training/tasks/${key}`).set('X-CSRF-Token', anon.csrf).send({}).expect(401);
+  });
+
+  it('answers 403 to every role a route is not for, before looking at the body', async () => {
+    const forbidden: [keyof typeof agents, 'get' | 'post' | 'put', string][] = [
+      ['trainee', 'post', '/api/training/tasks'],
+      ['operator', 'put', `/api/training/tasks/${key}`],
+      ['lead', 'post', `/api/training/tasks/${key}/retire`],
+      ['operator', 'post', '/api/training/entries'],
+      ['trainer', 'post', '/api/training/entries'],
+      ['trainee', 'post', '/api/training/entries/1/countersign'],
+      ['trainer', 'post', '/api/training/entries/1/reject'],
+      ['admin', 'post', '/api/training/entries/1/countersign'],
+      ['admin', 'post', '/api/training/decisions'],
+      ['lead', 'post', '/api/training/decisions'],
+      ['operator', 'get', '/api/training/me'],
+      ['trainee', 'get', '/api/training/countersign-queue'],
+      ['trainer', 'get', '/api/training/countersign-queue'],
+      ['trainee', 'get', '/api/training/review-queue'],
+      ['lead', 'get', '/api/training/review-queue'],
+      ['trainee', 'get', '/api/training/crews/1'],
+    ];
+    for (const [who, method, path] of forbidden) {
+      const agent = agents[who];
+      const res = method === 'get' ? await agent.get(path) : await agent[method](path).set('X-CSRF-Token', agent.csrf).send({});
+      expect(res.status, `${who} ${method} ${path}`).toBe(403);
+    }
   });
 });
 
@@ -68,6 +97,9 @@ describe('training entries, countersign and sign-off', () => {
     const future = await entry({ performedOn: '2099-01-01' });
     expect(future.status).toBe(400);
     expect(future.body.error.fields.performedOn).toMatch(/future/);
+    const badLinks = await entry({ shiftStart: '2026-01-01T05:13:00Z', readingSetId: 999999999, handoverItemId: 999999999 });
+    expect(badLinks.status).toBe(400);
+    expect(Object.keys(badLinks.body.error.fields).sort()).toEqual(['handoverItemId', 'readingSetId', 'unitId']);
     const wrongSupervisor = await entry({ supervisorId: ids.otherTrainee });
     expect(wrongSupervisor.status).toBe(400);
     expect(wrongSupervisor.body.error.fields.supervisorId).toBeTruthy();

@@ -9,6 +9,8 @@ import { User } from '../users/model';
 import { PlantUnit } from '../plant/model';
 import { ReadingSet } from '../readings/model';
 import { HandoverItem } from '../handovers/model';
+import { settingsForStation } from '../stations/settings';
+import { shiftStartFor } from '../../../shared/shift-time';
 import { QualificationTask, TrainingAmendment, TrainingDecision, TrainingEntry } from './model';
 
 type Actor = Express.User;
@@ -83,9 +85,16 @@ export function makeTrainingService(sequelize: Sequelize) {
     if (task.retired) throw new ValidationError({ taskKey: 'This task is retired' });
     const fields: Record<string, string> = {};
     if (input.performedOn > new Date().toISOString().slice(0, 10)) fields.performedOn = 'The date is in the future';
-    if (input.unitId && !(await PlantUnit.findByPk(input.unitId))) fields.unitId = 'No such unit';
+    const unit = input.unitId ? await PlantUnit.findByPk(input.unitId) : null;
+    if (input.unitId && !unit) fields.unitId = 'No such unit';
     if (input.shiftStart && !input.unitId) fields.unitId = 'Say which unit the shift was on';
-    if (input.readingSetId && !(await ReadingSet.findByPk(input.readingSetId, { attributes: ['id'] }))) fields.readingSetId = 'No such round';
+    if (input.shiftStart && unit) {
+      const settings = await settingsForStation(unit.stationId);
+      const start = new Date(input.shiftStart);
+      if (shiftStartFor(start, settings.timeZone, settings.shiftChangeTimes).getTime() !== start.getTime()) fields.shiftStart = 'That time is not the start of a shift';
+    }
+    const round = input.readingSetId ? await ReadingSet.findByPk(input.readingSetId, { attributes: ['id', 'unitId'] }) : null;
+    if (input.readingSetId && (!round || (input.unitId && round.unitId !== input.unitId))) fields.readingSetId = 'No such round on this unit';
     if (input.handoverItemId && !(await HandoverItem.findByPk(input.handoverItemId, { attributes: ['id'] }))) fields.handoverItemId = 'No such handover item';
     if (input.supervisorId) {
       const supervisor = await User.findByPk(input.supervisorId);

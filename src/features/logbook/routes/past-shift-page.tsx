@@ -22,7 +22,16 @@ function limitText(band: { lowAlarm?: number | null; lowWatch?: number | null; h
   return parts.length ? parts.join(', ') : null;
 }
 
-function Handover({ title, board, doc, comments, mayComment }: { title: string; board: NonNullable<PastShift['handoverGiven']>; doc: (kind: string, id: number) => number | undefined; comments: PastShift['comments']; mayComment: boolean }) {
+type HandoverProps = {
+  title: string;
+  board: NonNullable<PastShift['handoverGiven']>;
+  doc: (kind: string, id: number) => number | undefined;
+  comments: PastShift['comments'];
+  mayComment: boolean;
+  practice: ((itemId: number) => React.ReactNode) | null;
+};
+
+function Handover({ title, board, doc, comments, mayComment, practice }: HandoverProps) {
   const h = board.handover;
   return (
     <section aria-label={title} className="flex flex-col gap-2">
@@ -47,6 +56,7 @@ function Handover({ title, board, doc, comments, mayComment }: { title: string; 
               ❓ {q.question} — {q.askedBy} · {q.answer ? `answer by ${q.answeredBy}: ${q.answer}` : 'unanswered'}
             </p>
           ))}
+          {practice ? practice(item.id) : null}
         </ReviewedRecord>
       ))}
       {board.amendments.map((a) => (
@@ -57,6 +67,18 @@ function Handover({ title, board, doc, comments, mayComment }: { title: string; 
         </ReviewedRecord>
       ))}
     </section>
+  );
+}
+
+/** For a trainee: record training practice that came from this record. */
+function PracticeLink({ unitId, shiftStart, what }: { unitId: number; shiftStart: string; what?: { readingSetId?: number; handoverItemId?: number } }) {
+  const params = new URLSearchParams({ unitId: String(unitId), shiftStart });
+  if (what?.readingSetId) params.set('readingSetId', String(what.readingSetId));
+  if (what?.handoverItemId) params.set('handoverItemId', String(what.handoverItemId));
+  return (
+    <Link className="text-sm underline" to={`/training?${params}`}>
+      Record as training practice
+    </Link>
   );
 }
 
@@ -79,6 +101,8 @@ export function PastShiftPage() {
   const docs = new Map(s.documents.map((d) => [`${d.kind}:${d.refId}`, d.id]));
   const doc = (kind: string, id: number) => docs.get(`${kind}:${id}`);
   const common = { comments: s.comments, mayComment };
+  const isTrainee = me?.role === 'trainee';
+  const practice = isTrainee ? (itemId: number) => <PracticeLink unitId={s.unit.id} shiftStart={s.shift.start} what={{ handoverItemId: itemId }} /> : null;
   return (
     <section className="flex flex-col gap-5">
       <div>
@@ -92,6 +116,7 @@ export function PastShiftPage() {
           {s.shift.crew ? `Crew ${s.shift.crew.name} on shift` : 'No crew rotation recorded'} · station time ({s.shift.timeZone}) · read-only record
           {s.shift.inProgress ? ' · this shift is still in progress' : ''}
         </p>
+        {isTrainee ? <PracticeLink unitId={s.unit.id} shiftStart={s.shift.start} /> : null}
       </div>
       <CautionNote />
 
@@ -156,6 +181,7 @@ export function PastShiftPage() {
                 Amended by {a.amendedBy} at {stamp(a.amendedAt)} — <em>{a.reason}</em>
               </p>
             ))}
+            {isTrainee ? <PracticeLink unitId={s.unit.id} shiftStart={s.shift.start} what={{ readingSetId: r.reading.id }} /> : null}
           </ReviewedRecord>
         ))}
       </section>
@@ -206,8 +232,8 @@ export function PastShiftPage() {
         ))}
       </section>
 
-      {s.handoverReceived ? <Handover title="Handover received at the start" board={s.handoverReceived} doc={doc} {...common} /> : <p className="text-muted">No handover recorded at the start of this shift.</p>}
-      {s.handoverGiven ? <Handover title="Handover given at the end" board={s.handoverGiven} doc={doc} {...common} /> : <p className="text-muted">No handover recorded at the end of this shift.</p>}
+      {s.handoverReceived ? <Handover title="Handover received at the start" board={s.handoverReceived} doc={doc} practice={practice} {...common} /> : <p className="text-muted">No handover recorded at the start of this shift.</p>}
+      {s.handoverGiven ? <Handover title="Handover given at the end" board={s.handoverGiven} doc={doc} practice={practice} {...common} /> : <p className="text-muted">No handover recorded at the end of this shift.</p>}
     </section>
   );
 }

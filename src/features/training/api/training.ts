@@ -34,6 +34,8 @@ export type EntryView = {
   recordedAt: string;
   unitId: number | null;
   shiftStart: string | null;
+  readingSetId: number | null;
+  handoverItemId: number | null;
   amendments: Amendment[];
 };
 export type DecisionView = { id: number; taskKey: string; taskVersion: number | null; decision: 'signed_off' | 'returned'; comments: string; trainer: string; decidedAt: string; amendments: Amendment[] };

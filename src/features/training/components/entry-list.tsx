@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import { format } from 'date-fns';
+import { Link } from 'react-router';
 import { trainingLevelLabels } from '../../../../shared/schemas/training';
 import { Notice } from '../../../components/ui/notice';
 import { ApiError } from '../../../lib/api-client';
@@ -61,6 +62,13 @@ export function EntryList({ entries, mayAmend }: { entries: EntryView[]; mayAmen
             {e.supervisor ? ` · supervisor ${e.supervisor}` : ''}
           </p>
           <p>{e.note}</p>
+          {e.unitId && e.shiftStart ? (
+            <Link className="text-xs underline" to={`/logbook/units/${e.unitId}/shifts/${encodeURIComponent(e.shiftStart)}`}>
+              From the shift of {format(new Date(e.shiftStart), 'yyyy-MM-dd HH:mm')}
+              {e.readingSetId ? `, round #${e.readingSetId}` : ''}
+              {e.handoverItemId ? `, handover item #${e.handoverItemId}` : ''}
+            </Link>
+          ) : null}
           <p className="text-xs font-bold">
             {statusWords[e.status]}
             {e.countersignedBy ? ` by ${e.countersignedBy} ${format(new Date(e.countersignedAt!), 'yyyy-MM-dd HH:mm')}` : ''}

@@ -1,4 +1,6 @@
 import { useForm } from 'react-hook-form';
+import { Link, useSearchParams } from 'react-router';
+import { format } from 'date-fns';
 import { trainingLevelLabels, trainingLevels, type NewTrainingEntry } from '../../../../shared/schemas/training';
 import { SelectField, TextField } from '../../../components/ui/form-field';
 import { Notice } from '../../../components/ui/notice';
@@ -9,13 +11,25 @@ import { useRecordEntry, useTasks } from '../api/training';
 
 type Values = { taskKey: string; performedOn: string; level: string; supervisorId: string; unitId: string; note: string };
 
+/** What the practice came from, when the trainee arrived from a past shift (?unitId&shiftStart&readingSetId|handoverItemId). */
+function useLinkedRecord() {
+  const [params, setParams] = useSearchParams();
+  const number = (key: string) => (Number(params.get(key)) > 0 ? Number(params.get(key)) : null);
+  const shiftStart = params.get('shiftStart');
+  const link = { unitId: number('unitId'), shiftStart: shiftStart && !Number.isNaN(Date.parse(shiftStart)) ? shiftStart : null, readingSetId: number('readingSetId'), handoverItemId: number('handoverItemId') };
+  const clear = () => setParams(new URLSearchParams());
+  return { link, linked: Boolean(link.shiftStart || link.readingSetId || link.handoverItemId), clear };
+}
+
 /** A trainee records one practice of a task; a supervising operator countersigns it later. */
 export function RecordPracticeForm() {
+  const { link, linked, clear } = useLinkedRecord();
   const tasks = useTasks();
   const people = usePeople();
   const units = useUnitList();
   const record = useRecordEntry();
-  const form = useForm<Values>({ defaultValues: { taskKey: '', performedOn: new Date().toISOString().slice(0, 10), level: 'supervised', supervisorId: '', unitId: '', note: '' } });
+  const performedOn = link.shiftStart ? format(new Date(link.shiftStart), 'yyyy-MM-dd') : new Date().toISOString().slice(0, 10);
+  const form = useForm<Values>({ defaultValues: { taskKey: '', performedOn, level: 'supervised', supervisorId: '', unitId: link.unitId ? String(link.unitId) : '', note: '' } });
   const errors = form.formState.errors;
   const submit = form.handleSubmit(async (values) => {
     const input: NewTrainingEntry = {
@@ -25,6 +39,7 @@ export function RecordPracticeForm() {
       note: values.note,
       supervisorId: values.supervisorId ? Number(values.supervisorId) : null,
       unitId: values.unitId ? Number(values.unitId) : null,
+      ...(linked ? { shiftStart: link.shiftStart, readingSetId: link.readingSetId, handoverItemId: link.handoverItemId } : {}),
     };
     try {
       await record.mutateAsync(input);
@@ -36,6 +51,20 @@ export function RecordPracticeForm() {
   return (
     <form onSubmit={submit} aria-label="Record a practice" className="grid gap-3 rounded-lg border border-line bg-panel p-3 sm:grid-cols-2">
       <h2 className="text-lg font-bold sm:col-span-2">Record a practice</h2>
+      {linked ? (
+        <p className="text-sm sm:col-span-2" data-testid="practice-link">
+          Linked to {link.readingSetId ? `round #${link.readingSetId}` : link.handoverItemId ? `handover item #${link.handoverItemId}` : 'the shift'}
+          {link.shiftStart ? ` of the shift starting ${format(new Date(link.shiftStart), 'yyyy-MM-dd HH:mm')}` : ''}.{' '}
+          {link.unitId && link.shiftStart ? (
+            <Link className="underline" to={`/logbook/units/${link.unitId}/shifts/${encodeURIComponent(link.shiftStart)}`}>
+              Open it
+            </Link>
+          ) : null}{' '}
+          <button type="button" className="underline" onClick={clear}>
+            Remove the link
+          </button>
+        </p>
+      ) : null}
       {errors.root?.message ? <div className="sm:col-span-2"><Notice kind="error">{errors.root.message}</Notice></div> : null}
       {record.isSuccess && !form.formState.isDirty ? <div className="sm:col-span-2"><Notice kind="success">Recorded; it now waits for a countersign.</Notice></div> : null}
       <SelectField label="Task" error={errors.taskKey?.message} {...form.register('taskKey')}>
