@@ -38,3 +38,34 @@ export const reviewCommentSchema = z.object({
   documentId: z.number().int().positive(),
   body: z.string().trim().min(3, 'Write the comment (at least 3 characters)').max(4000, 'At most 4 000 characters'),
 });
+
+/** One search result, as the API sends it. */
+export type SearchHit = {
+  documentId: number;
+  kind: string;
+  refId: number;
+  unitId: number | null;
+  unitName: string | null;
+  occurredAt: string;
+  shiftStart: string | null;
+  crewName: string | null;
+  personName: string | null;
+  severity: string | null;
+  title: string;
+  snippet: string;
+  exactPhrase: boolean;
+};
+
+/** A trainer's review comment with the record it is about. */
+export type ReviewCommentView = {
+  id: number;
+  documentId: number;
+  kind: string;
+  refId: number;
+  unitId: number | null;
+  shiftStart: string | null;
+  about: string;
+  author: string;
+  body: string;
+  createdAt: string;
+};

@@ -7,6 +7,7 @@ import { recordAudit } from '../../lib/audit';
 import type { RealtimeHub } from '../../lib/realtime';
 import { User } from '../users/model';
 import { ReviewComment } from './model';
+import type { ReviewCommentView } from '../../../shared/schemas/logbook';
 
 const REVIEWERS = ['trainer', 'shift_lead', 'admin'];
 
@@ -34,7 +35,7 @@ export async function commentsOn(sequelize: Sequelize, viewer: Express.User, doc
   return present(comments.filter((c) => mayRead(viewer, docs.get(c.documentId)!)), docs);
 }
 
-async function present(comments: ReviewComment[], docs: Map<number, DocumentRow>) {
+async function present(comments: ReviewComment[], docs: Map<number, DocumentRow>): Promise<ReviewCommentView[]> {
   const authors = new Map((await User.findAll({ where: { id: [...new Set(comments.map((c) => c.authorId))] }, attributes: ['id', 'name'] })).map((u) => [u.id, u.name]));
   return comments.map((c) => {
     const doc = docs.get(c.documentId)!;

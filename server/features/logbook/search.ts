@@ -3,7 +3,7 @@
 // quotes, boolean operators and wildcards typed by a person are searched as plain words.
 import { TZDate } from '@date-fns/tz';
 import { QueryTypes, type Sequelize } from 'sequelize';
-import type { LogbookSearch } from '../../../shared/schemas/logbook';
+import type { LogbookSearch, SearchHit } from '../../../shared/schemas/logbook';
 import { ValidationError } from '../../lib/errors';
 
 // InnoDB's default FULLTEXT stopwords and its minimum token length (3): such words are not in the
@@ -31,22 +31,6 @@ function localMidnight(date: string, timeZone: string, days = 0) {
 }
 
 const likeEscape = (text: string) => text.replace(/[\\%_]/g, (c) => `\\${c}`);
-
-export type SearchHit = {
-  documentId: number;
-  kind: string;
-  refId: number;
-  unitId: number | null;
-  unitName: string | null;
-  occurredAt: string;
-  shiftStart: string | null;
-  crewName: string | null;
-  personName: string | null;
-  severity: string | null;
-  title: string;
-  snippet: string;
-  exactPhrase: boolean;
-};
 
 /** `timeZone` turns the date filters into the station's local days. */
 export async function searchLogbook(sequelize: Sequelize, filters: LogbookSearch, timeZone: string, limitOverride?: number) {

@@ -2,6 +2,9 @@ import { keepPreviousData, useMutation, useQuery, useQueryClient } from '@tansta
 import type { Evaluation } from '../../../../shared/calc/evaluate';
 import type { LimitSet } from '../../../../shared/calc/limits';
 import { api } from '../../../lib/api-client';
+import type { ReviewCommentView, SearchHit } from '../../../../shared/schemas/logbook';
+
+export type { ReviewCommentView, SearchHit };
 
 export type SearchFilters = {
   q: string;
@@ -13,35 +16,6 @@ export type SearchFilters = {
   from?: string;
   to?: string;
   page: number;
-};
-
-export type SearchHit = {
-  documentId: number;
-  kind: string;
-  refId: number;
-  unitId: number | null;
-  unitName: string | null;
-  occurredAt: string;
-  shiftStart: string | null;
-  crewName: string | null;
-  personName: string | null;
-  severity: string | null;
-  title: string;
-  snippet: string;
-  exactPhrase: boolean;
-};
-
-export type ReviewCommentView = {
-  id: number;
-  documentId: number;
-  kind: string;
-  refId: number;
-  unitId: number | null;
-  shiftStart: string | null;
-  about: string;
-  author: string;
-  body: string;
-  createdAt: string;
 };
 
 export const logbookKeys = {
