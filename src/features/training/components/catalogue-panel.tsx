@@ -6,6 +6,7 @@ import { Notice } from '../../../components/ui/notice';
 import { applyServerErrors } from '../../../lib/form-errors';
 import { ApiError } from '../../../lib/api-client';
 import { useRetireTask, useSaveTask, useTasks, useTaskVersions, type TaskView } from '../api/training';
+import { groupBySystem } from '../lib/group-by-system';
 
 type Values = { taskKey: string; position: string; system: string; title: string; standard: string; procedureRef: string; requiredPerformances: string; changeNote: string };
 const blank: Values = { taskKey: '', position: 'field_operator', system: 'circulating_water', title: '', standard: '', procedureRef: '', requiredPerformances: '3', changeNote: '' };
@@ -31,7 +32,11 @@ function TaskForm({ editing, onDone }: { editing: TaskView | null; onDone: () =>
       <h3 className="font-bold sm:col-span-2">{editing ? `Change ${editing.taskKey} (becomes version ${editing.version + 1})` : 'New qualification task'}</h3>
       {errors.root?.message ? <div className="sm:col-span-2"><Notice kind="error">{errors.root.message}</Notice></div> : null}
       {editing ? null : <TextField label="Key" hint="e.g. CW-07" error={errors.taskKey?.message} {...form.register('taskKey')} />}
-      <TextField label="Position" hint="e.g. field_operator, control_room_operator" error={errors.position?.message} {...form.register('position')} />
+      <TextField label="Position" hint="e.g. field_operator, control_room_operator" list="qualification-positions" error={errors.position?.message} {...form.register('position')} />
+      <datalist id="qualification-positions">
+        <option value="field_operator" />
+        <option value="control_room_operator" />
+      </datalist>
       <SelectField label="System" error={errors.system?.message} {...form.register('system')}>
         {qualificationSystems.map((s) => (
           <option key={s} value={s}>
@@ -105,8 +110,14 @@ export function CataloguePanel({ mayEdit }: { mayEdit: boolean }) {
               <th className="p-2">Version</th>
             </tr>
           </thead>
-          <tbody>
-            {tasks.data?.map((t) => (
+          {groupBySystem(tasks.data ?? [], (t) => t.system).map((group) => (
+            <tbody key={group.system}>
+              <tr>
+                <th colSpan={6} scope="rowgroup" className="bg-field p-2 text-left">
+                  {group.label}
+                </th>
+              </tr>
+              {group.items.map((t) => (
               <tr key={t.taskKey} className="border-t border-line align-top">
                 <td className="p-2 font-bold">{t.taskKey}</td>
                 <td className="p-2">
@@ -142,8 +153,9 @@ export function CataloguePanel({ mayEdit }: { mayEdit: boolean }) {
                   ) : null}
                 </td>
               </tr>
-            ))}
-          </tbody>
+              ))}
+            </tbody>
+          ))}
         </table>
       </div>
     </section>

@@ -4,6 +4,7 @@ import { qualificationSystemLabels, taskStatusLabels, type TaskStatus } from '..
 import { Notice } from '../../../components/ui/notice';
 import { ApiError } from '../../../lib/api-client';
 import { useDecide, type Progress, type ProgressRow } from '../api/training';
+import { groupBySystem } from '../lib/group-by-system';
 
 // Status carried by a symbol and a word as well as colour.
 const statusLook: Record<TaskStatus, { icon: string; className: string }> = {
@@ -66,8 +67,14 @@ export function ProgressMatrix({ progress, mayDecide }: { progress: Progress; ma
             {mayDecide ? <th className="p-2">Trainer</th> : null}
           </tr>
         </thead>
-        <tbody>
-          {progress.rows.map((row) => (
+        {groupBySystem(progress.rows, (row) => row.task.system).map((group) => (
+          <tbody key={group.system}>
+            <tr>
+              <th colSpan={mayDecide ? 10 : 9} scope="rowgroup" className="bg-field p-2 text-left">
+                {group.label}
+              </th>
+            </tr>
+            {group.items.map((row) => (
             <tr key={row.task.taskKey} className="border-t border-line align-top" data-testid={`task-row-${row.task.taskKey}`}>
               <td className="p-2">
                 <strong>{row.task.taskKey}</strong> {row.task.title}
@@ -108,8 +115,9 @@ export function ProgressMatrix({ progress, mayDecide }: { progress: Progress; ma
               </td>
               {mayDecide ? <td className="p-2">{row.status === 'signed_off' || row.task.retired ? null : <DecisionForm traineeId={progress.trainee.id} row={row} />}</td> : null}
             </tr>
-          ))}
-        </tbody>
+            ))}
+          </tbody>
+        ))}
       </table>
     </div>
   );

@@ -8,6 +8,7 @@ import { usePeople } from '../../../components/people/person-select';
 import { useUnitList } from '../../../components/readings/unit-picker';
 import { applyServerErrors } from '../../../lib/form-errors';
 import { useRecordEntry, useTasks } from '../api/training';
+import { groupBySystem } from '../lib/group-by-system';
 
 type Values = { taskKey: string; performedOn: string; level: string; supervisorId: string; unitId: string; note: string };
 
@@ -69,10 +70,14 @@ export function RecordPracticeForm() {
       {record.isSuccess && !form.formState.isDirty ? <div className="sm:col-span-2"><Notice kind="success">Recorded; it now waits for a countersign.</Notice></div> : null}
       <SelectField label="Task" error={errors.taskKey?.message} {...form.register('taskKey')}>
         <option value="">Choose…</option>
-        {tasks.data?.map((t) => (
-          <option key={t.taskKey} value={t.taskKey}>
-            {t.taskKey} — {t.title}
-          </option>
+        {groupBySystem(tasks.data ?? [], (t) => t.system).map((group) => (
+          <optgroup key={group.system} label={group.label}>
+            {group.items.map((t) => (
+              <option key={t.taskKey} value={t.taskKey}>
+                {t.taskKey} — {t.title}
+              </option>
+            ))}
+          </optgroup>
         ))}
       </SelectField>
       <TextField label="Date" type="date" error={errors.performedOn?.message} {...form.register('performedOn')} />
