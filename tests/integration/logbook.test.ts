@@ -134,6 +134,20 @@ describe('logbook search', () => {
     expect(await kindOf('rolledback')).toEqual([]);
   });
 
+  it('indexes a round outside its limits under the checks\' names, and not a normal one', async () => {
+    // 28.5 inHg vacuum on a 29.92 inHg barometer: Ts ≈ 32.0 °C (steam tables); a 25 °C hotwell is
+    // ~7 K subcooled, over the starting alarm limit of 3 K (common practice, no source).
+    const base = { pressure: { value: 28.5, unit: 'inHg_vac' }, barometer: { value: 29.92, unit: 'inHgA' }, cwInletTemperature: { value: 18, unit: 'degC' }, cwOutletTemperature: { value: 26.5, unit: 'degC' }, cwFlow: { value: 54_000, unit: 'm3_h' } };
+    const cold = await post(agents.operator, `/api/units/${unitId}/readings`, { ...base, hotwellTemperature: { value: 25, unit: 'degC' } });
+    expect(cold.status, JSON.stringify(cold.body)).toBe(201);
+    const normal = await post(agents.operator, `/api/units/${unitId}/readings`, { ...base, hotwellTemperature: { value: 31.8, unit: 'degC' } });
+    expect(normal.status).toBe(201);
+    const found = await search(agents.trainer, { q: 'condensate subcooling alarm', kind: 'round', unitId });
+    const refs = found.body.hits.map((h: { refId: number }) => h.refId);
+    expect(refs).toContain(cold.body.id);
+    expect(refs).not.toContain(normal.body.id);
+  });
+
   it('finds an equipment tag whole, not every record that shares a fragment of it', async () => {
     const write = (text: string) => post(agents.operator, `/api/units/${unitId}/log`, { position: 'control_room', category: 'operation', text });
     await write(`Started 1-CWP-B; ${word('tagcheck')} discharge pressure normal.`).expect(201);

@@ -9,6 +9,7 @@ import { StationSettingsRow } from '../stations/model';
 import { defaultStationSettings, settingsFromRow } from '../stations/settings';
 import { CrewSwap } from '../shifts/model';
 import { crewFromRotation } from '../shifts/crews';
+import { checkCatalog } from '../../../shared/calc/check-catalog';
 
 export const documentKinds = [
   'log_entry',
@@ -24,11 +25,16 @@ export const documentKinds = [
 ] as const;
 export type DocumentKind = (typeof documentKinds)[number];
 
+const sqlText = (text: string) => `'${text.replace(/'/g, "''")}'`;
+/** A check's key (cleanlinessFactor) as the words people read and search (Cleanliness factor). */
+const checkLabel = (column: string) =>
+  `CASE ${column} ${Object.entries(checkCatalog).map(([key, check]) => `WHEN ${sqlText(key)} THEN ${sqlText(check.label)}`).join(' ')} ELSE ${column} END`;
+
 // Columns: kind, ref_id, unit_id, station_id, occurred_at, shift_start, crew_id, person_id, severity, title, body.
 // `{ids}` is replaced by the refresh filter (or TRUE for a full rebuild).
 const sources: Record<DocumentKind, string> = {
   log_entry: `SELECT 'log_entry', e.id, e.unit_id, u.station_id, e.event_at, e.shift_start, NULL, e.author_id, NULL,
-      LEFT(CONCAT(e.category, ' · ', e.position), 300), e.text
+      LEFT(CONCAT(REPLACE(e.category, '_', ' '), ' · ', REPLACE(e.position, '_', ' ')), 300), e.text
     FROM log_entries e JOIN units u ON u.id = e.unit_id WHERE {ids:e.id}`,
   log_amendment: `SELECT 'log_amendment', a.id, e.unit_id, u.station_id, a.amended_at, NULL, NULL, a.author_id, NULL,
       LEFT(CONCAT('Amendment: ', a.reason), 300), a.text
@@ -39,7 +45,7 @@ const sources: Record<DocumentKind, string> = {
       COALESCE(h.submitted_by, h.created_by), NULL, 'Handover notes', REGEXP_REPLACE(h.notes_html, '<[^>]*>', ' ')
     FROM handovers h JOIN units u ON u.id = h.unit_id WHERE h.notes_html <> '' AND {ids:h.id}`,
   handover_item: `SELECT 'handover_item', i.id, h.unit_id, u.station_id, i.created_at, h.shift_start, h.outgoing_crew_id, i.created_by, i.priority,
-      i.title, CONCAT_WS(' ', REPLACE(i.kind, '_', ' '), i.detail, i.reference)
+      i.title, CONCAT_WS(' · ', i.detail, i.reference, REPLACE(i.kind, '_', ' '))
     FROM handover_items i JOIN handovers h ON h.id = i.handover_id JOIN units u ON u.id = h.unit_id WHERE {ids:i.id}`,
   handover_query: `SELECT 'handover_query', q.id, h.unit_id, u.station_id, q.asked_at, h.shift_start, h.incoming_crew_id, q.asked_by, NULL,
       LEFT(CONCAT('Question: ', q.question), 300), CONCAT_WS(' ', q.question, q.answer)
@@ -49,14 +55,14 @@ const sources: Record<DocumentKind, string> = {
       LEFT(CONCAT('Amendment: ', a.reason), 300), a.text
     FROM handover_amendments a JOIN handovers h ON h.id = a.handover_id JOIN units u ON u.id = h.unit_id WHERE {ids:a.id}`,
   flag: `SELECT 'flag', f.id, f.unit_id, u.station_id, f.raised_at, NULL, NULL, f.raised_by, f.severity,
-      CONCAT(IF(f.origin = 'manual', 'Flag: ', 'Automatic flag: '), f.parameter),
-      CONCAT_WS(' ', f.parameter, f.severity, f.status, f.comment, f.follow_up, f.clear_comment)
+      CONCAT(IF(f.origin = 'manual', 'Flag: ', 'Automatic flag: '), ${checkLabel('f.parameter')}),
+      CONCAT_WS(' · ', f.comment, f.follow_up, f.clear_comment, CONCAT(f.severity, ', ', f.status))
     FROM flags f JOIN units u ON u.id = f.unit_id WHERE {ids:f.id}`,
   // Only rounds with something to find: outside limits, or amended.
   round: `SELECT 'round', r.id, r.unit_id, u.station_id, r.taken_at, NULL, NULL, r.recorded_by, r.worst_status,
       CONCAT('Round: ', r.worst_status),
       CONCAT_WS(' ',
-        (SELECT GROUP_CONCAT(CONCAT(v.parameter, ' ', v.status) SEPARATOR ', ') FROM reading_values v WHERE v.reading_set_id = r.id AND v.status IN ('watch', 'alarm')),
+        (SELECT GROUP_CONCAT(CONCAT(${checkLabel('v.parameter')}, ': ', v.status) SEPARATOR ', ') FROM reading_values v WHERE v.reading_set_id = r.id AND v.status IN ('watch', 'alarm')),
         (SELECT GROUP_CONCAT(CONCAT('Amendment: ', a.reason) SEPARATOR ' ') FROM reading_amendments a WHERE a.reading_set_id = r.id))
     FROM reading_sets r JOIN units u ON u.id = r.unit_id
     WHERE (r.worst_status IN ('watch', 'alarm') OR EXISTS (SELECT 1 FROM reading_amendments a WHERE a.reading_set_id = r.id)) AND {ids:r.id}`,

@@ -107,7 +107,7 @@ export function LogbookPage() {
                   <div className="flex flex-wrap items-baseline gap-2 text-sm">
                     <span className="rounded border border-line px-1.5 text-xs font-bold">{documentKindLabels[hit.kind as keyof typeof documentKindLabels] ?? hit.kind}</span>
                     {hit.exactPhrase ? <span className="text-xs font-bold text-accent">exact phrase</span> : null}
-                    {hit.severity ? <span className="text-xs font-bold">severity: {hit.severity}</span> : null}
+                    {hit.severity ? <span className="text-xs font-bold">{hit.kind === 'handover_item' ? 'priority' : 'severity'}: {hit.severity}</span> : null}
                     <span className="text-muted">
                       {format(new Date(hit.occurredAt), 'yyyy-MM-dd HH:mm')} · {hit.unitName ?? 'whole station'}
                       {hit.crewName ? ` · crew ${hit.crewName}` : ''}
