@@ -107,8 +107,10 @@ describe('logbook search', () => {
     await Flag.update({ clearComment: `Cleared after ${word('flag')} backwash`, status: 'cleared' }, { where: { id: flag.id } });
     await Condition.create({ unitId, title: `CW pump ${word('condition')}`, requiredAction: 'Restore or reduce load', startedAt: now, limitAt: new Date(now.getTime() + 3_600_000), ownerId: author, openedBy: author, openedAt: now, closedBy: null, closedAt: null, closingEntryId: null });
     await StandingOrder.create({ stationId, title: 'Tower fans', bodyHtml: '<p>x</p>', bodyText: `Run fans in ${word('order')} sequence`, effectiveFrom: now, effectiveTo: null, crewIds: [], positions: [], issuedBy: author, issuedAt: now });
-    // Notes saved the way the service saves them: a bulk update by id.
+    // Notes saved the way the service saves them (a bulk update by id); a draft is not indexed yet.
     await Handover.update({ notesHtml: `<p>${word('renotes')}</p>` }, { where: { id: handover.id } });
+    expect((await search(agents.trainer, { q: word('renotes') })).body.total).toBe(0);
+    await Handover.update({ status: 'submitted', submittedBy: author, submittedAt: now }, { where: { id: handover.id } });
 
     const kindOf = async (w: string) => (await search(agents.trainer, { q: word(w) })).body.hits.map((h: { kind: string }) => h.kind);
     expect(await kindOf('amended')).toEqual(['log_amendment']);

@@ -30,54 +30,90 @@ const sqlText = (text: string) => `'${text.replace(/'/g, "''")}'`;
 const checkLabel = (column: string) =>
   `CASE ${column} ${Object.entries(checkCatalog).map(([key, check]) => `WHEN ${sqlText(key)} THEN ${sqlText(check.label)}`).join(' ')} ELSE ${column} END`;
 
-// Columns: kind, ref_id, unit_id, station_id, occurred_at, shift_start, crew_id, person_id, severity, title, body.
-// `{ids}` is replaced by the refresh filter (or TRUE for a full rebuild).
+const COLUMNS = ['kind', 'ref_id', 'unit_id', 'station_id', 'occurred_at', 'shift_start', 'crew_id', 'person_id', 'severity', 'title', 'body'] as const;
+type Column = (typeof COLUMNS)[number];
+
+/** One kind's SELECT: an expression per column, then its FROM … WHERE, where `{ids:x.id}` is the refresh filter. */
+const source = (kind: DocumentKind, columns: Omit<Record<Column, string>, 'kind'>, from: string) =>
+  `SELECT ${COLUMNS.map((c) => `${c === 'kind' ? sqlText(kind) : columns[c]} AS ${c}`).join(', ')} ${from}`;
+
 const sources: Record<DocumentKind, string> = {
-  log_entry: `SELECT 'log_entry', e.id, e.unit_id, u.station_id, e.event_at, e.shift_start, NULL, e.author_id, NULL,
-      LEFT(CONCAT(REPLACE(e.category, '_', ' '), ' · ', REPLACE(e.position, '_', ' ')), 300), e.text
-    FROM log_entries e JOIN units u ON u.id = e.unit_id WHERE {ids:e.id}`,
-  log_amendment: `SELECT 'log_amendment', a.id, e.unit_id, u.station_id, a.amended_at, NULL, NULL, a.author_id, NULL,
-      LEFT(CONCAT('Amendment: ', a.reason), 300), a.text
-    FROM log_amendments a JOIN log_entries e ON e.id = a.entry_id JOIN units u ON u.id = e.unit_id WHERE {ids:a.id}`,
-  standing_order: `SELECT 'standing_order', o.id, NULL, o.station_id, o.issued_at, NULL, NULL, o.issued_by, NULL, o.title, o.body_text
-    FROM standing_orders o WHERE {ids:o.id}`,
-  handover_notes: `SELECT 'handover_notes', h.id, h.unit_id, u.station_id, h.handover_at, h.shift_start, h.outgoing_crew_id,
-      COALESCE(h.submitted_by, h.created_by), NULL, 'Handover notes', REGEXP_REPLACE(h.notes_html, '<[^>]*>', ' ')
-    FROM handovers h JOIN units u ON u.id = h.unit_id WHERE h.notes_html <> '' AND {ids:h.id}`,
-  handover_item: `SELECT 'handover_item', i.id, h.unit_id, u.station_id, i.created_at, h.shift_start, h.outgoing_crew_id, i.created_by, i.priority,
-      i.title, CONCAT_WS(' · ', i.detail, i.reference, REPLACE(i.kind, '_', ' '))
-    FROM handover_items i JOIN handovers h ON h.id = i.handover_id JOIN units u ON u.id = h.unit_id WHERE {ids:i.id}`,
-  handover_query: `SELECT 'handover_query', q.id, h.unit_id, u.station_id, q.asked_at, h.shift_start, h.incoming_crew_id, q.asked_by, NULL,
-      LEFT(CONCAT('Question: ', q.question), 300), CONCAT_WS(' ', q.question, q.answer)
-    FROM handover_queries q JOIN handover_items i ON i.id = q.item_id JOIN handovers h ON h.id = i.handover_id JOIN units u ON u.id = h.unit_id
-    WHERE {ids:q.id}`,
-  handover_amendment: `SELECT 'handover_amendment', a.id, h.unit_id, u.station_id, a.amended_at, NULL, NULL, a.author_id, NULL,
-      LEFT(CONCAT('Amendment: ', a.reason), 300), a.text
-    FROM handover_amendments a JOIN handovers h ON h.id = a.handover_id JOIN units u ON u.id = h.unit_id WHERE {ids:a.id}`,
-  flag: `SELECT 'flag', f.id, f.unit_id, u.station_id, f.raised_at, NULL, NULL, f.raised_by, f.severity,
-      CONCAT(IF(f.origin = 'manual', 'Flag: ', 'Automatic flag: '), ${checkLabel('f.parameter')}),
-      CONCAT_WS(' · ', f.comment, f.follow_up, f.clear_comment, CONCAT(f.severity, ', ', f.status))
-    FROM flags f JOIN units u ON u.id = f.unit_id WHERE {ids:f.id}`,
+  log_entry: source(
+    'log_entry',
+    { ref_id: 'e.id', unit_id: 'e.unit_id', station_id: 'u.station_id', occurred_at: 'e.event_at', shift_start: 'e.shift_start', crew_id: 'NULL', person_id: 'e.author_id', severity: 'NULL',
+      title: "LEFT(CONCAT(REPLACE(e.category, '_', ' '), ' · ', REPLACE(e.position, '_', ' ')), 300)", body: 'e.text' },
+    'FROM log_entries e JOIN units u ON u.id = e.unit_id WHERE {ids:e.id}',
+  ),
+  log_amendment: source(
+    'log_amendment',
+    { ref_id: 'a.id', unit_id: 'e.unit_id', station_id: 'u.station_id', occurred_at: 'a.amended_at', shift_start: 'NULL', crew_id: 'NULL', person_id: 'a.author_id', severity: 'NULL',
+      title: "LEFT(CONCAT('Amendment: ', a.reason), 300)", body: 'a.text' },
+    'FROM log_amendments a JOIN log_entries e ON e.id = a.entry_id JOIN units u ON u.id = e.unit_id WHERE {ids:a.id}',
+  ),
+  standing_order: source(
+    'standing_order',
+    { ref_id: 'o.id', unit_id: 'NULL', station_id: 'o.station_id', occurred_at: 'o.issued_at', shift_start: 'NULL', crew_id: 'NULL', person_id: 'o.issued_by', severity: 'NULL', title: 'o.title', body: 'o.body_text' },
+    'FROM standing_orders o WHERE {ids:o.id}',
+  ),
+  handover_notes: source(
+    'handover_notes',
+    { ref_id: 'h.id', unit_id: 'h.unit_id', station_id: 'u.station_id', occurred_at: 'h.handover_at', shift_start: 'h.shift_start', crew_id: 'h.outgoing_crew_id',
+      person_id: 'COALESCE(h.submitted_by, h.created_by)', severity: 'NULL', title: "'Handover notes'", body: "REGEXP_REPLACE(h.notes_html, '<[^>]*>', ' ')" },
+    // From submit on: a draft's autosaves would churn the index and are not yet history.
+    "FROM handovers h JOIN units u ON u.id = h.unit_id WHERE h.status <> 'draft' AND h.notes_html <> '' AND {ids:h.id}",
+  ),
+  handover_item: source(
+    'handover_item',
+    { ref_id: 'i.id', unit_id: 'h.unit_id', station_id: 'u.station_id', occurred_at: 'i.created_at', shift_start: 'h.shift_start', crew_id: 'h.outgoing_crew_id', person_id: 'i.created_by',
+      severity: 'i.priority', title: 'i.title', body: "CONCAT_WS(' · ', i.detail, i.reference, REPLACE(i.kind, '_', ' '))" },
+    'FROM handover_items i JOIN handovers h ON h.id = i.handover_id JOIN units u ON u.id = h.unit_id WHERE {ids:i.id}',
+  ),
+  handover_query: source(
+    'handover_query',
+    { ref_id: 'q.id', unit_id: 'h.unit_id', station_id: 'u.station_id', occurred_at: 'q.asked_at', shift_start: 'h.shift_start', crew_id: 'h.incoming_crew_id', person_id: 'q.asked_by',
+      severity: 'NULL', title: "LEFT(CONCAT('Question: ', q.question), 300)", body: "CONCAT_WS(' ', q.question, q.answer)" },
+    'FROM handover_queries q JOIN handover_items i ON i.id = q.item_id JOIN handovers h ON h.id = i.handover_id JOIN units u ON u.id = h.unit_id WHERE {ids:q.id}',
+  ),
+  handover_amendment: source(
+    'handover_amendment',
+    { ref_id: 'a.id', unit_id: 'h.unit_id', station_id: 'u.station_id', occurred_at: 'a.amended_at', shift_start: 'NULL', crew_id: 'NULL', person_id: 'a.author_id', severity: 'NULL',
+      title: "LEFT(CONCAT('Amendment: ', a.reason), 300)", body: 'a.text' },
+    'FROM handover_amendments a JOIN handovers h ON h.id = a.handover_id JOIN units u ON u.id = h.unit_id WHERE {ids:a.id}',
+  ),
+  flag: source(
+    'flag',
+    { ref_id: 'f.id', unit_id: 'f.unit_id', station_id: 'u.station_id', occurred_at: 'f.raised_at', shift_start: 'NULL', crew_id: 'NULL', person_id: 'f.raised_by', severity: 'f.severity',
+      title: `CONCAT(IF(f.origin = 'manual', 'Flag: ', 'Automatic flag: '), ${checkLabel('f.parameter')})`,
+      body: "CONCAT_WS(' · ', f.comment, f.follow_up, f.clear_comment, CONCAT(f.severity, ', ', f.status))" },
+    'FROM flags f JOIN units u ON u.id = f.unit_id WHERE {ids:f.id}',
+  ),
   // Only rounds with something to find: outside limits, or amended.
-  round: `SELECT 'round', r.id, r.unit_id, u.station_id, r.taken_at, NULL, NULL, r.recorded_by, r.worst_status,
-      CONCAT('Round: ', r.worst_status),
-      CONCAT_WS(' ',
+  round: source(
+    'round',
+    { ref_id: 'r.id', unit_id: 'r.unit_id', station_id: 'u.station_id', occurred_at: 'r.taken_at', shift_start: 'NULL', crew_id: 'NULL', person_id: 'r.recorded_by', severity: 'r.worst_status',
+      title: "CONCAT('Round: ', r.worst_status)",
+      body: `CONCAT_WS(' ',
         (SELECT GROUP_CONCAT(CONCAT(${checkLabel('v.parameter')}, ': ', v.status) SEPARATOR ', ') FROM reading_values v WHERE v.reading_set_id = r.id AND v.status IN ('watch', 'alarm')),
-        (SELECT GROUP_CONCAT(CONCAT('Amendment: ', a.reason) SEPARATOR ' ') FROM reading_amendments a WHERE a.reading_set_id = r.id))
-    FROM reading_sets r JOIN units u ON u.id = r.unit_id
-    WHERE (r.worst_status IN ('watch', 'alarm') OR EXISTS (SELECT 1 FROM reading_amendments a WHERE a.reading_set_id = r.id)) AND {ids:r.id}`,
-  condition: `SELECT 'condition', c.id, c.unit_id, u.station_id, c.started_at, NULL, NULL, c.opened_by, NULL,
-      LEFT(CONCAT('Condition: ', c.title), 300), CONCAT_WS(' ', c.required_action, IF(c.closed_at IS NULL, 'open', 'closed'))
-    FROM conditions c JOIN units u ON u.id = c.unit_id WHERE {ids:c.id}`,
+        (SELECT GROUP_CONCAT(CONCAT('Amendment: ', a.reason) SEPARATOR ' ') FROM reading_amendments a WHERE a.reading_set_id = r.id))` },
+    `FROM reading_sets r JOIN units u ON u.id = r.unit_id
+     WHERE (r.worst_status IN ('watch', 'alarm') OR EXISTS (SELECT 1 FROM reading_amendments a WHERE a.reading_set_id = r.id)) AND {ids:r.id}`,
+  ),
+  condition: source(
+    'condition',
+    { ref_id: 'c.id', unit_id: 'c.unit_id', station_id: 'u.station_id', occurred_at: 'c.started_at', shift_start: 'NULL', crew_id: 'NULL', person_id: 'c.opened_by', severity: 'NULL',
+      title: "LEFT(CONCAT('Condition: ', c.title), 300)", body: "CONCAT_WS(' ', c.required_action, IF(c.closed_at IS NULL, 'open', 'closed'))" },
+    'FROM conditions c JOIN units u ON u.id = c.unit_id WHERE {ids:c.id}',
+  ),
 };
 
 // Keeps only the hyphen- or slash-joined terms of title and body (everything else becomes a
 // space), then joins their parts with "_", which the FULLTEXT parser keeps inside a word.
-const JOINED_TERMS = `REPLACE(REPLACE(REGEXP_REPLACE(CONCAT(title, ' ', body), '([[:alnum:]]+(?:[-/][[:alnum:]]+)+)|.', '\\\\1 '), '-', '_'), '/', '_')`;
+// Computed in the same INSERT as the row: a later UPDATE of an indexed column would make the
+// FULLTEXT index hold every document twice (the old version only marked deleted).
+const JOINED_TERMS = `REPLACE(REPLACE(REGEXP_REPLACE(CONCAT(src.title, ' ', src.body), '([[:alnum:]]+(?:[-/][[:alnum:]]+)+)|.', '\\\\1 '), '-', '_'), '/', '_')`;
 
-const columns = 'kind, ref_id, unit_id, station_id, occurred_at, shift_start, crew_id, person_id, severity, title, body';
 const upsert = `ON DUPLICATE KEY UPDATE unit_id = VALUES(unit_id), occurred_at = VALUES(occurred_at), person_id = VALUES(person_id),
-  severity = VALUES(severity), title = VALUES(title), body = VALUES(body),
+  severity = VALUES(severity), title = VALUES(title), body = VALUES(body), terms = VALUES(terms),
   shift_start = COALESCE(VALUES(shift_start), logbook_documents.shift_start), crew_id = COALESCE(VALUES(crew_id), logbook_documents.crew_id)`;
 
 function sourceSql(kind: DocumentKind, ids: readonly number[] | null) {
@@ -87,9 +123,10 @@ function sourceSql(kind: DocumentKind, ids: readonly number[] | null) {
 /** Writes (or refreshes) the documents of `kind` for these source ids; all of them when `ids` is null. */
 export async function indexDocuments(sequelize: Sequelize, kind: DocumentKind, ids: readonly number[] | null, transaction?: Transaction | null) {
   if (ids && ids.length === 0) return;
-  await sequelize.query(`INSERT INTO logbook_documents (${columns}) ${sourceSql(kind, ids)} ${upsert}`, { transaction: transaction ?? undefined });
-  const only = ids ? `AND ref_id IN (${ids.map(Number).join(',')})` : '';
-  await sequelize.query(`UPDATE logbook_documents SET terms = ${JOINED_TERMS} WHERE kind = '${kind}' ${only}`, { transaction: transaction ?? undefined });
+  await sequelize.query(
+    `INSERT INTO logbook_documents (${COLUMNS.join(', ')}, terms) SELECT src.*, ${JOINED_TERMS} FROM (${sourceSql(kind, ids)}) src ${upsert}`,
+    { transaction: transaction ?? undefined },
+  );
   // A round back inside limits and never amended is no longer a document.
   if (kind === 'round' && ids) {
     await sequelize.query(
