@@ -10,6 +10,7 @@ import { Condition } from '../../server/features/conditions/model';
 import { StandingOrder } from '../../server/features/standing-orders/model';
 import { shiftStartFor } from '../../shared/shift-time';
 import { defaultStationSettings } from '../../server/features/stations/settings';
+import { rebuildLogbookIndex } from '../../server/features/logbook/documents';
 
 afterAll(closeAll);
 
@@ -148,6 +149,25 @@ describe('logbook search', () => {
     const refs = found.body.hits.map((h: { refId: number }) => h.refId);
     expect(refs).toContain(cold.body.id);
     expect(refs).not.toContain(normal.body.id);
+  });
+
+  it('moves documents to the crew of a changed rotation when the index is rebuilt', async () => {
+    const { station, unit, crews } = await makeStation(2);
+    const [first, second] = crews as [(typeof crews)[0], (typeof crews)[0]];
+    const rotate = (crewId: number) =>
+      agents.admin
+        .put(`/api/stations/${station.id}/crew-rotation`)
+        .set('X-CSRF-Token', agents.admin.csrf)
+        .send({ anchorShiftStart: new Date('2026-01-01T05:00:00Z').toISOString(), crewIds: [crewId] })
+        .expect(200);
+    await rotate(first.id);
+    await post(agents.operator, `/api/units/${unit.id}/log`, { position: 'control_room', category: 'operation', text: `Rotation check ${word('rotation')}` }).expect(201);
+    const crewOf = async () => (await search(agents.trainer, { q: word('rotation') })).body.hits[0].crewName;
+    expect(await crewOf()).toBe(first.name);
+    await rotate(second.id);
+    expect(await crewOf()).toBe(first.name); // fixed when indexed …
+    await rebuildLogbookIndex(db());
+    expect(await crewOf()).toBe(second.name); // … until the index is rebuilt
   });
 
   it('finds an equipment tag whole, not every record that shares a fragment of it', async () => {

@@ -139,8 +139,14 @@ export async function indexDocuments(sequelize: Sequelize, kind: DocumentKind, i
   await assignShiftsAndCrews(sequelize, transaction, ids ? { kind, ids } : null);
 }
 
-/** Rebuilds the whole index from the logbook tables (demo seed, benchmark, and an empty index at start). */
+/**
+ * Rebuilds the whole index from the logbook tables (after the migration that adds it, the
+ * benchmark, `npm run db:reindex`). Shift and crew are worked out afresh, so a changed rotation or a
+ * swap added later reaches old documents too. (Neither column is FULLTEXT-indexed, so clearing
+ * them does not touch the text index.)
+ */
 export async function rebuildLogbookIndex(sequelize: Sequelize) {
+  await sequelize.query('UPDATE logbook_documents SET crew_id = NULL, shift_start = NULL');
   for (const kind of documentKinds) await indexDocuments(sequelize, kind, null);
 }
 
