@@ -214,6 +214,13 @@ describe('logbook search', () => {
     expect(lines).toHaveLength(3);
     expect(lines[1]).toContain('stuck air ejector');
   });
+
+  it('keeps a cell that looks like a spreadsheet formula from running as one', async () => {
+    await post(agents.operator, `/api/units/${unitId}/log`, { position: 'control_room', category: 'operation', text: `=HYPERLINK("http://example.invalid") ${word('formula')}` }).expect(201);
+    const res = await agents.trainer.get('/api/logbook/search.csv').query({ q: word('formula') });
+    const row = res.text.replace(/^\uFEFF/, '').trim().split(/\r?\n/)[1]!;
+    expect(row).toContain(`"'=HYPERLINK`);
+  });
 });
 
 describe('a past shift as it was, and review comments', () => {

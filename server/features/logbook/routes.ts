@@ -43,6 +43,8 @@ export function logbookRoutes(sequelize: Sequelize, comments: ReviewCommentServi
         title: h.title,
         text: h.snippet,
       })),
+      // Log text is typed by people: a cell starting with = + - @ must not run as a spreadsheet formula.
+      { escapeFormulae: true },
     );
     res.setHeader('Content-Type', 'text/csv; charset=utf-8');
     res.setHeader('Content-Disposition', 'attachment; filename="hotwell-logbook-search.csv"');
