@@ -57,14 +57,14 @@ export function TrainingPage() {
       <aside className="rounded-md border border-watch bg-panel px-4 py-2 text-sm" aria-label="Caution">
         <strong>Caution — </strong>a sign-off here records training; it does not authorise anyone to operate plant. The station’s qualification procedure and the shift lead decide who may do what.
       </aside>
-      <div role="tablist" aria-label="Training views" className="flex flex-wrap gap-1 border-b border-line">
+      <div role="group" aria-label="Training views" className="flex flex-wrap gap-1 border-b border-line">
         {tabs.map((t) => (
-          <button key={t} role="tab" type="button" aria-selected={t === tab} className={`rounded-t-md px-3 py-2 ${t === tab ? 'border border-b-0 border-line bg-panel font-bold' : 'text-muted'}`} onClick={() => setChosen(t)}>
+          <button key={t} type="button" aria-pressed={t === tab} className={`rounded-t-md px-3 py-2 ${t === tab ? 'border border-b-0 border-line bg-panel font-bold' : 'text-muted'}`} onClick={() => setChosen(t)}>
             {tabLabels[t]}
           </button>
         ))}
       </div>
-      <div role="tabpanel" aria-label={tabLabels[tab]}>
+      <div aria-label={tabLabels[tab]} role="region">
         {tab === 'mine' ? <MyRecord /> : null}
         {tab === 'countersign' ? <CountersignQueue /> : null}
         {tab === 'queue' ? <ReviewQueue /> : null}
