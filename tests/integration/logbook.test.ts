@@ -84,7 +84,8 @@ describe('logbook search', () => {
     expect(byPerson.body.total).toBe(1);
     expect((await search(agents.trainer, { q: word('loss'), kind: 'flag' })).body.total).toBe(0);
     expect((await search(agents.trainer, { q: word('loss'), crewId: crewA })).body.total).toBe(2);
-    const today = new Date().toISOString().slice(0, 10);
+    // Date filters are the station's local days (Europe/Berlin by default), not UTC ones.
+    const today = new Intl.DateTimeFormat('en-CA', { timeZone: defaultStationSettings.timeZone }).format(new Date());
     expect((await search(agents.trainer, { q: word('loss'), from: '2020-01-01', to: '2020-12-31' })).body.total).toBe(0);
     expect((await search(agents.trainer, { q: word('loss'), from: '2020-01-01', to: '2099-12-31' })).body.total).toBe(3);
     expect((await search(agents.trainer, { q: word('loss'), from: today, to: today })).body.total).toBeGreaterThanOrEqual(2);

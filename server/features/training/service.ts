@@ -84,7 +84,8 @@ export function makeTrainingService(sequelize: Sequelize) {
     const task = await currentTask(input.taskKey);
     if (task.retired) throw new ValidationError({ taskKey: 'This task is retired' });
     const fields: Record<string, string> = {};
-    if (input.performedOn > new Date().toISOString().slice(0, 10)) fields.performedOn = 'The date is in the future';
+    // "Today" somewhere on Earth (up to UTC+14): a trainee just past local midnight east of UTC is not refused.
+    if (input.performedOn > new Date(Date.now() + 14 * 3_600_000).toISOString().slice(0, 10)) fields.performedOn = 'The date is in the future';
     const unit = input.unitId ? await PlantUnit.findByPk(input.unitId) : null;
     if (input.unitId && !unit) fields.unitId = 'No such unit';
     if (input.shiftStart && !input.unitId) fields.unitId = 'Say which unit the shift was on';

@@ -29,7 +29,7 @@ export function RecordPracticeForm() {
   const people = usePeople();
   const units = useUnitList();
   const record = useRecordEntry();
-  const performedOn = link.shiftStart ? format(new Date(link.shiftStart), 'yyyy-MM-dd') : new Date().toISOString().slice(0, 10);
+  const performedOn = link.shiftStart ? format(new Date(link.shiftStart), 'yyyy-MM-dd') : format(new Date(), 'yyyy-MM-dd'); // the browser's own day
   const form = useForm<Values>({ defaultValues: { taskKey: '', performedOn, level: 'supervised', supervisorId: '', unitId: link.unitId ? String(link.unitId) : '', note: '' } });
   const errors = form.formState.errors;
   const submit = form.handleSubmit(async (values) => {
