@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import psychrolib from 'psychrolib';
-import { humidityRatioForWetBulb, saturationVapourPressure, wetBulbTemperature } from '../../shared/calc/psychrometrics';
+import { humidityRatio, humidityRatioForWetBulb, saturationVapourPressure, wetBulbTemperature } from '../../shared/calc/psychrometrics';
 
 psychrolib.SetUnitSystem(psychrolib.SI);
 
@@ -28,11 +28,30 @@ describe('wet-bulb temperature', () => {
         fc.double({ min: 60_000, max: 105_000, noNaN: true }),
         (dryC, rh, pressure) => {
           const ours = wetBulbTemperature(dryC + 273.15, rh, pressure) - 273.15;
-          return Number.isFinite(ours) && Math.abs(ours - psychrolib.GetTWetBulbFromRelHum(dryC, rh, pressure)) < 0.003;
+          const reference = psychrolib.GetTWetBulbFromRelHum(dryC, rh, pressure);
+          if (!Number.isFinite(ours)) return false;
+          if (Math.abs(ours - reference) < 0.003) return true;
+          // ASHRAE eq. 33 (wet bulb above freezing) and eq. 35 (below) do not meet at 0 °C: the
+          // humidity ratio jumps there, so near a 0 °C wet bulb in dry air both have a root, and
+          // each bisection may land on either (fast-check found 15.3 °C, RH 1 %, 60.6 kPa: 0.000 °C
+          // here, −0.827 °C in psychrolib). Then both must be true roots, one on each side of 0 °C.
+          const target = humidityRatio(rh * saturationVapourPressure(dryC + 273.15), pressure);
+          const miss = (wetC: number) => humidityRatioForWetBulb(dryC, wetC, pressure) - target;
+          const isRoot = (wetC: number) => Math.abs(miss(wetC)) < 1e-12 || Math.sign(miss(wetC - 0.003)) !== Math.sign(miss(wetC + 0.003));
+          const straddle = Math.min(ours, reference) < 0.003 && Math.max(ours, reference) > -0.003 && Math.sign(ours) !== Math.sign(reference);
+          return straddle && isRoot(ours) && isRoot(reference);
         },
       ),
       { numRuns: 300 },
     );
+  });
+
+  it('lands on a true root at the counterexample where the two ASHRAE branches both have one', () => {
+    const [dryC, rh, pressure] = [15.315315315315305, 0.01, 60552.48852805163];
+    const target = humidityRatio(rh * saturationVapourPressure(dryC + 273.15), pressure);
+    const ours = wetBulbTemperature(dryC + 273.15, rh, pressure) - 273.15;
+    expect(Math.abs(humidityRatioForWetBulb(dryC, ours, pressure) - target)).toBeLessThan(1e-9);
+    expect(Math.abs(psychrolib.GetTWetBulbFromRelHum(dryC, rh, pressure) - ours)).toBeLessThan(0.9); // the other root, −0.827 °C
   });
 
   // ASHRAE Handbook — Fundamentals (2017) ch. 1, example 1 (as cited by psychrolib's test suite):
