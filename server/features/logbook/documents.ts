@@ -5,8 +5,7 @@
 // definition of what a document holds. The crew and shift come from the station's rotation.
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { shiftStartFor } from '../../../shared/shift-time';
-import { StationSettingsRow } from '../stations/model';
-import { defaultStationSettings, settingsFromRow } from '../stations/settings';
+import { stationShiftSetup } from '../stations/settings';
 import { CrewSwap } from '../shifts/model';
 import { crewFromRotation } from '../shifts/crews';
 import { checkCatalog } from '../../../shared/calc/check-catalog';
@@ -166,13 +165,12 @@ async function assignShiftsAndCrews(sequelize: Sequelize, transaction: Transacti
   for (const row of rows) (byStation.get(row.stationId) ?? byStation.set(row.stationId, []).get(row.stationId)!).push(row);
   const updates = new Map<string, number[]>(); // "shiftStartMs|crewId" → document ids
   for (const [stationId, docs] of byStation) {
-    const settingsRow = await StationSettingsRow.findByPk(stationId, { transaction: transaction ?? undefined });
-    const settings = settingsRow ? { ...defaultStationSettings, ...settingsFromRow(settingsRow) } : defaultStationSettings;
+    const { settings, rotation } = await stationShiftSetup(stationId, transaction);
     const swaps = new Map((await CrewSwap.findAll({ where: { stationId }, transaction: transaction ?? undefined })).map((s) => [s.shiftStart.getTime(), s.crewId]));
     const perDay = settings.shiftChangeTimes.length;
     for (const doc of docs) {
       const shiftStart = doc.shiftStart ? new Date(doc.shiftStart) : shiftStartFor(new Date(doc.occurredAt), settings.timeZone, settings.shiftChangeTimes);
-      const crewId = swaps.get(shiftStart.getTime()) ?? crewFromRotation(settingsRow?.crewRotation ?? null, shiftStart, perDay);
+      const crewId = swaps.get(shiftStart.getTime()) ?? crewFromRotation(rotation, shiftStart, perDay);
       const key = `${shiftStart.getTime()}|${crewId ?? ''}`;
       (updates.get(key) ?? updates.set(key, []).get(key)!).push(doc.id);
     }

@@ -5,11 +5,10 @@
 // trainers' review comments the viewer may see.
 import { Op, QueryTypes, type Sequelize } from 'sequelize';
 import { nextShiftStart, shiftStartFor, stationLocalLabel } from '../../../shared/shift-time';
-import { ValidationError } from '../../lib/errors';
-import { settingsForUnit } from '../stations/settings';
-import { StationSettingsRow } from '../stations/model';
+import { NotFound, ValidationError } from '../../lib/errors';
+import { stationShiftSetup } from '../stations/settings';
 import { crewOnShift } from '../shifts/crews';
-import { Crew, LimitSetVersion } from '../plant/model';
+import { Crew, LimitSetVersion, PlantUnit } from '../plant/model';
 import { listEntries, reviewsFor } from '../log/service';
 import { ReadingSet } from '../readings/model';
 import { getReading } from '../readings/service';
@@ -24,7 +23,9 @@ import { viewHandover } from '../handovers/service';
 import { commentsOn } from './review-comments';
 
 export async function pastShift(sequelize: Sequelize, viewer: Express.User, unitId: number, shiftStartText: string) {
-  const { unit, settings } = await settingsForUnit(unitId);
+  const unit = await PlantUnit.findByPk(unitId);
+  if (!unit) throw new NotFound('That unit');
+  const { settings, rotation } = await stationShiftSetup(unit.stationId);
   const start = new Date(shiftStartText);
   if (Number.isNaN(start.getTime())) throw new ValidationError({ shiftStart: 'Give the shift start as an ISO 8601 date-time' });
   if (shiftStartFor(start, settings.timeZone, settings.shiftChangeTimes).getTime() !== start.getTime()) {
@@ -34,7 +35,6 @@ export async function pastShift(sequelize: Sequelize, viewer: Express.User, unit
   if (start > now) throw new ValidationError({ shiftStart: 'That shift has not started yet' });
   const end = nextShiftStart(start, settings.timeZone, settings.shiftChangeTimes);
   const asAt = end < now ? end : now;
-  const rotation = (await StationSettingsRow.findByPk(unit.stationId))?.crewRotation ?? null;
   const crewId = await crewOnShift(unit.stationId, start, rotation, settings.shiftChangeTimes.length);
 
   const alive = (startColumn: string, endColumn: string) => ({ [startColumn]: { [Op.lt]: end }, [Op.or]: [{ [endColumn]: null }, { [endColumn]: { [Op.gte]: start } }] });

@@ -1,8 +1,7 @@
 // Which crew works a shift: the station's rotation (crews in order, one shift each, counted from an
 // anchor shift), unless a one-off swap says otherwise.
 import { nextShiftStart, shiftStartFor } from '../../../shared/shift-time';
-import { StationSettingsRow } from '../stations/model';
-import { defaultStationSettings, settingsFromRow } from '../stations/settings';
+import { stationShiftSetup } from '../stations/settings';
 import { CrewSwap } from './model';
 
 export type CrewRotation = { anchorShiftStart: string; crewIds: number[] };
@@ -30,11 +29,9 @@ export function crewFromRotation(rotation: CrewRotation | null, shiftStart: Date
 
 /** The shift in progress at `at`, the one after it, and the crews of both. Reads the settings once. */
 export async function shiftChangeAt(stationId: number, at = new Date()) {
-  const row = await StationSettingsRow.findByPk(stationId);
-  const settings = row ? { ...defaultStationSettings, ...settingsFromRow(row) } : defaultStationSettings;
+  const { settings, rotation } = await stationShiftSetup(stationId);
   const current = shiftStartFor(at, settings.timeZone, settings.shiftChangeTimes);
   const next = nextShiftStart(current, settings.timeZone, settings.shiftChangeTimes);
-  const rotation = row?.crewRotation ?? null;
   const perDay = settings.shiftChangeTimes.length;
   const [outgoingCrewId, incomingCrewId] = await Promise.all([crewOnShift(stationId, current, rotation, perDay), crewOnShift(stationId, next, rotation, perDay)]);
   return { settings, shiftStart: current, handoverAt: next, outgoingCrewId, incomingCrewId };

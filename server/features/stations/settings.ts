@@ -32,8 +32,13 @@ export const defaultStationSettings: StationSettings = {
 };
 
 export async function settingsForStation(stationId: number, transaction?: Transaction): Promise<StationSettings> {
-  const row = await StationSettingsRow.findByPk(stationId, { transaction });
-  return row ? settingsFromRow(row) : defaultStationSettings;
+  return (await stationShiftSetup(stationId, transaction)).settings;
+}
+
+/** A station's settings and its crew rotation (null without one), from one read of its row. */
+export async function stationShiftSetup(stationId: number, transaction?: Transaction | null) {
+  const row = await StationSettingsRow.findByPk(stationId, { transaction: transaction ?? undefined });
+  return { settings: row ? settingsFromRow(row) : defaultStationSettings, rotation: row?.crewRotation ?? null };
 }
 
 export function settingsFromRow(row: StationSettingsRow): StationSettings {
