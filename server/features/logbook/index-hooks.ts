@@ -11,12 +11,14 @@ import { Condition } from '../conditions/model';
 import { indexDocuments, type DocumentKind } from './documents';
 
 type AnyModel = ModelStatic<Model>;
-type Options = { transaction?: Transaction | null; where?: WhereOptions };
+type Options = { transaction?: Transaction | null; where?: WhereOptions; fields?: string[] };
 const HOOK = 'logbook-index';
 
 export function registerLogbookIndexHooks(sequelize: Sequelize) {
-  const watch = (model: AnyModel, kind: DocumentKind, idOf: (row: Model) => number = (row) => Number(row.get('id'))) => {
-    const refresh = (ids: number[], options: Options) => indexDocuments(sequelize, kind, [...new Set(ids)], options.transaction);
+  /** `shownFields`: when given, an update touching none of them leaves the document as it is. */
+  const watch = (model: AnyModel, kind: DocumentKind, idOf: (row: Model) => number = (row) => Number(row.get('id')), shownFields?: string[]) => {
+    const matters = (options: Options) => !shownFields || !options.fields || options.fields.some((f) => shownFields.includes(f));
+    const refresh = (ids: number[], options: Options) => (matters(options) ? indexDocuments(sequelize, kind, [...new Set(ids)], options.transaction) : Promise.resolve());
     const add = (type: 'afterCreate' | 'afterUpdate' | 'afterBulkCreate' | 'afterBulkUpdate', fn: (...args: never[]) => Promise<void>) => {
       model.removeHook(type, HOOK);
       model.addHook(type, HOOK, fn as never);
@@ -39,7 +41,8 @@ export function registerLogbookIndexHooks(sequelize: Sequelize) {
   watch(HandoverItem as unknown as AnyModel, 'handover_item');
   watch(HandoverQuery as unknown as AnyModel, 'handover_query');
   watch(HandoverAmendment as unknown as AnyModel, 'handover_amendment');
-  watch(Flag as unknown as AnyModel, 'flag');
+  // Each round refreshes its open flags (last value, last seen): that is not in the document.
+  watch(Flag as unknown as AnyModel, 'flag', undefined, ['parameter', 'origin', 'severity', 'status', 'raisedAt', 'raisedBy', 'comment', 'followUp', 'clearComment', 'unitId']);
   watch(Condition as unknown as AnyModel, 'condition');
   // A round's document is about its values and amendments, written after the round row itself.
   watch(ReadingValue as unknown as AnyModel, 'round', (row) => Number(row.get('readingSetId')));
