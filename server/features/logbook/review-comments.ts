@@ -13,17 +13,20 @@ const REVIEWERS = ['trainer', 'shift_lead', 'admin'];
 
 type DocumentRow = { id: number; kind: string; refId: number; unitId: number | null; shiftStart: Date | null; personId: number | null; crewId: number | null; title: string };
 
-async function documentsById(sequelize: Sequelize, ids: number[]) {
-  if (ids.length === 0) return new Map<number, DocumentRow>();
+/** Logbook documents matching a WHERE clause, by id. */
+async function readDocuments(sequelize: Sequelize, where: string, replacements: unknown[] = []) {
   const rows = await sequelize.query<DocumentRow>(
     `SELECT id, kind, ref_id AS refId, unit_id AS unitId, shift_start AS shiftStart, person_id AS personId, crew_id AS crewId, title
-     FROM logbook_documents WHERE id IN (${ids.map(Number).join(',')})`,
-    { type: QueryTypes.SELECT },
+     FROM logbook_documents WHERE ${where}`,
+    { replacements, type: QueryTypes.SELECT },
   );
   return new Map(rows.map((r) => [Number(r.id), { ...r, id: Number(r.id), refId: Number(r.refId) }]));
 }
 
-export function mayRead(viewer: Express.User, doc: Pick<DocumentRow, 'personId' | 'crewId'>) {
+const documentsById = (sequelize: Sequelize, ids: number[]) =>
+  ids.length ? readDocuments(sequelize, `id IN (${ids.map(Number).join(',')})`) : Promise.resolve(new Map<number, DocumentRow>());
+
+function mayRead(viewer: Express.User, doc: Pick<DocumentRow, 'personId' | 'crewId'>) {
   return REVIEWERS.includes(viewer.role) || doc.personId === viewer.id || (viewer.crewId !== null && doc.crewId === viewer.crewId);
 }
 
@@ -69,13 +72,12 @@ export function makeReviewCommentService(sequelize: Sequelize, realtime: Realtim
 
   /** Comments on records the person wrote or that their crew's shifts produced, newest first. */
   async function forPerson(viewer: Express.User, limit = 50) {
-    const docs = await sequelize.query<DocumentRow>(
-      `SELECT DISTINCT d.id, d.kind, d.ref_id AS refId, d.unit_id AS unitId, d.shift_start AS shiftStart, d.person_id AS personId, d.crew_id AS crewId, d.title
-       FROM review_comments c JOIN logbook_documents d ON d.id = c.document_id
-       WHERE d.person_id = ? ${viewer.crewId !== null ? 'OR d.crew_id = ?' : ''}`,
-      { replacements: viewer.crewId !== null ? [viewer.id, viewer.crewId] : [viewer.id], type: QueryTypes.SELECT },
+    const mine = viewer.crewId !== null ? '(person_id = ? OR crew_id = ?)' : 'person_id = ?';
+    const byId = await readDocuments(
+      sequelize,
+      `id IN (SELECT document_id FROM review_comments) AND ${mine}`,
+      viewer.crewId !== null ? [viewer.id, viewer.crewId] : [viewer.id],
     );
-    const byId = new Map(docs.map((d) => [Number(d.id), { ...d, id: Number(d.id), refId: Number(d.refId) }]));
     if (byId.size === 0) return [];
     const comments = await ReviewComment.findAll({ where: { documentId: { [Op.in]: [...byId.keys()] } }, order: [['id', 'DESC']], limit });
     return present(comments, byId);
