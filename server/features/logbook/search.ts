@@ -41,9 +41,11 @@ export async function searchLogbook(sequelize: Sequelize, filters: LogbookSearch
   }
   const where: string[] = [];
   const params: unknown[] = [];
+  // Every word required; the same string ranks the matches below.
+  const allWords = words.map((w) => `+${w}`).join(' ');
   if (words.length) {
     where.push('MATCH(d.title, d.body, d.terms) AGAINST(? IN BOOLEAN MODE)');
-    params.push(words.map((w) => `+${w}`).join(' '));
+    params.push(allWords);
   }
   const filter = (sql: string, value: unknown) => {
     where.push(sql);
@@ -67,7 +69,7 @@ export async function searchLogbook(sequelize: Sequelize, filters: LogbookSearch
   const rankSql = words.length
     ? `${phrase ? '(d.title LIKE ? OR d.body LIKE ?)' : 'FALSE'} AS exact, MATCH(d.title, d.body, d.terms) AGAINST(? IN BOOLEAN MODE) AS score`
     : 'FALSE AS exact, 0 AS score';
-  const rankParams = words.length ? [...(phrase ? [phrase, phrase] : []), params[0]] : [];
+  const rankParams = words.length ? [...(phrase ? [phrase, phrase] : []), allWords] : [];
 
   // Rank narrow first (ids and sort keys only, with the total from the same pass), then fetch
   // the page's details: sorting wide rows with their text for every match costs far more.
