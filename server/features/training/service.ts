@@ -18,10 +18,17 @@ const PERFORMANCES: readonly string[] = ['supervised', 'alone'];
 
 /** The newest version of each task key (retired ones only when asked). */
 export async function currentTasks(options: { includeRetired?: boolean; transaction?: Transaction } = {}) {
-  const all = await QualificationTask.findAll({ order: [['taskKey', 'ASC'], ['version', 'ASC']], transaction: options.transaction });
+  return [...latestVersions(await allTaskVersions(options.transaction)).values()].filter((t) => options.includeRetired || !t.retired);
+}
+
+/** Every version of every task, oldest version first within a key. */
+const allTaskVersions = (transaction?: Transaction) => QualificationTask.findAll({ order: [['taskKey', 'ASC'], ['version', 'ASC']], transaction });
+
+/** The newest version per task key, from versions ordered oldest first. */
+function latestVersions(versions: QualificationTask[]) {
   const latest = new Map<string, QualificationTask>();
-  for (const task of all) latest.set(task.taskKey, task);
-  return [...latest.values()].filter((t) => options.includeRetired || !t.retired);
+  for (const task of versions) latest.set(task.taskKey, task);
+  return latest;
 }
 
 async function currentTask(taskKey: string, transaction?: Transaction) {
@@ -194,11 +201,12 @@ async function performancesCounted(traineeId: number, taskKey: string, transacti
 }
 
 /** Every task of the current catalogue (plus retired ones with history) and where the trainee stands. */
-export async function progressOf(traineeId: number) {
+// `catalogue` lets a caller working through many trainees read the task versions once.
+export async function progressOf(traineeId: number, catalogue?: QualificationTask[]) {
   const trainee = await User.findByPk(traineeId, { attributes: ['id', 'name', 'role', 'crewId'] });
   if (!trainee) throw new NotFound('That person');
   const [allVersions, entries, decisions] = await Promise.all([
-    QualificationTask.findAll({ order: [['taskKey', 'ASC'], ['version', 'ASC']] }),
+    catalogue ?? allTaskVersions(),
     TrainingEntry.findAll({ where: { traineeId }, order: [['performedOn', 'ASC'], ['id', 'ASC']] }),
     TrainingDecision.findAll({ where: { traineeId }, order: [['id', 'ASC']] }),
   ]);
@@ -213,8 +221,7 @@ export async function progressOf(traineeId: number) {
   });
   const who = await names([...entries.flatMap((e) => [e.countersignedBy, e.supervisorId]), ...decisions.map((d) => d.trainerId), ...amendments.map((a) => a.authorId)]);
   const versionById = new Map(allVersions.map((t) => [t.id, t]));
-  const latest = new Map<string, QualificationTask>();
-  for (const t of allVersions) latest.set(t.taskKey, t);
+  const latest = latestVersions(allVersions);
   const amendmentsOf = (target: 'entry' | 'decision', id: number) =>
     amendments.filter((a) => a.target === target && a.targetId === id).map((a) => ({ id: a.id, by: who.get(a.authorId) ?? `#${a.authorId}`, at: a.amendedAt.toISOString(), reason: a.reason, text: a.text }));
 
@@ -341,7 +348,8 @@ async function presentQueueEntries(entries: TrainingEntry[]) {
 /** The trainer's queue: tasks ready for sign-off, entries countersigned since the last decision, entries still awaiting a countersign. */
 export async function trainerQueue() {
   const trainees = await User.findAll({ where: { role: 'trainee', active: true }, attributes: ['id', 'name'], order: [['name', 'ASC']] });
-  const progress = await Promise.all(trainees.map((t) => progressOf(t.id)));
+  const catalogue = await allTaskVersions();
+  const progress = await Promise.all(trainees.map((t) => progressOf(t.id, catalogue)));
   const ready = progress.flatMap((p) =>
     p.rows.filter((r) => r.status === 'ready_for_sign_off').map((r) => ({ traineeId: p.trainee.id, trainee: p.trainee.name, taskKey: r.task.taskKey, taskTitle: r.task.title, performances: r.performances, required: r.task.requiredPerformances })),
   );
