@@ -24,6 +24,7 @@ import { trendRoutes } from './features/trends/routes';
 import { makeImportService } from './features/imports/service';
 import { importRoutes } from './features/imports/routes';
 import { createRealtimeHub, type RealtimeHub } from './lib/realtime';
+import { connectLiveUpdates } from './lib/live';
 import { makeLogService } from './features/log/service';
 import { logRoutes } from './features/log/routes';
 import { makeStandingOrderService } from './features/standing-orders/service';
@@ -36,6 +37,9 @@ import { makeNotices, type Notices } from './features/handovers/notices';
 import { createMailer } from './lib/mailer';
 import { storageFromEnv, type Storage } from './lib/storage';
 import { attachmentRoutes } from './features/handovers/attachments';
+import { makeAttachmentService } from './features/handovers/attachment-service';
+import { shiftRoutes } from './features/shifts/routes';
+import { makeShiftService } from './features/shifts/service';
 import { logbookRoutes } from './features/logbook/routes';
 import { makeReviewCommentService } from './features/logbook/review-comments';
 import { trainingRoutes } from './features/training/routes';
@@ -101,11 +105,12 @@ export function createApp(
 
   const users = makeUserService(sequelize);
   const realtime = createRealtimeHub();
+  const disconnectLive = connectLiveUpdates(sequelize, realtime);
   const notices = makeNotices(createMailer(config.smtpUrl), config.publicUrl ?? 'http://127.0.0.1:5180');
   app.get('/api/health', (_req, res) => {
     res.json({ ok: true });
   });
-  app.use('/api', sessionRoutes(users, csrf, config.signInRateLimit));
+  app.use('/api', sessionRoutes(users, csrf, config.signInRateLimit, (sessionId) => realtime.disconnect({ sessionId })));
   app.use('/api/admin/users', adminUserRoutes(users));
   app.use('/api/admin/audit-events', adminAuditRoutes());
   app.use('/api/plant', plantRoutes(sequelize, makeVersionService(sequelize)));
@@ -113,13 +118,15 @@ export function createApp(
   app.use('/api', flagRoutes(makeFlagService(sequelize)));
   app.use('/api', trendRoutes(sequelize));
   app.use('/api', importRoutes(makeImportService(sequelize)));
-  const log = makeLogService(sequelize, realtime);
+  const log = makeLogService(sequelize);
   app.use('/api', logRoutes(sequelize, log));
-  app.use('/api', standingOrderRoutes(makeStandingOrderService(sequelize, realtime)));
-  app.use('/api', conditionRoutes(makeConditionService(sequelize, realtime, log)));
-  app.use('/api', handoverRoutes(sequelize, makeHandoverService(sequelize, realtime, notices)));
-  app.use('/api', attachmentRoutes(deps.storage ?? storageFromEnv(), realtime));
-  app.use('/api', logbookRoutes(sequelize, makeReviewCommentService(sequelize, realtime)));
+  app.use('/api', standingOrderRoutes(makeStandingOrderService(sequelize)));
+  app.use('/api', conditionRoutes(makeConditionService(sequelize, log)));
+  const handovers = makeHandoverService(sequelize, notices);
+  app.use('/api', handoverRoutes(handovers));
+  app.use('/api', attachmentRoutes(makeAttachmentService(sequelize, deps.storage ?? storageFromEnv(), handovers)));
+  app.use('/api', shiftRoutes(makeShiftService(sequelize)));
+  app.use('/api', logbookRoutes(sequelize, makeReviewCommentService(sequelize)));
   app.use('/api', trainingRoutes(makeTrainingService(sequelize)));
   app.use('/api/calc', calcRoutes());
   app.use('/api', (_req, _res, next) => next(new NotFound('That API route')));
@@ -135,5 +142,9 @@ export function createApp(
   });
   app.use(errorMiddleware);
 
-  return { app, sessionMiddleware, realtime, notices, close: () => store.stopExpiringSessions() };
+  const close = () => {
+    store.stopExpiringSessions();
+    disconnectLive();
+  };
+  return { app, sessionMiddleware, realtime, notices, close };
 }

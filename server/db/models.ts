@@ -15,6 +15,7 @@ import { initShiftModels } from '../features/shifts/model';
 import { initTrainingModels } from '../features/training/model';
 import { initLogbookModels } from '../features/logbook/model';
 import { registerLogbookIndexHooks } from '../features/logbook/index-hooks';
+import { registerHandoverDraftHooks } from '../features/handovers/draft-hooks';
 
 /** Registers every model on the instance. Schema comes from migrations, never from sync(). */
 export function initModels(sequelize: Sequelize) {
@@ -34,4 +35,5 @@ export function initModels(sequelize: Sequelize) {
   initTrainingModels(sequelize);
   initLogbookModels(sequelize);
   registerLogbookIndexHooks(sequelize);
+  registerHandoverDraftHooks();
 }

@@ -1,4 +1,5 @@
 import type { ErrorRequestHandler } from 'express';
+import { UniqueConstraintError } from 'sequelize';
 import { ZodError } from 'zod';
 
 export type FieldErrors = Record<string, string>;
@@ -58,6 +59,12 @@ export const errorMiddleware: ErrorRequestHandler = (error, _req, res, _next) =>
   }
   if (error instanceof HttpError) {
     res.status(error.status).json({ error: { code: error.code, message: error.message, fields: error.fields } });
+    return;
+  }
+  // The database's unique keys are the last word on "only one of these": a second one, however it
+  // got past the service's own checks (two people at once, a repeated click), is a conflict.
+  if (error instanceof UniqueConstraintError) {
+    res.status(409).json({ error: { code: 'DUPLICATE', message: 'This was saved already (by someone else, or by an earlier click); reload to see it' } });
     return;
   }
   if ((error as Error).name === 'MulterError') {

@@ -1,16 +1,16 @@
 // Sockets notify, queries fetch: the server sends a small { entity, id } event to a room after the
-// transaction commits; clients invalidate the matching queries and fetch what changed.
+// transaction commits (see live.ts); clients invalidate the matching queries and fetch what changed.
 import type { Server as HttpServer, IncomingMessage, ServerResponse } from 'node:http';
 import type { RequestHandler } from 'express';
 import passport from 'passport';
-import { Server } from 'socket.io';
-
-export type RealtimeEvent = { entity: string; id: number | string; unitId?: number };
+import { Server, type Socket } from 'socket.io';
+import type { BoardPresence, LiveEvent } from '../../shared/live-events';
 
 export type RealtimeHub = {
-  toUnit(unitId: number, event: RealtimeEvent): void;
-  toEveryone(event: RealtimeEvent): void;
-  toUser(userId: number, event: RealtimeEvent): void;
+  /** To the unit's watchers, one person, or everyone signed in — whichever the event names. */
+  send(event: LiveEvent): void;
+  /** Ends the live connections of a person, or of one session. */
+  disconnect(who: { userId?: number; sessionId?: string }): void;
   attach(http: HttpServer, sessionMiddleware: RequestHandler): Server;
 };
 
@@ -23,54 +23,84 @@ const onHandshake = (middleware: Middleware): Middleware => (req, res, next) => 
   else next();
 };
 
+const unitRoom = (unitId: number) => `unit:${unitId}`;
+const boardRoom = (unitId: number) => `board:${unitId}`;
+const isUnitId = (value: unknown): value is number => typeof value === 'number' && Number.isInteger(value) && value > 0;
+
 export function createRealtimeHub(): RealtimeHub {
   let io: Server | null = null;
+
+  /** Who has a unit's handover board open right now, sent to everyone on that board. */
+  async function sendPresence(unitId: number) {
+    if (!io) return;
+    const sockets = await io.in(boardRoom(unitId)).fetchSockets();
+    const people = [...new Set(sockets.map((s) => String(s.data.name)))].sort();
+    const presence: BoardPresence = { unitId, people };
+    io.to(boardRoom(unitId)).emit('presence', presence);
+  }
+
+  function wire(socket: Socket) {
+    const user = (socket.request as IncomingMessage & { user?: { id: number; name: string } }).user!;
+    socket.data.name = user.name;
+    socket.data.userId = user.id;
+    socket.data.sessionId = (socket.request as IncomingMessage & { sessionID?: string }).sessionID;
+    void socket.join(`user:${user.id}`);
+    // A tab may show several units at once (the overview); each page leaves what it joined.
+    socket.on('watch-unit', (unitId: unknown) => {
+      if (isUnitId(unitId)) void socket.join(unitRoom(unitId));
+    });
+    socket.on('unwatch-unit', (unitId: unknown) => {
+      if (isUnitId(unitId)) void socket.leave(unitRoom(unitId));
+    });
+    // Presence counts the handover board only: a person reading the log is not "on the board".
+    socket.on('open-board', (unitId: unknown) => {
+      if (!isUnitId(unitId)) return;
+      void socket.join(boardRoom(unitId));
+      void sendPresence(unitId);
+    });
+    socket.on('close-board', (unitId: unknown) => {
+      if (!isUnitId(unitId)) return;
+      void socket.leave(boardRoom(unitId));
+      void sendPresence(unitId);
+    });
+    socket.on('disconnecting', () => {
+      const boards = [...socket.rooms].filter((room) => room.startsWith('board:')).map((room) => Number(room.slice('board:'.length)));
+      setImmediate(() => boards.forEach((unitId) => void sendPresence(unitId)));
+    });
+  }
+
   return {
-    toUnit(unitId, event) {
-      io?.to(`unit:${unitId}`).emit('changed', { ...event, unitId });
+    send(event) {
+      if (!io) return;
+      if (event.unitId !== undefined) io.to(unitRoom(event.unitId)).emit('changed', event);
+      else if (event.userId !== undefined) io.to(`user:${event.userId}`).emit('changed', event);
+      else io.emit('changed', event);
     },
-    toEveryone(event) {
-      io?.emit('changed', event);
-    },
-    toUser(userId, event) {
-      io?.to(`user:${userId}`).emit('changed', event);
+    disconnect(who) {
+      if (!io) return;
+      for (const socket of io.sockets.sockets.values()) {
+        if ((who.userId !== undefined && socket.data.userId === who.userId) || (who.sessionId !== undefined && socket.data.sessionId === who.sessionId)) {
+          socket.disconnect(true);
+        }
+      }
     },
     attach(http, sessionMiddleware) {
       io = new Server(http, { serveClient: false, cors: { origin: false } });
       io.engine.use(onHandshake(sessionMiddleware as unknown as Middleware));
       io.engine.use(onHandshake(passport.session() as unknown as Middleware));
-      // Only signed-in people get a socket: the handshake carries the same session as HTTP.
+      // Only signed-in people get a socket: the handshake carries the same session as HTTP. A person
+      // who must still replace a temporary password reaches nothing else, sockets included.
       io.engine.use(
         onHandshake((req, res, next) => {
-          if ((req as IncomingMessage & { user?: unknown }).user) next();
+          const user = (req as IncomingMessage & { user?: { mustChangePassword?: boolean } }).user;
+          if (user && !user.mustChangePassword) next();
           else {
             res.writeHead(401);
             res.end();
           }
         }),
       );
-      // Who is looking at a unit's board right now, sent to everyone in its room.
-      const sendPresence = async (room: string) => {
-        const sockets = await io!.in(room).fetchSockets();
-        const people = [...new Set(sockets.map((s) => String(s.data.name)))].sort();
-        io!.to(room).emit('presence', { unitId: Number(room.slice('unit:'.length)), people });
-      };
-      io.on('connection', (socket) => {
-        const user = (socket.request as IncomingMessage & { user?: { id: number; name: string } }).user!;
-        socket.data.name = user.name;
-        socket.join(`user:${user.id}`);
-        socket.on('watch-unit', (unitId: unknown) => {
-          if (typeof unitId !== 'number' || !Number.isInteger(unitId)) return;
-          const left = [...socket.rooms].filter((room) => room.startsWith('unit:'));
-          for (const room of left) socket.leave(room);
-          socket.join(`unit:${unitId}`);
-          for (const room of [...left, `unit:${unitId}`]) void sendPresence(room);
-        });
-        socket.on('disconnecting', () => {
-          const rooms = [...socket.rooms].filter((room) => room.startsWith('unit:'));
-          setImmediate(() => rooms.forEach((room) => void sendPresence(room)));
-        });
-      });
+      io.on('connection', wire);
       return io;
     },
   };

@@ -1,4 +1,5 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { HandoverAmendment, HandoverAttachment, HandoverItem } from '../../server/features/handovers/model';
 import { createApp } from '../../server/app';
 import { s3Storage } from '../../server/lib/storage';
 import { SECRET, anonymousAgent, closeAll, db, makeStation, makeUser, signedInAgent, type Agent } from './support/test-app';
@@ -12,6 +13,8 @@ const EXE = Buffer.concat([Buffer.from('MZ'), Buffer.alloc(58), Buffer.from([0x4
 let s3: Awaited<ReturnType<typeof startFakeS3>>;
 let built: ReturnType<typeof createApp>;
 let itemId = 0;
+let handoverId = 0;
+let handoverAt = '';
 let writer: Agent;
 
 beforeAll(async () => {
@@ -26,7 +29,9 @@ beforeAll(async () => {
   const admin = await signedInAgent(built, (await makeUser('admin')).email);
   const shifts = await admin.get(`/api/units/${unit.id}/log/shifts`).expect(200);
   await admin.put(`/api/stations/${unit.stationId}/crew-rotation`).set('X-CSRF-Token', admin.csrf).send({ anchorShiftStart: shifts.body.shifts[0].start, crewIds: crews.map((c) => c.id) }).expect(200);
-  const board = (await writer.get(`/api/units/${unit.id}/handovers/current`).expect(200)).body.board;
+  const board = (await writer.post(`/api/units/${unit.id}/handovers/current`).set('X-CSRF-Token', writer.csrf).send({}).expect(201)).body.board;
+  handoverId = board.handover.id;
+  handoverAt = board.handover.handoverAt;
   const created = await writer.post(`/api/handovers/${board.handover.id}/items`).set('X-CSRF-Token', writer.csrf).send({ kind: 'equipment', title: '1-CWP-B coupling guard cracked' });
   itemId = created.body.id;
 });
@@ -49,6 +54,9 @@ describe('handover attachments (S3-compatible storage against a local fake)', ()
     expect([...s3.objects.keys()].some((k) => k.startsWith('/hotwell-test/handovers/'))).toBe(true);
     const back = await writer.get(`/api/attachments/${photo.body.id}`).buffer(true).expect(200);
     expect(back.headers['content-type']).toBe('image/png');
+    // Served as a download that can run nothing, never as a page of the app's origin.
+    expect(back.headers['content-disposition']).toMatch(/^attachment;/);
+    expect(back.headers['content-security-policy']).toMatch(/sandbox/);
     expect(Buffer.compare(back.body as Buffer, PNG)).toBe(0);
   });
 
@@ -65,5 +73,30 @@ describe('handover attachments (S3-compatible storage against a local fake)', ()
     await upload(await signedInAgent(built, (await makeUser('operator')).email), PNG, 'a.png').expect(403);
     const big = await upload(writer, Buffer.concat([PNG, Buffer.alloc(11 * 1024 * 1024)]), 'big.png');
     expect(big.status).toBe(413);
+  });
+
+  it('after submit, takes a file only as an amendment with a reason, and the item must be acknowledged again', async () => {
+    vi.useFakeTimers({ toFake: ['Date'], shouldAdvanceTime: true });
+    vi.setSystemTime(new Date(new Date(handoverAt).getTime() - 30 * 60_000));
+    try {
+      await writer.post(`/api/handovers/${handoverId}/submit`).set('X-CSRF-Token', writer.csrf).send({}).expect(200);
+      const versionBefore = (await HandoverItem.findByPk(itemId))!.version;
+      const noReason = await upload(writer, PNG, 'late.png');
+      expect(noReason.status).toBe(400);
+      expect(noReason.body.error.fields.reason).toMatch(/amendment/);
+      const late = await writer
+        .post(`/api/handover-items/${itemId}/attachments`)
+        .set('X-CSRF-Token', writer.csrf)
+        .field('reason', 'Photo of the crack taken after submit')
+        .attach('file', PNG, 'late.png');
+      expect(late.status).toBe(201);
+      const amendment = await HandoverAmendment.findByPk(late.body.amendmentId);
+      expect(amendment).toMatchObject({ itemId, reason: 'Photo of the crack taken after submit' });
+      expect(amendment!.text).toContain('late.png');
+      expect((await HandoverAttachment.findByPk(late.body.id))!.amendmentId).toBe(amendment!.id);
+      expect((await HandoverItem.findByPk(itemId))!.version).toBe(versionBefore + 1);
+    } finally {
+      vi.useRealTimers();
+    }
   });
 });

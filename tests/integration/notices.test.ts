@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from 'vitest';
 import { Condition } from '../../server/features/conditions/model';
 import { Handover, HandoverItem } from '../../server/features/handovers/model';
 import { buildApp, closeAll, makeStation, makeUser, signedInAgent } from './support/test-app';
@@ -15,6 +15,8 @@ afterAll(async () => {
   await closeAll();
 });
 
+afterEach(() => vi.useRealTimers());
+
 describe('e-mail notices', () => {
   it('mails the incoming crew on submit, and the incoming lead once when acceptance is 30 minutes late', async () => {
     const { station, unit, crews } = await makeStation(2);
@@ -28,9 +30,12 @@ describe('e-mail notices', () => {
     await admin.put(`/api/stations/${station.id}/crew-rotation`).set('X-CSRF-Token', admin.csrf).send({ anchorShiftStart: shifts.body.shifts[0].start, crewIds: [a.id, b.id] }).expect(200);
 
     const writer = await signedInAgent(built, outgoing.email);
-    const board = (await writer.get(`/api/units/${unit.id}/handovers/current`).expect(200)).body.board;
+    const board = (await writer.post(`/api/units/${unit.id}/handovers/current`).set('X-CSRF-Token', writer.csrf).send({}).expect(201)).body.board;
     await writer.post(`/api/handovers/${board.handover.id}/items`).set('X-CSRF-Token', writer.csrf).send({ kind: 'follow_up', title: 'Vent waterbox B', priority: 'high' }).expect(201);
     const before = catcher.messages.length;
+    // Submitted within the window around the shift change: the server's clock half an hour before it.
+    vi.useFakeTimers({ toFake: ['Date'], shouldAdvanceTime: true });
+    vi.setSystemTime(new Date(new Date(board.handover.handoverAt).getTime() - 30 * 60_000));
     await writer.post(`/api/handovers/${board.handover.id}/submit`).set('X-CSRF-Token', writer.csrf).send({}).expect(200);
     const mail = (await waitForMail(catcher, before + 1)).at(-1)!;
     expect(mail.to.sort()).toEqual([inLead.email, inOperator.email].sort());
@@ -47,6 +52,7 @@ describe('e-mail notices', () => {
     expect(reminder?.to).toEqual([inLead.email]);
     expect(await built.notices.sendDue(dueAt)).toBe(0);
     expect(await HandoverItem.count({ where: { handoverId: h!.id } })).toBe(1);
+    vi.useRealTimers();
   });
 
   it('mails the shift lead on shift and the owner when a condition’s deadline passes', async () => {

@@ -1,11 +1,12 @@
 // Time-limited conditions: opened with a deadline, shown with the time left (computed here, from
 // UTC), closed only by a closing log entry.
-import { Op, type Sequelize } from 'sequelize';
+import type { Sequelize } from 'sequelize';
 import { remainingTime } from '../../../shared/conditions';
 import { stationLocalLabel } from '../../../shared/shift-time';
 import { recordAudit } from '../../lib/audit';
 import { Conflict, NotFound, ValidationError } from '../../lib/errors';
-import type { RealtimeHub } from '../../lib/realtime';
+import { publish } from '../../lib/live';
+import { unitOfWork } from '../../lib/unit-of-work';
 import { settingsForUnit } from '../stations/settings';
 import { User } from '../users/model';
 import type { LogService } from '../log/service';
@@ -39,7 +40,7 @@ export async function presentConditions(conditions: Condition[], timeZone: strin
   });
 }
 
-export function makeConditionService(sequelize: Sequelize, realtime: RealtimeHub, log: LogService) {
+export function makeConditionService(sequelize: Sequelize, log: LogService) {
   async function open(actorId: number, unitId: number, input: { title: string; requiredAction: string; startedAt: string; limitHours?: number; limitAt?: string; ownerId: number }) {
     await settingsForUnit(unitId);
     const owner = await User.findByPk(input.ownerId);
@@ -49,32 +50,39 @@ export function makeConditionService(sequelize: Sequelize, realtime: RealtimeHub
     const limitAt = input.limitAt ? new Date(input.limitAt) : new Date(startedAt.getTime() + input.limitHours! * 3_600_000);
     if (limitAt <= startedAt) throw new ValidationError({ limitAt: 'The deadline must be after the start' });
     if (startedAt.getTime() > Date.now() + 60_000) throw new ValidationError({ startedAt: 'Cannot start in the future' });
-    const condition = await sequelize.transaction(async (transaction) => {
+    return unitOfWork(sequelize, async (transaction) => {
       const created = await Condition.create(
         { unitId, title: input.title, requiredAction: input.requiredAction, startedAt, limitAt, ownerId: input.ownerId, openedBy: actorId, openedAt: new Date(), closedBy: null, closedAt: null, closingEntryId: null },
         { transaction },
       );
       await recordAudit({ actorId, action: 'condition.open', entity: 'condition', entityId: created.id, after: { title: input.title, limitAt } }, transaction);
+      publish(transaction, { entity: 'condition', id: created.id, unitId });
       return created;
     });
-    realtime.toUnit(unitId, { entity: 'condition', id: condition.id });
-    return condition;
   }
 
   async function close(actor: { id: number; role: string }, id: number, input: { text: string; position: string; version: number }) {
-    const condition = await Condition.findByPk(id);
-    if (!condition) throw new NotFound('That condition');
-    if (condition.closedAt) throw new Conflict('This condition is already closed');
-    if (condition.version !== input.version) throw new Conflict('Someone else changed this condition; reload and try again');
-    const { settings } = await settingsForUnit(condition.unitId);
+    const found = await Condition.findByPk(id);
+    if (!found) throw new NotFound('That condition');
+    const { settings } = await settingsForUnit(found.unitId);
     const category = settings.categories.some((c) => c.key === 'equipment_status') ? 'equipment_status' : settings.categories[0]!.key;
-    const entry = await log.addEntry(actor, condition.unitId, { position: input.position, category, text: `Closed condition “${condition.title}”: ${input.text}`, carryToHandover: true }, { conditionId: id });
-    const [updated] = await Condition.update(
-      { closedAt: new Date(), closedBy: actor.id, closingEntryId: entry.id, version: condition.version + 1 },
-      { where: { id, version: input.version, closedAt: { [Op.is]: null } } },
-    );
-    if (!updated) throw new Conflict('Someone else closed this condition first');
-    realtime.toUnit(condition.unitId, { entity: 'condition', id });
+    // The check, the closing entry and the update are one unit of work under the condition's row
+    // lock: of two people closing at once, one closes and writes the entry, the other writes nothing.
+    await unitOfWork(sequelize, async (transaction) => {
+      const condition = await Condition.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+      if (!condition) throw new NotFound('That condition');
+      if (condition.closedAt) throw new Conflict('This condition is already closed');
+      if (condition.version !== input.version) throw new Conflict('Someone else changed this condition; reload and try again');
+      const entry = await log.addEntry(
+        actor,
+        condition.unitId,
+        { position: input.position, category, text: `Closed condition “${condition.title}”: ${input.text}`, carryToHandover: true },
+        { conditionId: id, transaction },
+      );
+      await condition.update({ closedAt: new Date(), closedBy: actor.id, closingEntryId: entry.id, version: condition.version + 1 }, { transaction });
+      await recordAudit({ actorId: actor.id, action: 'condition.close', entity: 'condition', entityId: id, after: { closingEntryId: entry.id } }, transaction);
+      publish(transaction, { entity: 'condition', id, unitId: condition.unitId });
+    }, 'close condition');
     return Condition.findByPk(id);
   }
 

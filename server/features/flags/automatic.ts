@@ -3,6 +3,7 @@
 import type { Transaction } from 'sequelize';
 import { checkKeys } from '../../../shared/calc/check-catalog';
 import type { Evaluation } from '../../../shared/calc/evaluate';
+import { publish } from '../../lib/live';
 import { Flag, notYetFollowedUp } from './model';
 
 export async function refreshAutomaticFlags(
@@ -33,8 +34,9 @@ export async function refreshAutomaticFlags(
       if (severity === 'alarm') existing.severity = 'alarm';
       existing.version += 1;
       await existing.save({ transaction });
+      publish(transaction, { entity: 'flag', id: existing.id, unitId });
     } else {
-      await Flag.create(
+      const created = await Flag.create(
         {
           unitId,
           parameter: check.key,
@@ -52,6 +54,7 @@ export async function refreshAutomaticFlags(
         },
         { transaction },
       );
+      publish(transaction, { entity: 'flag', id: created.id, unitId });
       raised += 1;
     }
   }

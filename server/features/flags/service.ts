@@ -2,6 +2,8 @@ import { Op, type Sequelize } from 'sequelize';
 import { checkCatalog, type CheckKey } from '../../../shared/calc/check-catalog';
 import type { AssignFlagInput, ClearFlagInput, RaiseFlagInput } from '../../../shared/schemas/flags';
 import { recordAudit } from '../../lib/audit';
+import { publish } from '../../lib/live';
+import { unitOfWork } from '../../lib/unit-of-work';
 import { Conflict, NotFound, ValidationError } from '../../lib/errors';
 import { requireUnit } from '../plant/versions';
 import { ReadingSet } from '../readings/model';
@@ -66,7 +68,7 @@ export function makeFlagService(sequelize: Sequelize) {
       if (!reading || reading.unitId !== unitId) throw new ValidationError({ readingSetId: 'No such reading set on this unit' });
       value = reading.results.checks[input.parameter]?.value ?? null;
     }
-    const flag = await sequelize.transaction(async (transaction) => {
+    const flag = await unitOfWork(sequelize, async (transaction) => {
       const now = new Date();
       const created = await Flag.create(
         {
@@ -87,13 +89,14 @@ export function makeFlagService(sequelize: Sequelize) {
         { transaction },
       );
       await recordAudit({ actorId, action: 'flag.raise', entity: 'flag', entityId: created.id, after: { ...auditView(created), comment: input.comment } }, transaction);
+      publish(transaction, { entity: 'flag', id: created.id, unitId });
       return created;
     });
     return (await presentFlags([flag]))[0]!;
   }
 
   async function change(actorId: number, id: number, version: number, action: string, mutate: (flag: Flag) => void) {
-    const flag = await sequelize.transaction(async (transaction) => {
+    const flag = await unitOfWork(sequelize, async (transaction) => {
       const found = await Flag.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
       if (!found) throw new NotFound('That flag');
       if (found.status === 'cleared') throw new Conflict('This flag is already cleared');
@@ -103,6 +106,7 @@ export function makeFlagService(sequelize: Sequelize) {
       found.version += 1;
       await found.save({ transaction });
       await recordAudit({ actorId, action, entity: 'flag', entityId: id, before, after: auditView(found) }, transaction);
+      publish(transaction, { entity: 'flag', id, unitId: found.unitId });
       return found;
     });
     return (await presentFlags([flag]))[0]!;

@@ -32,13 +32,22 @@ export class HandoverItem extends Model<InferAttributes<HandoverItem>, InferCrea
   declare reference: string | null;
   declare priority: 'low' | 'normal' | 'high';
   declare sourceId: number | null;
-  declare createdBy: number;
+  /** Null for items the handover attached by itself (open flags, conditions…). */
+  declare createdBy: number | null;
   declare createdAt: Date;
+  declare clientKey: CreationOptional<string | null>;
+  /** Moves on with each edit of a draft item and each amendment after submit. */
+  declare version: CreationOptional<number>;
+  declare amendedAt: CreationOptional<Date | null>;
+  declare removedAt: CreationOptional<Date | null>;
+  declare removedBy: CreationOptional<number | null>;
 }
 
 export class HandoverAck extends Model<InferAttributes<HandoverAck>, InferCreationAttributes<HandoverAck>> {
   declare itemId: number;
   declare userId: number;
+  /** The item's version this acknowledgement was given to. */
+  declare itemVersion: number;
   declare acknowledgedAt: Date;
 }
 
@@ -51,6 +60,7 @@ export class HandoverQuery extends Model<InferAttributes<HandoverQuery>, InferCr
   declare answeredBy: number | null;
   declare answeredAt: Date | null;
   declare answer: string | null;
+  declare clientKey: CreationOptional<string | null>;
 }
 
 export class HandoverAmendment extends Model<InferAttributes<HandoverAmendment>, InferCreationAttributes<HandoverAmendment>> {
@@ -61,6 +71,7 @@ export class HandoverAmendment extends Model<InferAttributes<HandoverAmendment>,
   declare amendedAt: Date;
   declare reason: string;
   declare text: string;
+  declare clientKey: CreationOptional<string | null>;
 }
 
 export class HandoverAttachment extends Model<InferAttributes<HandoverAttachment>, InferCreationAttributes<HandoverAttachment>> {
@@ -72,6 +83,7 @@ export class HandoverAttachment extends Model<InferAttributes<HandoverAttachment
   declare storageKey: string;
   declare uploadedBy: number;
   declare uploadedAt: Date;
+  declare amendmentId: CreationOptional<number | null>;
 }
 
 export function initHandoverModels(sequelize: Sequelize) {
@@ -91,24 +103,25 @@ export function initHandoverModels(sequelize: Sequelize) {
     {
       id: pk, handoverId: int, kind: DataTypes.STRING(30), title: DataTypes.STRING(300), detail: DataTypes.TEXT,
       reference: DataTypes.STRING(80), priority: DataTypes.ENUM('low', 'normal', 'high'), sourceId: DataTypes.BIGINT.UNSIGNED,
-      createdBy: int, createdAt: at,
+      createdBy: int, createdAt: at, clientKey: DataTypes.STRING(64), version: { type: int, defaultValue: 1 },
+      amendedAt: at, removedAt: at, removedBy: int,
     },
     { sequelize, tableName: 'handover_items', timestamps: false },
   );
   HandoverAck.init(
-    { itemId: { type: int, primaryKey: true }, userId: { type: int, primaryKey: true }, acknowledgedAt: at },
+    { itemId: { type: int, primaryKey: true }, userId: { type: int, primaryKey: true }, itemVersion: { type: int, primaryKey: true }, acknowledgedAt: at },
     { sequelize, tableName: 'handover_acks', timestamps: false },
   );
   HandoverQuery.init(
-    { id: pk, itemId: int, askedBy: int, askedAt: at, question: DataTypes.STRING(2000), answeredBy: int, answeredAt: at, answer: DataTypes.STRING(2000) },
+    { id: pk, itemId: int, askedBy: int, askedAt: at, question: DataTypes.STRING(2000), answeredBy: int, answeredAt: at, answer: DataTypes.STRING(2000), clientKey: DataTypes.STRING(64) },
     { sequelize, tableName: 'handover_queries', timestamps: false },
   );
   HandoverAmendment.init(
-    { id: pk, handoverId: int, itemId: int, authorId: int, amendedAt: at, reason: DataTypes.STRING(1000), text: DataTypes.TEXT },
+    { id: pk, handoverId: int, itemId: int, authorId: int, amendedAt: at, reason: DataTypes.STRING(1000), text: DataTypes.TEXT, clientKey: DataTypes.STRING(64) },
     { sequelize, tableName: 'handover_amendments', timestamps: false },
   );
   HandoverAttachment.init(
-    { id: pk, itemId: int, fileName: DataTypes.STRING(200), mime: DataTypes.STRING(80), size: int, storageKey: DataTypes.STRING(200), uploadedBy: int, uploadedAt: at },
+    { id: pk, itemId: int, fileName: DataTypes.STRING(200), mime: DataTypes.STRING(80), size: int, storageKey: DataTypes.STRING(200), uploadedBy: int, uploadedAt: at, amendmentId: int },
     { sequelize, tableName: 'handover_attachments', timestamps: false },
   );
 }

@@ -23,7 +23,7 @@ export function makeNotices(mailer: Mailer, publicUrl: string) {
   async function handoverSubmitted(handoverId: number) {
     const h = await Handover.findByPk(handoverId);
     if (!h) return;
-    const [unit, items, submitter] = await Promise.all([PlantUnit.findByPk(h.unitId), HandoverItem.findAll({ where: { handoverId } }), h.submittedBy ? User.findByPk(h.submittedBy) : null]);
+    const [unit, items, submitter] = await Promise.all([PlantUnit.findByPk(h.unitId), HandoverItem.findAll({ where: { handoverId, removedAt: null } }), h.submittedBy ? User.findByPk(h.submittedBy) : null]);
     const settings = await settingsForStation(unit!.stationId);
     const high = items.filter((i) => i.priority === 'high');
     await mailer.send({

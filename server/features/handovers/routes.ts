@@ -1,30 +1,38 @@
 import { Router } from 'express';
-import type { Sequelize } from 'sequelize';
-import { answerSchema, crewRotationSchema, crewSwapSchema, handoverAmendmentSchema, newHandoverItemSchema, questionSchema, saveNotesSchema } from '../../../shared/schemas/handovers';
-import { adminOnly, authorize, signedIn } from '../../lib/auth';
-import { recordAudit } from '../../lib/audit';
-import { NotFound, ValidationError } from '../../lib/errors';
+import { answerSchema, editHandoverItemSchema, handoverAmendmentSchema, newHandoverItemSchema, questionSchema, saveNotesSchema } from '../../../shared/schemas/handovers';
+import { authorize, signedIn } from '../../lib/auth';
 import { parseId, parseInput } from '../../lib/validate';
-import { Crew, Station } from '../plant/model';
-import { CrewSwap } from '../shifts/model';
-import { StationSettingsRow } from '../stations/model';
-import { defaultStationSettings } from '../stations/settings';
-import { viewHandover, type HandoverService } from './service';
-import { shiftStartFor } from '../../../shared/shift-time';
-import { settingsForStation } from '../stations/settings';
+import type { HandoverService } from './service';
+import { viewHandover } from './view';
 
 // Crew members act on handovers; the service checks outgoing/incoming crew and role per action.
 const crewMember = authorize(['trainee', 'operator', 'shift_lead']);
 
-export function handoverRoutes(sequelize: Sequelize, handovers: HandoverService): Router {
+export function handoverRoutes(handovers: HandoverService): Router {
   const router = Router();
 
+  /** The shift change in progress and its board. A read: opening the board creates nothing. */
   router.get('/units/:unitId/handovers/current', signedIn, async (req, res) => {
-    const { change, handover } = await handovers.current(req.user!, parseId(req.params.unitId, 'unitId'));
+    const { change, handover, mayStart, window } = await handovers.current(req.user!, parseId(req.params.unitId, 'unitId'));
     res.json({
-      shiftChange: { shiftStart: change.shiftStart.toISOString(), handoverAt: change.handoverAt.toISOString(), timeZone: change.settings.timeZone, outgoingCrewId: change.outgoingCrewId, incomingCrewId: change.incomingCrewId },
+      shiftChange: {
+        shiftStart: change.shiftStart.toISOString(),
+        handoverAt: change.handoverAt.toISOString(),
+        timeZone: change.settings.timeZone,
+        outgoingCrewId: change.outgoingCrewId,
+        incomingCrewId: change.incomingCrewId,
+        windowOpensAt: window.opensAt.toISOString(),
+        windowClosesAt: window.closesAt.toISOString(),
+      },
+      mayStart,
       board: handover ? await viewHandover(handover.id) : null,
     });
+  });
+
+  /** Starts this shift change's draft; starting it again returns the same one. */
+  router.post('/units/:unitId/handovers/current', crewMember, async (req, res) => {
+    const handover = await handovers.start(req.user!, parseId(req.params.unitId, 'unitId'));
+    res.status(201).json({ board: await viewHandover(handover.id) });
   });
 
   router.get('/handovers/:id', signedIn, async (req, res) => {
@@ -40,9 +48,19 @@ export function handoverRoutes(sequelize: Sequelize, handovers: HandoverService)
     res.status(201).json({ id: item.id });
   });
 
+  router.patch('/handover-items/:id', crewMember, async (req, res) => {
+    await handovers.editItem(req.user!, parseId(req.params.id), parseInput(editHandoverItemSchema, req.body));
+    res.json({ ok: true });
+  });
+
+  router.delete('/handover-items/:id', crewMember, async (req, res) => {
+    await handovers.removeItem(req.user!, parseId(req.params.id));
+    res.status(204).end();
+  });
+
   router.post('/handovers/:id/submit', crewMember, async (req, res) => {
-    await handovers.submit(req.user!, parseId(req.params.id));
-    res.json({ board: await viewHandover(parseId(req.params.id)) });
+    const { alreadySubmitted } = await handovers.submit(req.user!, parseId(req.params.id));
+    res.json({ alreadySubmitted, board: await viewHandover(parseId(req.params.id)) });
   });
 
   router.post('/handovers/:id/amendments', crewMember, async (req, res) => {
@@ -56,7 +74,7 @@ export function handoverRoutes(sequelize: Sequelize, handovers: HandoverService)
   });
 
   router.post('/handover-items/:id/queries', crewMember, async (req, res) => {
-    const query = await handovers.ask(req.user!, parseId(req.params.id), parseInput(questionSchema, req.body).question);
+    const query = await handovers.ask(req.user!, parseId(req.params.id), parseInput(questionSchema, req.body));
     res.status(201).json({ id: query.id });
   });
 
@@ -66,38 +84,8 @@ export function handoverRoutes(sequelize: Sequelize, handovers: HandoverService)
   });
 
   router.post('/handovers/:id/accept', crewMember, async (req, res) => {
-    await handovers.accept(req.user!, parseId(req.params.id));
-    res.json({ board: await viewHandover(parseId(req.params.id)) });
-  });
-
-  router.put('/stations/:stationId/crew-rotation', adminOnly, async (req, res) => {
-    const stationId = parseId(req.params.stationId, 'stationId');
-    if (!(await Station.findByPk(stationId))) throw new NotFound('That station');
-    const rotation = parseInput(crewRotationSchema, req.body);
-    if ((await Crew.count({ where: { id: rotation.crewIds, stationId } })) !== new Set(rotation.crewIds).size) throw new ValidationError({ crewIds: 'Unknown crew' });
-    const settings = await settingsForStation(stationId);
-    if (shiftStartFor(new Date(rotation.anchorShiftStart), settings.timeZone, settings.shiftChangeTimes).getTime() !== Date.parse(rotation.anchorShiftStart)) {
-      throw new ValidationError({ anchorShiftStart: 'Not the start of a shift at this station' });
-    }
-    await sequelize.transaction(async (transaction) => {
-      const row = await StationSettingsRow.findByPk(stationId, { transaction });
-      if (row) await row.update({ crewRotation: rotation }, { transaction });
-      else await StationSettingsRow.create({ stationId, ...defaultStationSettings, crewRotation: rotation, updatedAt: new Date() }, { transaction });
-      await recordAudit({ actorId: req.user!.id, action: 'station.crew_rotation', entity: 'station', entityId: stationId, after: rotation }, transaction);
-    });
-    res.json({ rotation });
-  });
-
-  router.post('/stations/:stationId/crew-swaps', adminOnly, async (req, res) => {
-    const stationId = parseId(req.params.stationId, 'stationId');
-    const swap = parseInput(crewSwapSchema, req.body);
-    if (!(await Crew.findOne({ where: { id: swap.crewId, stationId } }))) throw new ValidationError({ crewId: 'Unknown crew' });
-    const created = await sequelize.transaction(async (transaction) => {
-      const row = await CrewSwap.create({ stationId, shiftStart: new Date(swap.shiftStart), crewId: swap.crewId, reason: swap.reason, createdBy: req.user!.id, createdAt: new Date() }, { transaction });
-      await recordAudit({ actorId: req.user!.id, action: 'station.crew_swap', entity: 'station', entityId: stationId, after: swap }, transaction);
-      return row;
-    });
-    res.status(201).json({ id: created.id });
+    const { alreadyAccepted } = await handovers.accept(req.user!, parseId(req.params.id));
+    res.json({ alreadyAccepted, board: await viewHandover(parseId(req.params.id)) });
   });
 
   return router;

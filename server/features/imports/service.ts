@@ -3,6 +3,7 @@ import { Op, type Sequelize } from 'sequelize';
 import type { ReadingSetSi } from '../../../shared/calc/evaluate';
 import { importFields, type ImportField, type ImportMapping, type ImportRowReport } from '../../../shared/schemas/imports';
 import { readingSetInputSchema, type ReadingSetInput } from '../../../shared/schemas/reading-set';
+import { publish } from '../../lib/live';
 import { recordAudit } from '../../lib/audit';
 import { convertReadingSet } from '../../lib/convert-readings';
 import { ValidationError, fieldErrorsFromZod } from '../../lib/errors';
@@ -166,6 +167,7 @@ export function makeImportService(sequelize: Sequelize) {
         { actorId: actor.id, action: 'import.commit', entity: 'unit', entityId: unitId, after: { source: mapping.source, ...analysis.counts } },
         transaction,
       );
+      publish(transaction, { entity: 'import', id: unitId, unitId });
     });
     return {
       imported: analysis.valid.length,

@@ -3,6 +3,7 @@ import { amendLogEntrySchema, logQuerySchema, newLogEntrySchema, signReviewSchem
 import { recentShiftStarts, stationLocalLabel } from '../../../shared/shift-time';
 import { adminOnly, authorize, signedIn } from '../../lib/auth';
 import { recordAudit } from '../../lib/audit';
+import { publish } from '../../lib/live';
 import { parseId, parseInput } from '../../lib/validate';
 import { Station } from '../plant/model';
 import { NotFound } from '../../lib/errors';
@@ -31,6 +32,7 @@ export function logRoutes(sequelize: Sequelize, log: LogService): Router {
       const before = await settingsForStation(stationId, transaction);
       await StationSettingsRow.upsert({ stationId, ...settings, updatedAt: new Date() }, { transaction });
       await recordAudit({ actorId: req.user!.id, action: 'station.settings', entity: 'station', entityId: stationId, before, after: settings }, transaction);
+      publish(transaction, { entity: 'station_settings', id: stationId });
     });
     res.json({ settings });
   });

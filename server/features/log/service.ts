@@ -1,10 +1,11 @@
 // The narrative log: append-only entries, amendments beside them, late-entry marking by server
 // time, and the shift lead's end-of-shift review.
-import { Op, type Sequelize } from 'sequelize';
+import { Op, type Sequelize, type Transaction } from 'sequelize';
 import { shiftStartFor } from '../../../shared/shift-time';
 import type { NewLogEntry } from '../../../shared/schemas/log';
 import { Conflict, Forbidden, NotFound, ValidationError } from '../../lib/errors';
-import type { RealtimeHub } from '../../lib/realtime';
+import { publish } from '../../lib/live';
+import { unitOfWork } from '../../lib/unit-of-work';
 import { recordAudit } from '../../lib/audit';
 import { Equipment } from '../plant/model';
 import { ReadingSet } from '../readings/model';
@@ -35,8 +36,14 @@ async function checkLinks(unitId: number, input: NewLogEntry) {
   if (Object.keys(fields).length) throw new ValidationError(fields);
 }
 
-export function makeLogService(sequelize: Sequelize, realtime: RealtimeHub) {
-  async function addEntry(actor: Actor, unitId: number, input: NewLogEntry, extra: { conditionId?: number } = {}) {
+export function makeLogService(sequelize: Sequelize) {
+  /** Writes one entry; inside `extra.transaction` when it is part of a larger unit of work (closing a condition). */
+  async function addEntry(actor: Actor, unitId: number, input: NewLogEntry, extra: { conditionId?: number; transaction?: Transaction } = {}) {
+    if (extra.transaction) return writeEntry(actor, unitId, input, extra.conditionId ?? null, extra.transaction);
+    return unitOfWork(sequelize, (transaction) => writeEntry(actor, unitId, input, null, transaction), 'log entry');
+  }
+
+  async function writeEntry(actor: Actor, unitId: number, input: NewLogEntry, conditionId: number | null, transaction: Transaction) {
     const { settings } = await settingsForUnit(unitId);
     requireKnown(settings, input);
     await checkLinks(unitId, input);
@@ -45,6 +52,7 @@ export function makeLogService(sequelize: Sequelize, realtime: RealtimeHub) {
     const eventAt = input.eventAt ? new Date(input.eventAt) : enteredAt;
     if (eventAt.getTime() > enteredAt.getTime() + FUTURE_TOLERANCE_MS) throw new ValidationError({ eventAt: 'An event cannot be in the future' });
     if (enteredAt.getTime() - eventAt.getTime() > OLDEST_LATE_ENTRY_MS) throw new ValidationError({ eventAt: 'More than 31 days ago: ask the shift lead to record it as a communication' });
+    // The entry and its search document (index hooks) commit together or not at all.
     const entry = await LogEntry.create({
       unitId,
       position: input.position,
@@ -58,10 +66,10 @@ export function makeLogService(sequelize: Sequelize, realtime: RealtimeHub) {
       equipmentId: input.equipmentId ?? null,
       readingSetId: input.readingSetId ?? null,
       flagId: input.flagId ?? null,
-      conditionId: extra.conditionId ?? null,
+      conditionId,
       carryToHandover: input.carryToHandover,
-    });
-    realtime.toUnit(unitId, { entity: 'log_entry', id: entry.id });
+    }, { transaction });
+    publish(transaction, { entity: 'log_entry', id: entry.id, unitId });
     return entry;
   }
 
@@ -69,13 +77,12 @@ export function makeLogService(sequelize: Sequelize, realtime: RealtimeHub) {
     const entry = await LogEntry.findByPk(entryId);
     if (!entry) throw new NotFound('That log entry');
     if (actor.role === 'trainee' && entry.authorId !== actor.id) throw new Forbidden('A trainee may amend only their own entries');
-    const amendment = await sequelize.transaction(async (transaction) => {
+    return unitOfWork(sequelize, async (transaction) => {
       const created = await LogAmendment.create({ entryId, authorId: actor.id, amendedAt: new Date(), reason: input.reason, text: input.text }, { transaction });
       await recordAudit({ actorId: actor.id, action: 'log.amend', entity: 'log_entry', entityId: entryId, after: { reason: input.reason } }, transaction);
+      publish(transaction, { entity: 'log_entry', id: entryId, unitId: entry.unitId });
       return created;
     });
-    realtime.toUnit(entry.unitId, { entity: 'log_entry', id: entryId });
-    return amendment;
   }
 
   async function signReview(actor: Actor, unitId: number, position: string, shiftStartText: string) {
@@ -88,9 +95,12 @@ export function makeLogService(sequelize: Sequelize, realtime: RealtimeHub) {
     if (shiftStart.getTime() > Date.now()) throw new ValidationError({ shiftStart: 'That shift has not started' });
     const existing = await LogReview.findOne({ where: { unitId, position, shiftStart } });
     if (existing) throw new Conflict('This shift’s log for that position is already signed as reviewed');
-    const review = await LogReview.create({ unitId, position, shiftStart, reviewedBy: actor.id, reviewedAt: new Date() });
-    realtime.toUnit(unitId, { entity: 'log_review', id: review.id });
-    return review;
+    return unitOfWork(sequelize, async (transaction) => {
+      const review = await LogReview.create({ unitId, position, shiftStart, reviewedBy: actor.id, reviewedAt: new Date() }, { transaction });
+      await recordAudit({ actorId: actor.id, action: 'log.review', entity: 'log_review', entityId: review.id, after: { unitId, position, shiftStart } }, transaction);
+      publish(transaction, { entity: 'log_review', id: review.id, unitId });
+      return review;
+    });
   }
 
   return { addEntry, amend, signReview };

@@ -65,7 +65,7 @@ const sources: Record<DocumentKind, string> = {
     'handover_item',
     { ref_id: 'i.id', unit_id: 'h.unit_id', station_id: 'u.station_id', occurred_at: 'i.created_at', shift_start: 'h.shift_start', crew_id: 'h.outgoing_crew_id', person_id: 'i.created_by',
       severity: 'i.priority', title: 'i.title', body: "CONCAT_WS(' · ', i.detail, i.reference, REPLACE(i.kind, '_', ' '))" },
-    'FROM handover_items i JOIN handovers h ON h.id = i.handover_id JOIN units u ON u.id = h.unit_id WHERE {ids:i.id}',
+    'FROM handover_items i JOIN handovers h ON h.id = i.handover_id JOIN units u ON u.id = h.unit_id WHERE i.removed_at IS NULL AND {ids:i.id}',
   ),
   handover_query: source(
     'handover_query',
@@ -132,6 +132,14 @@ export async function indexDocuments(sequelize: Sequelize, kind: DocumentKind, i
       `DELETE d FROM logbook_documents d JOIN reading_sets r ON r.id = d.ref_id
        WHERE d.kind = 'round' AND d.ref_id IN (${ids.map(Number).join(',')}) AND r.worst_status NOT IN ('watch', 'alarm')
          AND NOT EXISTS (SELECT 1 FROM reading_amendments a WHERE a.reading_set_id = r.id)`,
+      { transaction: transaction ?? undefined },
+    );
+  }
+  // A draft item taken off the handover is no longer a document.
+  if (kind === 'handover_item' && ids) {
+    await sequelize.query(
+      `DELETE d FROM logbook_documents d JOIN handover_items i ON i.id = d.ref_id
+       WHERE d.kind = 'handover_item' AND d.ref_id IN (${ids.map(Number).join(',')}) AND i.removed_at IS NOT NULL`,
       { transaction: transaction ?? undefined },
     );
   }

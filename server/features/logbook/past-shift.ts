@@ -19,7 +19,7 @@ import { presentConditions } from '../conditions/service';
 import { StandingOrder } from '../standing-orders/model';
 import { presentOrder } from '../standing-orders/service';
 import { Handover } from '../handovers/model';
-import { viewHandover } from '../handovers/service';
+import { viewHandover } from '../handovers/view';
 import { commentsOn } from './review-comments';
 
 export async function pastShift(sequelize: Sequelize, viewer: Express.User, unitId: number, shiftStartText: string) {

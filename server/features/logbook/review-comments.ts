@@ -4,7 +4,8 @@
 import { Op, QueryTypes, type Sequelize } from 'sequelize';
 import { NotFound } from '../../lib/errors';
 import { recordAudit } from '../../lib/audit';
-import type { RealtimeHub } from '../../lib/realtime';
+import { publish } from '../../lib/live';
+import { unitOfWork } from '../../lib/unit-of-work';
 import { User } from '../users/model';
 import { ReviewComment } from './model';
 import type { ReviewCommentView } from '../../../shared/schemas/logbook';
@@ -57,16 +58,17 @@ async function present(comments: ReviewComment[], docs: Map<number, DocumentRow>
   });
 }
 
-export function makeReviewCommentService(sequelize: Sequelize, realtime: RealtimeHub) {
+export function makeReviewCommentService(sequelize: Sequelize) {
   async function add(actor: Express.User, input: { documentId: number; body: string }) {
     const doc = (await documentsById(sequelize, [input.documentId])).get(input.documentId);
     if (!doc) throw new NotFound('That logbook record');
-    const comment = await sequelize.transaction(async (transaction) => {
+    const comment = await unitOfWork(sequelize, async (transaction) => {
       const created = await ReviewComment.create({ documentId: doc.id, authorId: actor.id, body: input.body, createdAt: new Date() }, { transaction });
       await recordAudit({ actorId: actor.id, action: 'logbook.review_comment', entity: 'review_comment', entityId: created.id }, transaction);
+      // The record's author hears at once; a record without one (a flag) has nobody to tell.
+      if (doc.personId) publish(transaction, { entity: 'review_comment', id: created.id, userId: doc.personId });
       return created;
     });
-    if (doc.personId) realtime.toUser(doc.personId, { entity: 'review_comment', id: comment.id });
     return (await present([comment], new Map([[doc.id, doc]])))[0]!;
   }
 

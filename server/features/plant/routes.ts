@@ -3,6 +3,7 @@ import { z } from 'zod';
 import { newDesignVersionSchema, newLimitVersionSchema } from '../../../shared/schemas/plant';
 import { adminOnly, signedIn } from '../../lib/auth';
 import { recordAudit } from '../../lib/audit';
+import { publish } from '../../lib/live';
 import { ValidationError } from '../../lib/errors';
 import { parseId, parseInput } from '../../lib/validate';
 import { User } from '../users/model';
@@ -87,6 +88,7 @@ export function plantRoutes(sequelize: Sequelize, versions: VersionService): Rou
       const created = await sequelize.transaction(async (transaction) => {
         const row = await Equipment.create({ unitId, ...input }, { transaction });
         await recordAudit({ actorId: req.user!.id, action: 'equipment.create', entity: 'equipment', entityId: row.id, after: input }, transaction);
+        publish(transaction, { entity: 'plant', id: row.id, unitId });
         return row;
       });
       res.status(201).json({ equipment: { id: created.id, ...input } });

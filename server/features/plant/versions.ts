@@ -3,6 +3,8 @@ import { Op, type Sequelize, type Transaction } from 'sequelize';
 import type { LimitSet } from '../../../shared/calc/limits';
 import type { UnitDesign } from '../../../shared/schemas/plant';
 import { recordAudit } from '../../lib/audit';
+import { publish } from '../../lib/live';
+import { unitOfWork } from '../../lib/unit-of-work';
 import { NotFound } from '../../lib/errors';
 import { LimitSetVersion, PlantUnit, UnitDesignVersion } from './model';
 
@@ -35,7 +37,7 @@ export async function requireUnit(unitId: number): Promise<PlantUnit> {
 export function makeVersionService(sequelize: Sequelize) {
   async function addDesignVersion(actorId: number, unitId: number, design: UnitDesign, note: string) {
     await requireUnit(unitId);
-    return sequelize.transaction(async (transaction) => {
+    return unitOfWork(sequelize, async (transaction) => {
       const before = await UnitDesignVersion.findOne({ ...inForce(unitId, new Date()), transaction });
       const created = await UnitDesignVersion.create(
         { unitId, effectiveFrom: new Date(), data: design, note, createdBy: actorId },
@@ -45,19 +47,21 @@ export function makeVersionService(sequelize: Sequelize) {
         { actorId, action: 'unit_design.new_version', entity: 'unit', entityId: unitId, before: before?.data ?? null, after: { versionId: created.id, note, data: design } },
         transaction,
       );
+      publish(transaction, { entity: 'plant', id: created.id, unitId });
       return created;
     });
   }
 
   async function addLimitVersion(actorId: number, unitId: number, limits: LimitSet, note: string) {
     await requireUnit(unitId);
-    return sequelize.transaction(async (transaction) => {
+    return unitOfWork(sequelize, async (transaction) => {
       const before = await LimitSetVersion.findOne({ ...inForce(unitId, new Date()), transaction });
       const created = await LimitSetVersion.create({ unitId, effectiveFrom: new Date(), limits, note, createdBy: actorId }, { transaction });
       await recordAudit(
         { actorId, action: 'limit_set.new_version', entity: 'unit', entityId: unitId, before: before?.limits ?? null, after: { versionId: created.id, note, limits } },
         transaction,
       );
+      publish(transaction, { entity: 'plant', id: created.id, unitId });
       return created;
     });
   }

@@ -4,6 +4,8 @@ import type { ReadingSetSi } from '../../../shared/calc/evaluate';
 import type { ReadingSetInput } from '../../../shared/schemas/reading-set';
 import type { AmendReadingInput, RecordReadingInput } from '../../../shared/schemas/readings';
 import { recordAudit } from '../../lib/audit';
+import { publish } from '../../lib/live';
+import { unitOfWork } from '../../lib/unit-of-work';
 import { Conflict, Forbidden, NotFound, ValidationError } from '../../lib/errors';
 import { convertReadingSet } from '../../lib/convert-readings';
 import { refreshAutomaticFlags } from '../flags/automatic';
@@ -73,12 +75,13 @@ export function makeReadingService(sequelize: Sequelize) {
     checkTakenAt(takenAt);
     const raw: ReadingSetInput = { ...readings, unitId };
     const si = convertReadingSet(raw);
-    const { reading, flagsRaised } = await sequelize.transaction(async (transaction) => {
+    const { reading, flagsRaised } = await unitOfWork(sequelize, async (transaction) => {
       const stored = await storeReading({ unitId, takenAt, raw, si, actor, source: 'round', importKey: null }, transaction);
       await recordAudit(
         { actorId: actor.id, action: 'reading.record', entity: 'reading_set', entityId: stored.reading.id, after: { unitId, takenAt, worstStatus: stored.reading.worstStatus } },
         transaction,
       );
+      publish(transaction, { entity: 'reading', id: stored.reading.id, unitId });
       return stored;
     });
     return { id: reading.id, flagsRaised, ...(await getReading(reading.id)) };
@@ -89,7 +92,7 @@ export function makeReadingService(sequelize: Sequelize) {
     if (!original) throw new NotFound('That reading set');
     const raw: ReadingSetInput = { ...input.reading, unitId: original.unitId };
     const si = convertReadingSet(raw);
-    await sequelize.transaction(async (transaction) => {
+    await unitOfWork(sequelize, async (transaction) => {
       // Judged by the versions in force when the reading was taken, not today's.
       const judged = await judgeAt(original.unitId, original.takenAt, si, transaction);
       const amendment = await ReadingAmendment.create(
@@ -104,6 +107,7 @@ export function makeReadingService(sequelize: Sequelize) {
         { actorId: actor.id, action: 'reading.amend', entity: 'reading_set', entityId: readingSetId, after: { amendmentId: amendment.id, reason: input.reason } },
         transaction,
       );
+      publish(transaction, { entity: 'reading', id: readingSetId, unitId: original.unitId });
     });
     return getReading(readingSetId);
   }
@@ -113,11 +117,12 @@ export function makeReadingService(sequelize: Sequelize) {
     if (!reading) throw new NotFound('That reading set');
     if (!reading.recordedAsTrainee) throw new ValidationError({ _: 'Only a trainee’s round needs a countersign' });
     if (reading.recordedBy === actor.id) throw new Forbidden('You cannot countersign your own round');
-    await sequelize.transaction(async (transaction) => {
+    await unitOfWork(sequelize, async (transaction) => {
       const existing = await ReadingCountersign.findByPk(readingSetId, { transaction, lock: transaction.LOCK.UPDATE });
       if (existing) throw new Conflict('This round is already countersigned');
       await ReadingCountersign.create({ readingSetId, signedBy: actor.id, signedAt: new Date() }, { transaction });
       await recordAudit({ actorId: actor.id, action: 'reading.countersign', entity: 'reading_set', entityId: readingSetId }, transaction);
+      publish(transaction, { entity: 'reading', id: readingSetId, unitId: reading.unitId });
     });
     return getReading(readingSetId);
   }

@@ -22,7 +22,7 @@ function logIn(req: Request, user: Express.User): Promise<void> {
   return new Promise((resolve, reject) => req.logIn(user, (error) => (error ? reject(error) : resolve())));
 }
 
-export function sessionRoutes(users: UserService, csrf: Csrf, signInLimit: number): Router {
+export function sessionRoutes(users: UserService, csrf: Csrf, signInLimit: number, onSignedOut: (sessionId: string) => void = () => {}): Router {
   const router = Router();
 
   const signInLimiter: RequestHandler = rateLimit({
@@ -48,11 +48,14 @@ export function sessionRoutes(users: UserService, csrf: Csrf, signInLimit: numbe
   });
 
   router.delete('/session', (req, res, next) => {
+    const sessionId = req.sessionID;
     req.logout((error) => {
       if (error) return next(error);
       req.session.destroy((destroyError) => {
         if (destroyError) return next(destroyError);
         res.clearCookie('hotwell.sid');
+        // A tab left open elsewhere on this session stops hearing the unit's events at once.
+        onSignedOut(sessionId);
         res.status(204).end();
       });
     });

@@ -3,7 +3,8 @@ import { richTextToPlain, sanitizeRichText } from '../../lib/rich-text';
 import { Op, type Sequelize } from 'sequelize';
 import { recordAudit } from '../../lib/audit';
 import { Conflict, Forbidden, NotFound, ValidationError } from '../../lib/errors';
-import type { RealtimeHub } from '../../lib/realtime';
+import { publish } from '../../lib/live';
+import { unitOfWork } from '../../lib/unit-of-work';
 import { Crew } from '../plant/model';
 import { User } from '../users/model';
 import { shiftChangeAt } from '../shifts/crews';
@@ -31,7 +32,7 @@ function inScope(order: StandingOrder, user: { role: string; crewId: number | nu
   );
 }
 
-export function makeStandingOrderService(sequelize: Sequelize, realtime: RealtimeHub) {
+export function makeStandingOrderService(sequelize: Sequelize) {
   async function issue(actorId: number, stationId: number, input: { title: string; bodyHtml: string; effectiveFrom: string; effectiveTo?: string | null; crewIds: number[]; positions: string[] }) {
     const bodyHtml = sanitizeRichText(input.bodyHtml);
     const bodyText = richTextToPlain(input.bodyHtml);
@@ -40,7 +41,7 @@ export function makeStandingOrderService(sequelize: Sequelize, realtime: Realtim
       const crews = await Crew.count({ where: { id: input.crewIds, stationId } });
       if (crews !== new Set(input.crewIds).size) throw new ValidationError({ crewIds: 'Unknown crew' });
     }
-    const order = await sequelize.transaction(async (transaction) => {
+    return unitOfWork(sequelize, async (transaction) => {
       const created = await StandingOrder.create(
         {
           stationId,
@@ -57,10 +58,10 @@ export function makeStandingOrderService(sequelize: Sequelize, realtime: Realtim
         { transaction },
       );
       await recordAudit({ actorId, action: 'standing_order.issue', entity: 'standing_order', entityId: created.id, after: { title: input.title } }, transaction);
+      // Orders are station-wide: everyone signed in hears of them.
+      publish(transaction, { entity: 'standing_order', id: created.id });
       return created;
     });
-    realtime.toEveryone({ entity: 'standing_order', id: order.id });
-    return order;
   }
 
   async function acknowledge(user: Express.User & { position?: string | null }, orderId: number) {
@@ -70,9 +71,11 @@ export function makeStandingOrderService(sequelize: Sequelize, realtime: Realtim
     if (!person || !inScope(order, person)) throw new Forbidden('This order is not addressed to your crew or position');
     if (!orderInForce(order)) throw new Conflict('This order is not in force');
     if (await StandingOrderAck.findOne({ where: { orderId, userId: user.id } })) throw new Conflict('You have already acknowledged this order');
-    const ack = await StandingOrderAck.create({ orderId, userId: user.id, acknowledgedAt: new Date() });
-    realtime.toEveryone({ entity: 'standing_order', id: orderId });
-    return ack;
+    return unitOfWork(sequelize, async (transaction) => {
+      const ack = await StandingOrderAck.create({ orderId, userId: user.id, acknowledgedAt: new Date() }, { transaction });
+      publish(transaction, { entity: 'standing_order', id: orderId });
+      return ack;
+    });
   }
 
   return { issue, acknowledge };

@@ -4,6 +4,8 @@
 import { Op, type Sequelize, type Transaction } from 'sequelize';
 import type { NewTrainingEntry, QualificationTaskInput, TaskStatus } from '../../../shared/schemas/training';
 import { recordAudit } from '../../lib/audit';
+import { publish } from '../../lib/live';
+import { unitOfWork } from '../../lib/unit-of-work';
 import { Conflict, Forbidden, NotFound, ValidationError } from '../../lib/errors';
 import { User } from '../users/model';
 import { PlantUnit } from '../plant/model';
@@ -61,20 +63,21 @@ async function names(ids: (number | null | undefined)[]) {
 
 export function makeTrainingService(sequelize: Sequelize) {
   async function createTask(actor: Actor, input: QualificationTaskInput & { taskKey: string }) {
-    return sequelize.transaction(async (transaction) => {
+    return unitOfWork(sequelize, async (transaction) => {
       if (await QualificationTask.findOne({ where: { taskKey: input.taskKey }, transaction })) throw new ValidationError({ taskKey: 'A task with this key exists already' });
       const task = await QualificationTask.create(
         { ...input, procedureRef: input.procedureRef ?? null, version: 1, retired: false, changeNote: 'First version', createdBy: actor.id, createdAt: new Date() },
         { transaction },
       );
       await recordAudit({ actorId: actor.id, action: 'training.task.create', entity: 'qualification_task', entityId: task.id, after: presentTask(task) }, transaction);
+      publish(transaction, { entity: 'training', id: task.id });
       return presentTask(task);
     });
   }
 
   /** A change is the next version of the task; earlier entries and sign-offs keep theirs. */
   async function changeTask(actor: Actor, taskKey: string, change: Partial<QualificationTaskInput> & { retired?: boolean; changeNote: string }) {
-    return sequelize.transaction(async (transaction) => {
+    return unitOfWork(sequelize, async (transaction) => {
       const before = await currentTask(taskKey, transaction);
       if (before.retired) throw new Conflict('This task is retired');
       const { id: _id, createdAt: _at, ...fields } = before.get({ plain: true });
@@ -83,6 +86,7 @@ export function makeTrainingService(sequelize: Sequelize) {
         { transaction },
       );
       await recordAudit({ actorId: actor.id, action: change.retired ? 'training.task.retire' : 'training.task.change', entity: 'qualification_task', entityId: task.id, before: presentTask(before), after: presentTask(task) }, transaction);
+      publish(transaction, { entity: 'training', id: task.id });
       return presentTask(task);
     });
   }
@@ -109,24 +113,31 @@ export function makeTrainingService(sequelize: Sequelize) {
       if (!supervisor || !supervisor.active || !['operator', 'shift_lead'].includes(supervisor.role)) fields.supervisorId = 'Choose an operator or shift lead';
     }
     if (Object.keys(fields).length) throw new ValidationError(fields);
-    const entry = await TrainingEntry.create({
-      traineeId: actor.id,
-      taskId: task.id,
-      performedOn: input.performedOn,
-      level: input.level,
-      unitId: input.unitId ?? null,
-      shiftStart: input.shiftStart ? new Date(input.shiftStart) : null,
-      readingSetId: input.readingSetId ?? null,
-      handoverItemId: input.handoverItemId ?? null,
-      note: input.note,
-      supervisorId: input.supervisorId ?? null,
-      status: 'awaiting_countersign',
-      countersignedBy: null,
-      countersignedAt: null,
-      rejectReason: null,
-      recordedAt: new Date(),
+    return unitOfWork(sequelize, async (transaction) => {
+      const entry = await TrainingEntry.create(
+        {
+          traineeId: actor.id,
+          taskId: task.id,
+          performedOn: input.performedOn,
+          level: input.level,
+          unitId: input.unitId ?? null,
+          shiftStart: input.shiftStart ? new Date(input.shiftStart) : null,
+          readingSetId: input.readingSetId ?? null,
+          handoverItemId: input.handoverItemId ?? null,
+          note: input.note,
+          supervisorId: input.supervisorId ?? null,
+          status: 'awaiting_countersign',
+          countersignedBy: null,
+          countersignedAt: null,
+          rejectReason: null,
+          recordedAt: new Date(),
+        },
+        { transaction },
+      );
+      await recordAudit({ actorId: actor.id, action: 'training.entry.record', entity: 'training_entry', entityId: entry.id, after: { taskId: task.id, level: input.level } }, transaction);
+      publish(transaction, { entity: 'training', id: entry.id });
+      return entry;
     });
-    return entry;
   }
 
   /** Countersign or reject, once: the update only applies to an entry still awaiting. */
@@ -137,13 +148,14 @@ export function makeTrainingService(sequelize: Sequelize) {
     if (entry.supervisorId !== null && entry.supervisorId !== actor.id && actor.role !== 'shift_lead') {
       throw new Forbidden('The supervisor named on the entry (or a shift lead) countersigns it');
     }
-    await sequelize.transaction(async (transaction) => {
+    await unitOfWork(sequelize, async (transaction) => {
       const [updated] = await TrainingEntry.update(
         { status: outcome.status, countersignedBy: actor.id, countersignedAt: new Date(), rejectReason: outcome.status === 'rejected' ? outcome.reason : null },
         { where: { id: entryId, status: 'awaiting_countersign' }, transaction },
       );
       if (!updated) throw new Conflict('This entry is countersigned or rejected already');
       await recordAudit({ actorId: actor.id, action: `training.entry.${outcome.status}`, entity: 'training_entry', entityId: entryId }, transaction);
+      publish(transaction, { entity: 'training', id: entryId });
     });
   }
 
@@ -151,7 +163,7 @@ export function makeTrainingService(sequelize: Sequelize) {
     const trainee = await User.findByPk(input.traineeId);
     if (!trainee || trainee.role !== 'trainee') throw new ValidationError({ traineeId: 'Choose a trainee' });
     if (trainee.id === actor.id) throw new Forbidden('Nobody signs off their own training');
-    return sequelize.transaction(async (transaction) => {
+    return unitOfWork(sequelize, async (transaction) => {
       const task = await currentTask(input.taskKey, transaction);
       if (task.retired) throw new Conflict('This task is retired');
       // Serialise decisions for one trainee and task: the lock is the trainee's row.
@@ -169,6 +181,7 @@ export function makeTrainingService(sequelize: Sequelize) {
         { transaction },
       );
       await recordAudit({ actorId: actor.id, action: `training.${input.decision}`, entity: 'training_decision', entityId: decision.id, after: { traineeId: trainee.id, taskId: task.id } }, transaction);
+      publish(transaction, { entity: 'training', id: decision.id });
       return decision;
     });
   }
@@ -183,9 +196,10 @@ export function makeTrainingService(sequelize: Sequelize) {
       if (!reviewer) throw new Forbidden('Only a trainer amends a sign-off');
       if (!(await TrainingDecision.findByPk(input.targetId))) throw new NotFound('That decision');
     }
-    return sequelize.transaction(async (transaction) => {
+    return unitOfWork(sequelize, async (transaction) => {
       const amendment = await TrainingAmendment.create({ ...input, authorId: actor.id, amendedAt: new Date() }, { transaction });
       await recordAudit({ actorId: actor.id, action: `training.${input.target}.amend`, entity: `training_${input.target}`, entityId: input.targetId, after: { reason: input.reason, text: input.text } }, transaction);
+      publish(transaction, { entity: 'training', id: input.targetId });
       return amendment;
     });
   }

@@ -3,6 +3,7 @@ import { UniqueConstraintError } from 'sequelize';
 import argon2 from 'argon2';
 import type { ChangePasswordInput, CreateUserInput, PublicUser, UpdateUserInput } from '../../../shared/schemas/auth';
 import { recordAudit } from '../../lib/audit';
+import { endSocketsOf, publish } from '../../lib/live';
 import { hashPassword } from '../../lib/auth';
 import { Conflict, Forbidden, NotFound, ValidationError } from '../../lib/errors';
 import { Crew } from '../plant/model';
@@ -70,6 +71,7 @@ export function makeUserService(sequelize: Sequelize) {
           { actorId, action: 'user.create', entity: 'user', entityId: created.id, after: auditView(created) },
           transaction,
         );
+        publish(transaction, { entity: 'people', id: created.id });
         return created;
       });
       return presentUser(user, await crewNames());
@@ -99,6 +101,7 @@ export function makeUserService(sequelize: Sequelize) {
       found.version = found.version + 1;
       await found.save({ transaction });
       await recordAudit({ actorId, action, entity: 'user', entityId: id, before, after: auditView(found) }, transaction);
+      publish(transaction, { entity: 'people', id });
       if (afterCommit) await afterCommit(transaction);
       return found;
     });
@@ -127,8 +130,13 @@ export function makeUserService(sequelize: Sequelize) {
       (user) => {
         user.active = active;
       },
-      // A deactivated person's open sessions end with the same commit.
-      active ? undefined : (transaction) => SessionRow.destroy({ where: { userId: id }, transaction }),
+      // A deactivated person's open sessions end with the same commit, and their live connections with it.
+      active
+        ? undefined
+        : async (transaction) => {
+            await SessionRow.destroy({ where: { userId: id }, transaction });
+            endSocketsOf(transaction, { userId: id });
+          },
     );
   }
 
@@ -144,6 +152,7 @@ export function makeUserService(sequelize: Sequelize) {
         { actorId: userId, action: 'user.password_change', entity: 'user', entityId: userId, after: { mustChangePassword: false } },
         transaction,
       );
+      publish(transaction, { entity: 'people', id: userId });
     });
   }
 

@@ -1,0 +1,29 @@
+// One transaction per unit of work. InnoDB may pick any of two concurrent transactions as a
+// deadlock victim (two rounds opening flags on one unit, say); the victim's work is rolled back
+// whole, so running it again from the start is safe. A few tries, then the error stands.
+import { DatabaseError, type Sequelize, type Transaction } from 'sequelize';
+
+const RETRYABLE = new Set([
+  1213, // ER_LOCK_DEADLOCK
+  1205, // ER_LOCK_WAIT_TIMEOUT
+]);
+const MAX_TRIES = 4;
+
+function isRetryable(error: unknown): boolean {
+  if (!(error instanceof DatabaseError)) return false;
+  const errno = (error.parent as { errno?: number } | undefined)?.errno;
+  return errno !== undefined && RETRYABLE.has(errno);
+}
+
+export async function unitOfWork<T>(sequelize: Sequelize, work: (transaction: Transaction) => Promise<T>, label = 'unit of work'): Promise<T> {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await sequelize.transaction(work);
+    } catch (error) {
+      if (!isRetryable(error) || attempt >= MAX_TRIES) throw error;
+      console.warn(`[db] ${label}: ${(error as Error).message} — retrying (${attempt} of ${MAX_TRIES - 1})`);
+      // A short random pause so the two transactions do not collide again in step.
+      await new Promise((resolve) => setTimeout(resolve, 5 + Math.random() * 20 * attempt));
+    }
+  }
+}
