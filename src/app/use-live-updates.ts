@@ -1,18 +1,8 @@
 import { useEffect, useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
+import type { BoardPresence, LiveEvent } from '../../shared/live-events';
 import { closeSocket, getSocket } from '../lib/socket';
-
-type Changed = { entity: string; id: number | string; unitId?: number };
-
-// Which cached queries each kind of change makes stale.
-const keysFor: Record<string, string[][]> = {
-  log_entry: [['log']],
-  log_review: [['log']],
-  condition: [['conditions'], ['log']],
-  standing_order: [['orders'], ['pending-orders']],
-  handover: [['handover']],
-  review_comment: [['logbook']],
-};
+import { invalidateForChange } from './live-keys';
 
 /** Sockets notify, queries fetch: invalidate on each event, and everything after a reconnect. */
 export function useLiveUpdates(signedIn: boolean) {
@@ -20,11 +10,11 @@ export function useLiveUpdates(signedIn: boolean) {
   useEffect(() => {
     if (!signedIn) return;
     const socket = getSocket();
-    const onChanged = (event: Changed) => {
-      for (const queryKey of keysFor[event.entity] ?? []) void queryClient.invalidateQueries({ queryKey });
-    };
+    const onChanged = (event: LiveEvent) => invalidateForChange(queryClient, event);
     let connectedBefore = false;
     const onConnect = () => {
+      // Rooms are per connection: join again what this tab watches, then catch up on what was missed.
+      rejoin();
       if (connectedBefore) void queryClient.invalidateQueries();
       connectedBefore = true;
     };
@@ -38,33 +28,61 @@ export function useLiveUpdates(signedIn: boolean) {
   }, [signedIn, queryClient]);
 }
 
-/** Joins the unit's room so its events reach this tab. */
-export function useWatchUnit(unitId: number | null) {
-  useEffect(() => {
-    if (!unitId) return;
-    const socket = getSocket();
-    const join = () => socket.emit('watch-unit', unitId);
-    join();
-    socket.on('connect', join);
-    return () => {
-      socket.off('connect', join);
-    };
-  }, [unitId]);
+// How many mounted pages of this tab watch each unit, and have its board open. A unit is left
+// when the last page that watched it unmounts.
+const watching = new Map<number, number>();
+const onBoard = new Map<number, number>();
+
+function rejoin() {
+  const socket = getSocket();
+  for (const unitId of watching.keys()) socket.emit('watch-unit', unitId);
+  for (const unitId of onBoard.keys()) socket.emit('open-board', unitId);
 }
 
-/** Names of the people who have this unit open right now. */
-export function usePresence(unitId: number | null): string[] {
-  const [people, setPeople] = useState<string[]>([]);
+function hold(counts: Map<number, number>, unitId: number, join: string, leave: string) {
+  const socket = getSocket();
+  const before = counts.get(unitId) ?? 0;
+  counts.set(unitId, before + 1);
+  if (before === 0 && socket.connected) socket.emit(join, unitId);
+  return () => {
+    const now = (counts.get(unitId) ?? 1) - 1;
+    if (now > 0) counts.set(unitId, now);
+    else {
+      counts.delete(unitId);
+      if (socket.connected) socket.emit(leave, unitId);
+    }
+  };
+}
+
+/** Joins the unit's room while the page is shown, so its events reach this tab; leaves on unmount. */
+export function useWatchUnit(unitId: number | null) {
+  useEffect(() => (unitId ? hold(watching, unitId, 'watch-unit', 'unwatch-unit') : undefined), [unitId]);
+}
+
+/** Watches several units at once (the overview). */
+export function useWatchUnits(unitIds: number[]) {
+  const key = [...unitIds].sort((a, b) => a - b).join(',');
+  useEffect(() => {
+    const releases = key ? key.split(',').map((id) => hold(watching, Number(id), 'watch-unit', 'unwatch-unit')) : [];
+    return () => releases.forEach((release) => release());
+  }, [key]);
+}
+
+/** Marks this person as on the unit's handover board and returns who else is on it now. */
+export function useBoardPresence(unitId: number | null): string[] {
+  const [presence, setPresence] = useState<BoardPresence | null>(null);
   useEffect(() => {
     if (!unitId) return;
     const socket = getSocket();
-    const onPresence = (p: { unitId: number; people: string[] }) => {
-      if (p.unitId === unitId) setPeople(p.people);
+    const onPresence = (p: BoardPresence) => {
+      if (p.unitId === unitId) setPresence(p);
     };
     socket.on('presence', onPresence);
+    const release = hold(onBoard, unitId, 'open-board', 'close-board');
     return () => {
       socket.off('presence', onPresence);
+      release();
     };
   }, [unitId]);
-  return people;
+  return presence && presence.unitId === unitId ? presence.people : [];
 }

@@ -1,4 +1,5 @@
-import { NavLink, Navigate, Outlet, useLocation, useNavigate } from 'react-router';
+import { NavLink, Navigate, Outlet, useLocation, useNavigate, useSearchParams } from 'react-router';
+import { rememberedUnitId } from '../../components/readings/unit-picker';
 import { useState } from 'react';
 import { roleLabels } from '../../../shared/roles';
 import { useMe } from '../../features/session/api/get-me';
@@ -14,6 +15,10 @@ export function AppShell() {
   const location = useLocation();
   const navigate = useNavigate();
   const signOut = useSignOut();
+  const [params] = useSearchParams();
+  // The menu carries the unit being looked at, so moving between pages never falls back to Unit 1.
+  const unit = params.get('unit') ?? rememberedUnitId()?.toString() ?? null;
+  const withUnit = (to: string) => (unit && to !== '/account/password' && !to.startsWith('/admin') ? { pathname: to, search: `?unit=${unit}` } : to);
   const [theme, setTheme] = useState<Theme>(initialTheme);
   useLiveUpdates(Boolean(me && !me.mustChangePassword));
 
@@ -42,7 +47,7 @@ export function AppShell() {
             {navigationFor(me.role).map((item) => (
               <NavLink
                 key={item.to}
-                to={item.to}
+                to={withUnit(item.to)}
                 end={item.to === '/'}
                 className={({ isActive }) =>
                   `rounded-md px-3 py-1.5 font-bold ${isActive ? 'bg-accent text-on-accent' : 'hover:bg-field'}`

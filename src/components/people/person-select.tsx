@@ -1,9 +1,10 @@
 import { useQuery } from '@tanstack/react-query';
 import { api } from '../../lib/api-client';
 
+export const peopleKeys = { all: ['plant', 'people'] as const };
 export const usePeople = () =>
   useQuery({
-    queryKey: ['plant', 'people'],
+    queryKey: peopleKeys.all,
     queryFn: async () => (await api.get<{ people: { id: number; name: string; role: string }[] }>('/api/plant/people')).people,
     staleTime: 5 * 60_000,
   });

@@ -7,12 +7,32 @@ export const unitsQueryKey = ['plant', 'units'] as const;
 export const useUnitList = () =>
   useQuery({ queryKey: unitsQueryKey, queryFn: async () => (await api.get<{ units: UnitSummary[] }>('/api/plant/units')).units, staleTime: 5 * 60_000 });
 
-/** The unit a page shows, kept in the address (?unit=) so a link or reload keeps it. */
+const REMEMBERED = 'hotwell.unit';
+/** The unit this browser last chose, so a page opened without ?unit= starts there, not on the first unit. */
+export function rememberedUnitId(): number | null {
+  try {
+    const id = Number(localStorage.getItem(REMEMBERED));
+    return Number.isInteger(id) && id > 0 ? id : null;
+  } catch {
+    return null;
+  }
+}
+function rememberUnit(id: number) {
+  try {
+    localStorage.setItem(REMEMBERED, String(id));
+  } catch {
+    // private mode: the address still carries the unit
+  }
+}
+
+/** The unit a page shows, kept in the address (?unit=) so a link, a reload or the menu keeps it. */
 export function useSelectedUnit() {
   const [params] = useSearchParams();
   const units = useUnitList();
   const requested = Number(params.get('unit'));
-  const unitId = Number.isInteger(requested) && requested > 0 ? requested : (units.data?.[0]?.id ?? null);
+  const remembered = rememberedUnitId();
+  const known = (id: number | null) => (id !== null && units.data?.some((u) => u.id === id) ? id : null);
+  const unitId = Number.isInteger(requested) && requested > 0 ? requested : (known(remembered) ?? units.data?.[0]?.id ?? null);
   return { unitId, unit: units.data?.find((u) => u.id === unitId) ?? null, units: units.data ?? [] };
 }
 
@@ -28,6 +48,7 @@ export function UnitPicker() {
         onChange={(e) => {
           const next = new URLSearchParams(params);
           next.set('unit', e.target.value);
+          rememberUnit(Number(e.target.value));
           setParams(next);
         }}
       >

@@ -30,7 +30,8 @@ export type FlagFilters = { status: 'open' | 'cleared' | 'all'; severity?: strin
 
 export const flagKeys = {
   all: ['flags'] as const,
-  list: (unitId: number, filters: FlagFilters) => [...flagKeys.all, 'list', unitId, filters] as const,
+  unit: (unitId: number) => [...flagKeys.all, 'list', unitId] as const,
+  list: (unitId: number, filters: FlagFilters) => [...flagKeys.unit(unitId), filters] as const,
 };
 
 function query(filters: FlagFilters) {

@@ -7,6 +7,7 @@ import { useMe } from '../../session/api/get-me';
 import { useFlags, type FlagFilters } from '../api/flags';
 import { FlagCard } from '../components/flag-card';
 import { RaiseFlagForm } from '../components/raise-flag-form';
+import { useWatchUnit } from '../../../app/use-live-updates';
 
 const selectClass = 'rounded-md border border-line bg-field px-2 py-1';
 const severityOptions = [
@@ -18,6 +19,7 @@ const parameterOptions = checkKeys.map((k) => ({ value: k, label: checkCatalog[k
 export function FlagsPage() {
   const { data: me } = useMe();
   const { unitId, unit } = useSelectedUnit();
+  useWatchUnit(unitId);
   const [filters, setFilters] = useState<FlagFilters>({ status: 'open' });
   const flags = useFlags(unitId, filters);
   const mayLead = me?.role === 'shift_lead' || me?.role === 'admin';

@@ -1,4 +1,6 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useState } from 'react';
+import { invalidateForChange } from '../../../app/live-keys';
 import { api } from '../../../lib/api-client';
 
 export type BoardItem = {
@@ -8,9 +10,17 @@ export type BoardItem = {
   detail: string | null;
   reference: string | null;
   priority: 'low' | 'normal' | 'high';
+  sourceId: number | null;
+  /** Attached by the handover itself (a flag, condition, log entry or order); follows its source. */
+  automatic: boolean;
+  addedBy: string | null;
+  version: number;
+  amendedAt: string | null;
   live: { state: string; remainingMs: number | null } | null;
-  attachments: { id: number; fileName: string; mime: string; size: number }[];
+  attachments: { id: number; fileName: string; mime: string; size: number; amendmentId: number | null; uploadedAt: string }[];
   acknowledgedBy: { userId: number; name: string | null; at: string }[];
+  /** Acknowledged before the item was amended: must acknowledge again. */
+  acknowledgedEarlierVersion: { userId: number; name: string | null; at: string }[];
   awaiting: string[];
   queries: { id: number; question: string; askedBy: string | null; askedAt: string; answer: string | null; answeredBy: string | null; answeredAt: string | null }[];
 };
@@ -25,6 +35,7 @@ export type Board = {
     notesHtml: string;
     notesVersion: number;
     status: 'draft' | 'submitted' | 'accepted';
+    startedBy: string | null;
     submittedBy: string | null;
     submittedAt: string | null;
     acceptedBy: string | null;
@@ -35,14 +46,21 @@ export type Board = {
   incomingCrew: { id: number; name: string; role: string }[];
   waiting: string[];
 };
-export type CurrentHandover = {
-  shiftChange: { shiftStart: string; handoverAt: string; timeZone: string; outgoingCrewId: number | null; incomingCrewId: number | null };
-  board: Board | null;
+export type ShiftChange = {
+  shiftStart: string;
+  handoverAt: string;
+  timeZone: string;
+  outgoingCrewId: number | null;
+  incomingCrewId: number | null;
+  windowOpensAt: string;
+  windowClosesAt: string;
 };
+export type CurrentHandover = { shiftChange: ShiftChange; mayStart: boolean; board: Board | null };
 
 export const handoverKeys = {
   all: ['handover'] as const,
-  current: (unitId: number) => [...handoverKeys.all, 'current', unitId] as const,
+  unit: (unitId: number) => [...handoverKeys.all, 'unit', unitId] as const,
+  current: (unitId: number) => [...handoverKeys.unit(unitId), 'current'] as const,
   one: (id: number) => [...handoverKeys.all, 'one', id] as const,
 };
 
@@ -50,47 +68,69 @@ export const useCurrentHandover = (unitId: number | null) =>
   useQuery({ queryKey: handoverKeys.current(unitId ?? 0), queryFn: () => api.get<CurrentHandover>(`/api/units/${unitId}/handovers/current`), enabled: unitId !== null });
 export const useHandover = (id: number) => useQuery({ queryKey: handoverKeys.one(id), queryFn: async () => (await api.get<{ board: Board }>(`/api/handovers/${id}`)).board });
 
-type Action =
-  | { kind: 'item'; id: number; body: { kind: string; title: string; detail?: string; reference?: string; priority: string } }
+/**
+ * A key for one thing the person means to create: kept while they retry, new after it succeeded.
+ * The server makes one record per key, so a double click or a retry after a lost answer is harmless.
+ */
+export function useClientKey(): [string, () => void] {
+  const [key, setKey] = useState(() => crypto.randomUUID());
+  return [key, () => setKey(crypto.randomUUID())];
+}
+
+export type HandoverAction =
+  | { kind: 'start' }
+  | { kind: 'item'; id: number; body: { kind: string; title: string; detail?: string; reference?: string; priority: string; clientKey: string } }
+  | { kind: 'edit-item'; itemId: number; body: { title?: string; detail?: string | null; priority?: string; version: number } }
+  | { kind: 'remove-item'; itemId: number }
   | { kind: 'submit' | 'accept'; id: number }
-  | { kind: 'amend'; id: number; body: { itemId?: number | null; reason: string; text: string } }
+  | { kind: 'amend'; id: number; body: { itemId?: number | null; reason: string; text: string; clientKey: string } }
   | { kind: 'acknowledge'; itemId: number }
-  | { kind: 'ask'; itemId: number; question: string }
+  | { kind: 'ask'; itemId: number; question: string; clientKey: string }
   | { kind: 'answer'; queryId: number; answer: string };
 
-export function useHandoverAction() {
+function send(unitId: number, a: HandoverAction) {
+  switch (a.kind) {
+    case 'start':
+      return api.post(`/api/units/${unitId}/handovers/current`);
+    case 'item':
+      return api.post(`/api/handovers/${a.id}/items`, a.body);
+    case 'edit-item':
+      return api.patch(`/api/handover-items/${a.itemId}`, a.body);
+    case 'remove-item':
+      return api.delete(`/api/handover-items/${a.itemId}`);
+    case 'submit':
+    case 'accept':
+      return api.post(`/api/handovers/${a.id}/${a.kind}`);
+    case 'amend':
+      return api.post(`/api/handovers/${a.id}/amendments`, a.body);
+    case 'acknowledge':
+      return api.post(`/api/handover-items/${a.itemId}/acknowledge`);
+    case 'ask':
+      return api.post(`/api/handover-items/${a.itemId}/queries`, { question: a.question, clientKey: a.clientKey });
+    case 'answer':
+      return api.post(`/api/handover-queries/${a.queryId}/answer`, { answer: a.answer });
+  }
+}
+
+/** Every change on the board; the person who made it sees it at once, the others through the live event. */
+export function useHandoverAction(unitId: number) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (a: Action) => {
-      switch (a.kind) {
-        case 'item':
-          return api.post(`/api/handovers/${a.id}/items`, a.body);
-        case 'submit':
-        case 'accept':
-          return api.post(`/api/handovers/${a.id}/${a.kind}`);
-        case 'amend':
-          return api.post(`/api/handovers/${a.id}/amendments`, a.body);
-        case 'acknowledge':
-          return api.post(`/api/handover-items/${a.itemId}/acknowledge`);
-        case 'ask':
-          return api.post(`/api/handover-items/${a.itemId}/queries`, { question: a.question });
-        case 'answer':
-          return api.post(`/api/handover-queries/${a.queryId}/answer`, { answer: a.answer });
-      }
-    },
-    onSettled: () => void queryClient.invalidateQueries({ queryKey: handoverKeys.all }),
+    mutationFn: (a: HandoverAction) => send(unitId, a),
+    onSettled: () => invalidateForChange(queryClient, { entity: 'handover', id: 0, unitId }),
   });
 }
 
-export function useUploadAttachment() {
+export function useUploadAttachment(unitId: number) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ itemId, file }: { itemId: number; file: File }) => {
+    mutationFn: ({ itemId, file, reason }: { itemId: number; file: File; reason?: string }) => {
       const form = new FormData();
+      if (reason) form.append('reason', reason);
       form.append('file', file);
       return api.upload(`/api/handover-items/${itemId}/attachments`, form);
     },
-    onSettled: () => void queryClient.invalidateQueries({ queryKey: handoverKeys.all }),
+    onSettled: () => invalidateForChange(queryClient, { entity: 'handover', id: 0, unitId }),
   });
 }
 

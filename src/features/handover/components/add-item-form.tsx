@@ -1,13 +1,15 @@
 import { useState } from 'react';
+import { Button } from '../../../components/ui/button';
 import { ApiError } from '../../../lib/api-client';
-import { useHandoverAction } from '../api/handover';
+import { useClientKey, useHandoverAction } from '../api/handover';
 import { kindLabels } from './board-item';
 
 const field = 'rounded-md border border-line bg-field px-2 py-1';
 const writableKinds = ['equipment', 'work_in_progress', 'chemistry', 'follow_up'];
 
-export function AddItemForm({ handoverId }: { handoverId: number }) {
-  const action = useHandoverAction();
+export function AddItemForm({ handoverId, unitId }: { handoverId: number; unitId: number }) {
+  const action = useHandoverAction(unitId);
+  const [clientKey, newClientKey] = useClientKey();
   const [kind, setKind] = useState('follow_up');
   const [title, setTitle] = useState('');
   const [detail, setDetail] = useState('');
@@ -20,9 +22,17 @@ export function AddItemForm({ handoverId }: { handoverId: number }) {
       className="grid gap-2 rounded-lg border border-line bg-panel p-3 text-sm sm:grid-cols-2"
       onSubmit={(e) => {
         e.preventDefault();
+        // The same key until it succeeds: a double click or a retry makes one item.
         action.mutate(
-          { kind: 'item', id: handoverId, body: { kind, title, detail: detail || undefined, reference: reference || undefined, priority } },
-          { onSuccess: () => { setTitle(''); setDetail(''); setReference(''); } },
+          { kind: 'item', id: handoverId, body: { kind, title, detail: detail || undefined, reference: reference || undefined, priority, clientKey } },
+          {
+            onSuccess: () => {
+              setTitle('');
+              setDetail('');
+              setReference('');
+              newClientKey();
+            },
+          },
         );
       }}
     >
@@ -53,14 +63,17 @@ export function AddItemForm({ handoverId }: { handoverId: number }) {
       <label className="flex flex-col">
         Detail
         <input className={field} value={detail} onChange={(e) => setDetail(e.target.value)} />
+        {fields.detail ? <span role="alert" className="text-alarm">⚠ {fields.detail}</span> : null}
       </label>
       <label className="flex flex-col">
         Permit / isolation reference
         <input className={field} value={reference} onChange={(e) => setReference(e.target.value)} />
+        {fields.reference ? <span role="alert" className="text-alarm">⚠ {fields.reference}</span> : null}
       </label>
-      <button type="submit" className="rounded-md bg-accent px-3 py-1 font-bold text-on-accent sm:col-span-2">
+      {action.error && !Object.keys(fields).length ? <p role="alert" className="font-bold text-alarm sm:col-span-2">⚠ {action.error.message}</p> : null}
+      <Button type="submit" className="px-3 py-1 sm:col-span-2" disabled={action.isPending}>
         Add item
-      </button>
+      </Button>
     </form>
   );
 }

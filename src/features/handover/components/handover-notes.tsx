@@ -1,77 +1,158 @@
-import { useEffect, useRef, useState } from 'react';
-import { RichTextEditor } from '../../../components/ui/rich-text-editor';
+import { lazy, Suspense, useCallback, useEffect, useRef, useState } from 'react';
+import { useBlocker } from 'react-router';
+import { Button } from '../../../components/ui/button';
 import { ApiError } from '../../../lib/api-client';
 import { saveNotes, type Board } from '../api/handover';
+import { clearLocalDraft, readLocalDraft, writeLocalDraft } from '../lib/notes-draft';
 
-/** Draft notes, saved a moment after typing stops; a clash with another writer keeps both texts. */
-export function HandoverNotes({ board, editable }: { board: Board; editable: boolean }) {
+// The editor's code loads only for someone who writes: readers get the stored HTML.
+const RichTextEditor = lazy(async () => ({ default: (await import('../../../components/ui/rich-text-editor')).RichTextEditor }));
+
+const AUTOSAVE_MS = 1200;
+
+type Props = { board: Board; editable: boolean; stationTime: (iso: string) => string };
+
+/**
+ * Draft notes of ONE handover (the page keys this component by handover id, so switching units
+ * never carries text across). Typed text is kept on the device at once and saved to the server a
+ * moment after typing stops; a clash with another writer keeps both texts; leaving with text the
+ * server does not have yet asks first.
+ */
+export function HandoverNotes({ board, editable, stationTime }: Props) {
   const h = board.handover;
-  const version = useRef(h.notesVersion);
-  const [html, setHtml] = useState(h.notesHtml);
-  const [dirty, setDirty] = useState(false);
-  const [status, setStatus] = useState<string>('');
+  if (!editable) {
+    return <div className="order-body rounded-md border border-line bg-panel p-3" data-testid="handover-notes" dangerouslySetInnerHTML={{ __html: h.notesHtml || '<p><em>No notes.</em></p>' }} />;
+  }
+  return <NotesEditor board={board} stationTime={stationTime} />;
+}
+
+function NotesEditor({ board, stationTime }: Omit<Props, 'editable'>) {
+  const h = board.handover;
+  // What this browser had before: text from an earlier visit that never reached the server.
+  const [restored] = useState(() => {
+    const local = readLocalDraft(h.id);
+    return local && local.html !== h.notesHtml ? local : null;
+  });
+  const version = useRef(restored ? restored.baseVersion : h.notesVersion);
+  const [html, setHtml] = useState(restored?.html ?? h.notesHtml);
+  const [dirty, setDirty] = useState(Boolean(restored));
+  const [status, setStatus] = useState(restored ? `Restored text you typed at ${stationTime(restored.savedAt)} that had not been saved` : '');
   const [conflict, setConflict] = useState<string | null>(null);
   const [editorKey, setEditorKey] = useState(0);
+  // The text as typed, for a save that completes after more typing.
+  const latest = useRef(html);
 
   // Someone else saved and we have nothing unsaved: show their text.
   useEffect(() => {
     if (!dirty && h.notesVersion > version.current) {
       version.current = h.notesVersion;
+      latest.current = h.notesHtml;
       setHtml(h.notesHtml);
       setEditorKey((k) => k + 1);
     }
   }, [h.notesVersion, h.notesHtml, dirty]);
 
+  const save = useCallback(async () => {
+    const sent = latest.current;
+    try {
+      const r = await saveNotes(h.id, sent, version.current);
+      version.current = r.version;
+      if (latest.current === sent) {
+        clearLocalDraft(h.id);
+        setDirty(false);
+      } else writeLocalDraft(h.id, latest.current, r.version);
+      setStatus(`Draft saved at ${stationTime(new Date().toISOString())}`);
+      return true;
+    } catch (error) {
+      if (error instanceof ApiError && error.status === 409 && error.code === 'NOTES_CONFLICT') setConflict(error.message);
+      else setStatus(error instanceof Error ? `Not saved yet (kept on this device): ${error.message}` : 'Not saved yet (kept on this device)');
+      return false;
+    }
+  }, [h.id, stationTime]);
+
   useEffect(() => {
     if (!dirty || conflict !== null) return;
-    const timer = setTimeout(() => {
-      saveNotes(h.id, html, version.current)
-        .then((r) => {
-          version.current = r.version;
-          setDirty(false);
-          setStatus(`Draft saved ${new Date().toLocaleTimeString()}`);
-        })
-        .catch((error: unknown) => {
-          if (error instanceof ApiError && error.status === 409 && error.code === 'NOTES_CONFLICT') setConflict(error.message);
-          else setStatus(error instanceof Error ? `Not saved: ${error.message}` : 'Not saved');
-        });
-    }, 1200);
+    const timer = setTimeout(() => void save(), AUTOSAVE_MS);
     return () => clearTimeout(timer);
-  }, [dirty, html, h.id, conflict]);
+  }, [dirty, html, conflict, save]);
 
-  if (!editable) {
-    return <div className="order-body rounded-md border border-line bg-panel p-3" data-testid="handover-notes" dangerouslySetInnerHTML={{ __html: h.notesHtml || '<p><em>No notes.</em></p>' }} />;
-  }
+  // Closing or reloading the tab with unsaved text: the browser asks (the text is on the device anyway).
+  useEffect(() => {
+    if (!dirty) return;
+    const warn = (event: BeforeUnloadEvent) => {
+      event.preventDefault();
+    };
+    window.addEventListener('beforeunload', warn);
+    return () => window.removeEventListener('beforeunload', warn);
+  }, [dirty]);
+
+  // Leaving the page inside the app: save first; ask only if that fails.
+  const blocker = useBlocker(dirty);
+  const [leaveFailed, setLeaveFailed] = useState(false);
+  useEffect(() => {
+    if (blocker.state !== 'blocked') return;
+    const timer = setTimeout(() => {
+      void save().then((saved) => {
+        if (saved) blocker.proceed?.();
+        else setLeaveFailed(true);
+      });
+    }, 0);
+    return () => clearTimeout(timer);
+  }, [blocker, save]);
+
   return (
     <div className="flex flex-col gap-2">
-      <RichTextEditor
-        key={editorKey}
-        label="Handover notes"
-        initialHtml={html}
-        onChange={(next) => {
-          setHtml(next);
-          setDirty(true);
-        }}
-      />
-      <p className="text-sm text-muted" aria-live="polite">
-        {dirty ? 'Unsaved changes…' : status}
+      <Suspense fallback={<p className="text-sm text-muted">Loading the editor…</p>}>
+        <RichTextEditor
+          key={editorKey}
+          label="Handover notes"
+          initialHtml={html}
+          onChange={(next) => {
+            latest.current = next;
+            setHtml(next);
+            setDirty(true);
+            writeLocalDraft(h.id, next, version.current);
+          }}
+        />
+      </Suspense>
+      <p className="text-sm text-muted" aria-live="polite" data-testid="notes-status">
+        {dirty ? 'Unsaved changes (kept on this device)…' : status}
       </p>
+      {blocker.state === 'blocked' && leaveFailed ? (
+        <div role="alertdialog" aria-label="Unsaved notes" className="rounded-md border-2 border-watch bg-panel p-2 text-sm">
+          <p className="font-bold">▲ Your latest notes have not reached the server yet.</p>
+          <p>They stay on this device and come back when you open this handover again here.</p>
+          <div className="mt-1 flex gap-2">
+            <Button
+              tone="plain"
+              onClick={() => {
+                setLeaveFailed(false);
+                blocker.reset?.();
+              }}
+            >
+              Stay on the handover
+            </Button>
+            <Button tone="danger" onClick={() => blocker.proceed?.()}>
+              Leave anyway
+            </Button>
+          </div>
+        </div>
+      ) : null}
       {conflict ? (
         <div role="alert" className="rounded-md border-2 border-alarm bg-panel p-2 text-sm">
           <p className="font-bold">⛔ {conflict}</p>
           <p className="mt-1">Their text, as saved:</p>
-          <div className="order-body border-l-4 border-line pl-2" dangerouslySetInnerHTML={{ __html: h.notesHtml }} />
+          <div className="order-body border-l-4 border-line pl-2" data-testid="their-notes" dangerouslySetInnerHTML={{ __html: h.notesHtml }} />
           <p className="mt-1">Your text stays in the editor above.</p>
-          <button
-            type="button"
-            className="mt-1 rounded-md bg-accent px-3 py-1 font-bold text-on-accent"
+          <Button
+            className="mt-1"
             onClick={() => {
               version.current = h.notesVersion;
               setConflict(null);
             }}
           >
             Save my text over theirs
-          </button>
+          </Button>
         </div>
       ) : null}
     </div>

@@ -1,35 +1,44 @@
 import { useState } from 'react';
 import { Link } from 'react-router';
-import { format } from 'date-fns';
+import { mayAccept, mayAcknowledge, mayWriteHandover, withinWindow } from '../../../../shared/policies/handover';
 import { stationLocalLabel } from '../../../../shared/shift-time';
 import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-picker';
+import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
-import { usePresence, useWatchUnit } from '../../../app/use-live-updates';
+import { useBoardPresence, useWatchUnit } from '../../../app/use-live-updates';
 import { useCrews } from '../../../components/plant/crews';
+import { ApiError } from '../../../lib/api-client';
 import { useMe } from '../../session/api/get-me';
-import { useCurrentHandover, useHandoverAction } from '../api/handover';
+import { useClientKey, useCurrentHandover, useHandoverAction, type ShiftChange } from '../api/handover';
 import { AddItemForm } from '../components/add-item-form';
 import { BoardItemCard } from '../components/board-item';
 import { HandoverNotes } from '../components/handover-notes';
 
-const stamp = (iso: string) => format(new Date(iso), 'yyyy-MM-dd HH:mm');
 const statusWord = { draft: '✎ Draft — being written', submitted: '⇢ Submitted — incoming crew acknowledging', accepted: '✔ Accepted — turnover done' };
 
 export function HandoverPage() {
   const { data: me } = useMe();
   const { unitId, unit } = useSelectedUnit();
   useWatchUnit(unitId);
-  const viewing = usePresence(unitId);
+  const viewing = useBoardPresence(unitId);
   const current = useCurrentHandover(unitId);
   const crews = useCrews();
-  const action = useHandoverAction();
+  const action = useHandoverAction(unitId ?? 0);
   const [amend, setAmend] = useState({ reason: '', text: '' });
+  const [amendKey, newAmendKey] = useClientKey();
   const crewName = (id: number | null) => (id ? `Crew ${crews.data?.find((c) => c.id === id)?.name ?? id}` : 'no crew set');
   const change = current.data?.shiftChange;
   const board = current.data?.board;
   const h = board?.handover;
-  const side = h && me ? (me.crewId === h.outgoingCrewId ? 'outgoing' : me.crewId === h.incomingCrewId ? 'incoming' : 'other') : 'other';
-  const writer = side === 'outgoing' && me?.role !== 'trainee';
+  const zone = change?.timeZone ?? 'UTC';
+  const stationTime = (iso: string) => stationLocalLabel(new Date(iso), zone);
+  const actor = me ? { id: me.id, role: me.role, crewId: me.crewId } : null;
+  const may = {
+    write: Boolean(actor && h && mayWriteHandover(actor, h)),
+    acknowledge: Boolean(actor && h && mayAcknowledge(actor, h)),
+    accept: Boolean(actor && h && mayAccept(actor, h)),
+  };
+  const actionError = action.error instanceof ApiError ? (Object.values(action.error.fields)[0] ?? action.error.message) : action.error?.message;
 
   return (
     <section className="flex flex-col gap-4">
@@ -38,14 +47,14 @@ export function HandoverPage() {
           <h1 className="text-2xl font-bold">Shift handover</h1>
           <p className="text-muted">
             {unit ? `${unit.name} · ` : ''}
-            {change ? `${crewName(change.outgoingCrewId)} hands over to ${crewName(change.incomingCrewId)} at ${stationLocalLabel(new Date(change.handoverAt), change.timeZone)} (${change.timeZone})` : ''}
+            {change ? `${crewName(change.outgoingCrewId)} hands over to ${crewName(change.incomingCrewId)} at ${stationTime(change.handoverAt)} (station time, ${zone})` : ''}
           </p>
         </div>
         <UnitPicker />
       </div>
       {viewing.length ? (
         <p className="text-sm" data-testid="viewing">
-          Viewing now: {viewing.join(', ')}
+          On this board now: {viewing.join(', ')}
         </p>
       ) : null}
       <aside className="rounded-md border border-watch bg-panel px-4 py-2 text-sm" aria-label="Caution">
@@ -53,72 +62,105 @@ export function HandoverPage() {
         procedures require.
       </aside>
       {current.error ? <Notice kind="error">{current.error.message}</Notice> : null}
-      {current.data && !board ? <Notice kind="info">The outgoing crew has not started this shift’s handover yet.</Notice> : null}
+      {actionError ? <Notice kind="error">{actionError}</Notice> : null}
+      {change ? <WindowNote change={change} stationTime={stationTime} /> : null}
+      {current.data && !board ? (
+        current.data.mayStart ? (
+          <div className="flex flex-col items-start gap-2 rounded-lg border border-line bg-panel p-3">
+            <p>Nobody has started this shift’s handover yet. Start it to write notes; open flags, conditions, marked log entries and new standing orders come in by themselves.</p>
+            <Button disabled={action.isPending} onClick={() => action.mutate({ kind: 'start' })}>
+              Start this shift’s handover
+            </Button>
+          </div>
+        ) : (
+          <Notice kind="info">The outgoing crew has not started this shift’s handover yet.</Notice>
+        )
+      ) : null}
       {board && h ? (
         <>
           <div className="flex flex-wrap items-center gap-3 rounded-lg border border-line bg-panel p-3">
             <strong data-testid="handover-status">{statusWord[h.status]}</strong>
-            {h.submittedBy ? <span className="text-sm">Handed over by {h.submittedBy} at {stamp(h.submittedAt!)}</span> : null}
+            {h.submittedBy ? <span className="text-sm">Handed over by {h.submittedBy} at {stationTime(h.submittedAt!)}</span> : null}
             {h.acceptedBy ? (
               <span className="text-sm font-bold" data-testid="turnover">
-                Accepted by {h.acceptedBy} at {stamp(h.acceptedAt!)} — turnover time
+                Accepted by {h.acceptedBy} at {stationTime(h.acceptedAt!)} — turnover time
               </span>
             ) : null}
             <Link to={`/handover/${h.id}/print`} className="ml-auto text-sm underline">
               Print view
             </Link>
           </div>
-          {action.error ? <Notice kind="error">{action.error.message}</Notice> : null}
           <section aria-label="Notes">
             <h2 className="mb-1 font-bold">Notes</h2>
-            <HandoverNotes board={board} editable={writer && h.status === 'draft'} />
+            <HandoverNotes key={h.id} board={board} editable={may.write && h.status === 'draft'} stationTime={stationTime} />
           </section>
           <section aria-label="Items" className="flex flex-col gap-2">
             <h2 className="font-bold">Items ({board.items.length})</h2>
             {board.items.map((item) => (
-              <BoardItemCard key={item.id} board={board} item={item} meId={me!.id} side={side} />
+              <BoardItemCard key={item.id} board={board} item={item} meId={me!.id} may={may} stationTime={stationTime} />
             ))}
           </section>
-          {writer && h.status === 'draft' ? (
+          {may.write && h.status === 'draft' ? (
             <>
-              <AddItemForm handoverId={h.id} />
-              <button type="button" className="self-start rounded-md bg-accent px-4 py-2 font-bold text-on-accent" onClick={() => action.mutate({ kind: 'submit', id: h.id })}>
+              <AddItemForm handoverId={h.id} unitId={h.unitId} />
+              <Button className="self-start" disabled={action.isPending} onClick={() => action.mutate({ kind: 'submit', id: h.id })}>
                 Submit the handover
-              </button>
+              </Button>
             </>
           ) : null}
-          {writer && h.status !== 'draft' ? (
+          {may.write && h.status !== 'draft' ? (
             <form
               aria-label="Amend the handover"
               className="flex flex-col gap-2 rounded-lg border border-line bg-panel p-3 text-sm"
               onSubmit={(e) => {
                 e.preventDefault();
-                action.mutate({ kind: 'amend', id: h.id, body: amend }, { onSuccess: () => setAmend({ reason: '', text: '' }) });
+                action.mutate(
+                  { kind: 'amend', id: h.id, body: { ...amend, clientKey: amendKey } },
+                  {
+                    onSuccess: () => {
+                      setAmend({ reason: '', text: '' });
+                      newAmendKey();
+                    },
+                  },
+                );
               }}
             >
               <h3 className="font-bold">Amend (the handover is read-only once submitted)</h3>
               <input aria-label="Amendment" placeholder="What to add or correct" className="rounded-md border border-line bg-field px-2 py-1" value={amend.text} onChange={(e) => setAmend({ ...amend, text: e.target.value })} />
               <input aria-label="Reason" placeholder="Why" className="rounded-md border border-line bg-field px-2 py-1" value={amend.reason} onChange={(e) => setAmend({ ...amend, reason: e.target.value })} />
-              <button type="submit" className="self-start rounded-md border border-line px-3 py-1 font-bold">
+              <Button type="submit" tone="plain" className="self-start px-3 py-1" disabled={action.isPending}>
                 Add amendment
-              </button>
+              </Button>
             </form>
           ) : null}
-          {board.amendments.filter((a) => a.itemId === null).map((a) => (
-            <p key={a.id} className="border-l-4 border-accent pl-2 text-sm">
-              {a.text} <span className="text-muted">— amended by {a.author} at {stamp(a.at)}: {a.reason}</span>
-            </p>
-          ))}
-          {side === 'incoming' && me?.role === 'shift_lead' && h.status === 'submitted' ? (
+          {board.amendments
+            .filter((a) => a.itemId === null)
+            .map((a) => (
+              <p key={a.id} className="border-l-4 border-accent pl-2 text-sm">
+                {a.text} <span className="text-muted">— amended by {a.author} at {stationTime(a.at)}: {a.reason}</span>
+              </p>
+            ))}
+          {may.accept && h.status === 'submitted' ? (
             <div className="flex flex-col gap-1 rounded-lg border-2 border-accent bg-panel p-3">
               {board.waiting.length ? <p className="text-sm">Waiting for: {board.waiting.join('; ')}</p> : <p className="text-sm font-bold">Every item is acknowledged and no question is open.</p>}
-              <button type="button" className="self-start rounded-md bg-accent px-4 py-2 font-bold text-on-accent disabled:opacity-50" disabled={board.waiting.length > 0} onClick={() => action.mutate({ kind: 'accept', id: h.id })}>
+              <Button className="self-start" disabled={board.waiting.length > 0 || action.isPending} onClick={() => action.mutate({ kind: 'accept', id: h.id })}>
                 Accept the handover
-              </button>
+              </Button>
             </div>
           ) : null}
         </>
       ) : null}
     </section>
+  );
+}
+
+/** When submit and acceptance are open, in station time. */
+function WindowNote({ change, stationTime }: { change: ShiftChange; stationTime: (iso: string) => string }) {
+  const open = withinWindow({ opensAt: new Date(change.windowOpensAt), closesAt: new Date(change.windowClosesAt) }, new Date());
+  return (
+    <p className="text-sm text-muted" data-testid="handover-window">
+      {open ? '● ' : '○ '}Submit and acceptance: from {stationTime(change.windowOpensAt)} to {stationTime(change.windowClosesAt)} (station time)
+      {open ? ' — open now.' : ' — not open now; notes and items can be written at any time.'}
+    </p>
   );
 }

@@ -1,6 +1,9 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { ImportMapping, ImportRowReport } from '../../../../shared/schemas/imports';
 import { api } from '../../../lib/api-client';
+import { invalidateForChange } from '../../../app/live-keys';
+
+export const importKeys = { all: ['imports'] as const, mappings: (unitId: number) => [...importKeys.all, 'mappings', unitId] as const };
 
 export type Inspection = { headers: string[]; sample: Record<string, string>[]; rowCount: number };
 export type Preview = { counts: { rows: number; valid: number; invalid: number; duplicate: number }; rows: ImportRowReport[] };
@@ -15,7 +18,7 @@ const form = (file: File, mapping?: ImportMapping) => {
 
 export const useRememberedMappings = (unitId: number | null) =>
   useQuery({
-    queryKey: ['imports', 'mappings', unitId],
+    queryKey: importKeys.mappings(unitId ?? 0),
     queryFn: async () => (await api.get<{ mappings: { source: string; mapping: ImportMapping }[] }>(`/api/units/${unitId}/import-mappings`)).mappings,
     enabled: unitId !== null,
   });
@@ -31,7 +34,8 @@ export function useCommitImport(unitId: number | null) {
   return useMutation({
     mutationFn: (a: { file: File; mapping: ImportMapping }) => api.upload<ImportResult>(`/api/units/${unitId}/imports`, form(a.file, a.mapping)),
     onSuccess: () => {
-      for (const key of ['readings', 'flags', 'trends', 'imports']) void queryClient.invalidateQueries({ queryKey: [key] });
+      if (unitId) invalidateForChange(queryClient, { entity: 'import', id: unitId, unitId });
+      void queryClient.invalidateQueries({ queryKey: importKeys.mappings(unitId ?? 0) });
     },
   });
 }

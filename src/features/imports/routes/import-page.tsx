@@ -6,6 +6,7 @@ import { CautionNote, Notice } from '../../../components/ui/notice';
 import { ApiError } from '../../../lib/api-client';
 import { useCommitImport, useInspect, usePreview, useRememberedMappings } from '../api/imports';
 import { ProblemRows } from '../components/problem-rows';
+import { useWatchUnit } from '../../../app/use-live-updates';
 
 const selectClass = 'rounded-md border border-line bg-field px-2 py-1';
 const fieldKeys = Object.keys(importFields) as ImportField[];
@@ -18,6 +19,7 @@ function errorText(error: Error | null) {
 
 export function ImportPage() {
   const { unitId, unit } = useSelectedUnit();
+  useWatchUnit(unitId);
   const remembered = useRememberedMappings(unitId);
   const inspect = useInspect(unitId);
   const preview = usePreview(unitId);

@@ -1,6 +1,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { NewLogEntry, StationSettings } from '../../../../shared/schemas/log';
 import { api } from '../../../lib/api-client';
+import { setupKeys } from '../../plant/api/setup';
 
 export type LogEntryView = {
   id: number;
@@ -45,7 +46,8 @@ export type ConditionView = {
 
 export const logKeys = {
   all: ['log'] as const,
-  entries: (unitId: number, f: LogFilters) => [...logKeys.all, 'entries', unitId, f] as const,
+  unitEntries: (unitId: number) => [...logKeys.all, 'entries', unitId] as const,
+  entries: (unitId: number, f: LogFilters) => [...logKeys.unitEntries(unitId), f] as const,
   shifts: (unitId: number) => [...logKeys.all, 'shifts', unitId] as const,
 };
 export const conditionKeys = { all: ['conditions'] as const, list: (unitId: number) => [...conditionKeys.all, unitId] as const };
@@ -88,7 +90,7 @@ export const useCloseCondition = () =>
 
 export const useEquipment = (unitId: number | null) =>
   useQuery({
-    queryKey: ['plant', 'setup', unitId, 'equipment'],
+    queryKey: [...setupKeys.unit(unitId ?? 0), 'equipment'],
     queryFn: async () => (await api.get<{ equipment: { id: number; tag: string; name: string }[] }>(`/api/plant/units/${unitId}/setup`)).equipment,
     enabled: unitId !== null,
     staleTime: 5 * 60_000,

@@ -22,6 +22,8 @@ export const orderKeys = {
   all: ['orders'] as const,
   list: (state: string, q: string) => [...orderKeys.all, 'list', state, q] as const,
   detail: (id: number) => [...orderKeys.all, 'detail', id] as const,
+  /** The signed-in person's orders still to acknowledge. */
+  pending: () => [...orderKeys.all, 'pending'] as const,
 };
 
 export const useOrders = (state: string, q: string) =>
@@ -32,13 +34,12 @@ export const useOrders = (state: string, q: string) =>
 export const useOrder = (id: number | null) =>
   useQuery({ queryKey: orderKeys.detail(id ?? 0), queryFn: async () => (await api.get<{ order: OrderView }>(`/api/standing-orders/${id}`)).order, enabled: id !== null });
 export const usePendingOrders = (enabled: boolean) =>
-  useQuery({ queryKey: ['pending-orders'], queryFn: async () => (await api.get<{ orders: PendingOrder[] }>('/api/me/pending-orders')).orders, enabled });
+  useQuery({ queryKey: orderKeys.pending(), queryFn: async () => (await api.get<{ orders: PendingOrder[] }>('/api/me/pending-orders')).orders, enabled });
 
 function useInvalidate() {
   const queryClient = useQueryClient();
   return () => {
     void queryClient.invalidateQueries({ queryKey: orderKeys.all });
-    void queryClient.invalidateQueries({ queryKey: ['pending-orders'] });
   };
 }
 

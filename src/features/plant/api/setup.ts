@@ -2,6 +2,7 @@ import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/r
 import type { LimitSet } from '../../../../shared/calc/limits';
 import type { UnitDesign } from '../../../../shared/schemas/plant';
 import { api } from '../../../lib/api-client';
+import { invalidateForChange } from '../../../app/live-keys';
 
 type VersionRow = { id: number; effectiveFrom: string; note: string | null; by: string };
 export type UnitSetup = {
@@ -30,9 +31,6 @@ export function useChangeSetup(unitId: number) {
       if (change.kind === 'limits') return api.post(`/api/plant/units/${unitId}/limit-versions`, { limits: change.limits, note: change.note });
       return api.post(`/api/plant/units/${unitId}/equipment`, change.equipment);
     },
-    onSuccess: () => {
-      void queryClient.invalidateQueries({ queryKey: setupKeys.all });
-      void queryClient.invalidateQueries({ queryKey: ['calc'] });
-    },
+    onSuccess: () => invalidateForChange(queryClient, { entity: 'plant', id: unitId, unitId }),
   });
 }

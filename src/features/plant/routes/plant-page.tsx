@@ -7,6 +7,7 @@ import { useMe } from '../../session/api/get-me';
 import { useChangeSetup, useUnitSetup, type UnitSetup } from '../api/setup';
 import { DesignForm } from '../components/design-form';
 import { LimitsForm } from '../components/limits-form';
+import { useWatchUnit } from '../../../app/use-live-updates';
 
 function History({ title, rows }: { title: string; rows: UnitSetup['designHistory'] }) {
   return (
@@ -69,6 +70,7 @@ function Equipment({ setup, editable }: { setup: UnitSetup; editable: boolean })
 export function PlantPage() {
   const { data: me } = useMe();
   const { unitId } = useSelectedUnit();
+  useWatchUnit(unitId);
   const setup = useUnitSetup(unitId);
   const editable = me?.role === 'admin';
   return (

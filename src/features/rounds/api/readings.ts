@@ -3,6 +3,7 @@ import type { Evaluation } from '../../../../shared/calc/evaluate';
 import type { Status } from '../../../../shared/calc/limits';
 import type { ReadingSetInput } from '../../../../shared/schemas/reading-set';
 import { api } from '../../../lib/api-client';
+import { invalidateForChange } from '../../../app/live-keys';
 import { readingKeys } from './reading-keys';
 
 export type ReadingSummary = {
@@ -53,10 +54,7 @@ export function useRecordReading() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: ({ unitId, reading }: RecordInput) => api.post<ReadingDetail & { id: number; flagsRaised: number }>(`/api/units/${unitId}/readings`, reading),
-    onSuccess: () => {
-      void queryClient.invalidateQueries({ queryKey: readingKeys.all });
-      void queryClient.invalidateQueries({ queryKey: ['flags'] });
-    },
+    onSuccess: (saved, { unitId }) => invalidateForChange(queryClient, { entity: 'reading', id: saved.id, unitId }),
   });
 }
 
@@ -64,10 +62,7 @@ export function useAmendReading(id: number) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (body: { reason: string; reading: Omit<ReadingSetInput, 'unitId'> }) => api.post<ReadingDetail>(`/api/readings/${id}/amendments`, body),
-    onSuccess: () => {
-      void queryClient.invalidateQueries({ queryKey: readingKeys.all });
-      void queryClient.invalidateQueries({ queryKey: ['flags'] });
-    },
+    onSuccess: (saved) => invalidateForChange(queryClient, { entity: 'reading', id, unitId: saved.reading.unitId }),
   });
 }
 
@@ -75,6 +70,6 @@ export function useCountersign() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (id: number) => api.post<ReadingDetail>(`/api/readings/${id}/countersign`),
-    onSettled: () => void queryClient.invalidateQueries({ queryKey: readingKeys.all }),
+    onSuccess: (saved, id) => invalidateForChange(queryClient, { entity: 'reading', id, unitId: saved.reading.unitId }),
   });
 }

@@ -16,6 +16,7 @@ import { ApiError } from '../../../lib/api-client';
 import { useMe } from '../../session/api/get-me';
 import { useReadings, useRecordReading, type ReadingSummary } from '../api/readings';
 import { RecentReadings } from '../components/recent-readings';
+import { useWatchUnit } from '../../../app/use-live-updates';
 
 function LastReadingHint({ last }: { last: ReadingSummary | undefined }) {
   if (!last) return null;
@@ -32,6 +33,7 @@ function LastReadingHint({ last }: { last: ReadingSummary | undefined }) {
 export function RoundsPage() {
   const { data: me } = useMe();
   const { unitId, unit } = useSelectedUnit();
+  useWatchUnit(unitId);
   const design = useCondenserDesign(unitId);
   const readings = useReadings(unitId);
   const record = useRecordReading();

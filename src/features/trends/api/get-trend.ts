@@ -11,7 +11,12 @@ export type TrendResponse = {
 
 export type TrendRequest = { unitId: number; parameters: string[]; from: string; to: string };
 
-export const trendKeys = { all: ['trends'] as const, one: (r: TrendRequest) => [...trendKeys.all, r] as const };
+export const trendKeys = {
+  all: ['trends'] as const,
+  /** Every trend of a unit (TanStack matches the object key partly). */
+  unit: (unitId: number) => [...trendKeys.all, { unitId }] as const,
+  one: (r: TrendRequest) => [...trendKeys.all, r] as const,
+};
 
 export const trendQueryOptions = (r: TrendRequest) =>
   queryOptions({

@@ -7,6 +7,7 @@ import { Button } from '../../../components/ui/button';
 import { CautionNote, Notice } from '../../../components/ui/notice';
 import { useTrend } from '../api/get-trend';
 import { TrendChart } from '../components/trend-chart';
+import { useWatchUnit } from '../../../app/use-live-updates';
 
 const views: { label: string; parameters: CheckKey[] }[] = [
   { label: 'Actual vs expected backpressure', parameters: ['backpressure', 'expectedBackpressure'] },
@@ -25,6 +26,7 @@ const prefs: DisplayPreferences = { temperature: 'degC', pressure: 'kPa_a', curr
 
 export function TrendsPage() {
   const { unitId, unit } = useSelectedUnit();
+  useWatchUnit(unitId);
   const [viewIndex, setViewIndex] = useState(0);
   const [days, setDays] = useState(7);
   // The window is fixed when chosen, so the query key (and cache) stays stable between renders.

@@ -1,0 +1,45 @@
+// Which cached queries each kind of change makes stale — built from the features' key factories
+// only, and typed over every live entity, so a new kind of record cannot be forgotten here. The
+// socket handler and the mutations of the person who made the change use the same map.
+import type { QueryClient, QueryKey } from '@tanstack/react-query';
+import type { LiveEntity, LiveEvent } from '../../shared/live-events';
+import { crewKeys } from '../components/plant/crews';
+import { peopleKeys } from '../components/people/person-select';
+import { calcKeys } from '../components/readings/get-condenser-design';
+import { unitsQueryKey } from '../components/readings/unit-picker';
+import { userKeys } from '../features/admin-users/api/user-keys';
+import { auditKeys } from '../features/audit/api/audit-keys';
+import { flagKeys } from '../features/flags/api/flags';
+import { handoverKeys } from '../features/handover/api/handover';
+import { conditionKeys, logKeys } from '../features/log/api/log';
+import { logbookKeys } from '../features/logbook/api/logbook';
+import { orderKeys } from '../features/orders/api/orders';
+import { setupKeys } from '../features/plant/api/setup';
+import { readingKeys } from '../features/rounds/api/reading-keys';
+import { sessionKeys } from '../features/session/api/session-keys';
+import { trainingKeys } from '../features/training/api/training';
+import { trendKeys } from '../features/trends/api/get-trend';
+
+/** Keys for what a unit shows of its rounds and what follows from them (flags, trends, the board). */
+const unitPlantState = (unitId: number): QueryKey[] => [readingKeys.list(unitId), flagKeys.unit(unitId), trendKeys.unit(unitId), handoverKeys.unit(unitId)];
+
+export const liveKeys: Record<LiveEntity, (event: LiveEvent) => QueryKey[]> = {
+  reading: (e) => (e.unitId ? [...unitPlantState(e.unitId), readingKeys.detail(Number(e.id))] : [readingKeys.all]),
+  import: (e) => (e.unitId ? unitPlantState(e.unitId) : [readingKeys.all]),
+  flag: (e) => (e.unitId ? [flagKeys.unit(e.unitId), trendKeys.unit(e.unitId), handoverKeys.unit(e.unitId)] : [flagKeys.all]),
+  log_entry: (e) => (e.unitId ? [logKeys.unitEntries(e.unitId), handoverKeys.unit(e.unitId)] : [logKeys.all]),
+  log_review: (e) => (e.unitId ? [logKeys.unitEntries(e.unitId), logKeys.shifts(e.unitId)] : [logKeys.all]),
+  condition: (e) => (e.unitId ? [conditionKeys.list(e.unitId), logKeys.unitEntries(e.unitId), handoverKeys.unit(e.unitId)] : [conditionKeys.all]),
+  standing_order: () => [orderKeys.all, handoverKeys.all],
+  handover: (e) => [...(e.unitId ? [handoverKeys.unit(e.unitId)] : []), handoverKeys.one(Number(e.id))],
+  training: () => [trainingKeys.all],
+  plant: (e) => [unitsQueryKey, ...(e.unitId ? [setupKeys.unit(e.unitId), calcKeys.design(e.unitId)] : [setupKeys.all, calcKeys.all])],
+  people: () => [userKeys.all, peopleKeys.all, crewKeys.all, sessionKeys.me(), auditKeys.all],
+  station_settings: () => [unitsQueryKey, logKeys.all, handoverKeys.all],
+  review_comment: () => [logbookKeys.all],
+};
+
+/** Marks stale what this change affects; the queries on screen refetch. */
+export function invalidateForChange(queryClient: QueryClient, event: LiveEvent) {
+  for (const queryKey of liveKeys[event.entity]?.(event) ?? []) void queryClient.invalidateQueries({ queryKey });
+}
