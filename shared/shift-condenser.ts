@@ -23,7 +23,7 @@ export const shiftCondenserChecks = [
 export type ShiftCheckKey = (typeof shiftCondenserChecks)[number];
 
 /** At most this many points per trend line; min and max still come from every round. */
-export const SERIES_POINTS = 48;
+export const SERIES_POINTS = 24;
 
 export const START_RULE =
   'Start of shift: each check’s last value from a round taken in the previous shift up to and including the shift change; without one, its first value in this shift.';
@@ -73,6 +73,9 @@ export type ShiftCondenserState = {
   energyLost: ShiftEnergyLost;
   rules: { start: string; energy: string };
 };
+
+/** What a handover stores at submit: the state as the outgoing crew saw it then. */
+export type CondenserSnapshot = { version: 1; frozenAt: string; state: ShiftCondenserState };
 
 export type ShiftCondenserInput = {
   unitId: number;
