@@ -14,6 +14,7 @@ import type { Notices } from './notices';
 import { remainingTime } from '../../../shared/conditions';
 import { Flag } from '../flags/model';
 import { Condition } from '../conditions/model';
+import { freezeCondenserState } from '../shift-condenser/snapshot';
 import { Handover, HandoverAck, HandoverAmendment, HandoverAttachment, HandoverItem, HandoverQuery } from './model';
 
 type Actor = Express.User;
@@ -116,7 +117,9 @@ export function makeHandoverService(sequelize: Sequelize, realtime: RealtimeHub,
     requireWriter(actor, h);
     await sequelize.transaction(async (transaction) => {
       await syncAutomaticItems(h, actor.id, transaction);
-      const [updated] = await Handover.update({ status: 'submitted', submittedBy: actor.id, submittedAt: new Date() }, { where: { id, status: 'draft' }, transaction });
+      const submittedAt = new Date();
+      const condenserSnapshot = await freezeCondenserState(sequelize, h, submittedAt, transaction);
+      const [updated] = await Handover.update({ status: 'submitted', submittedBy: actor.id, submittedAt, condenserSnapshot }, { where: { id, status: 'draft' }, transaction });
       if (!updated) throw new Conflict('This handover was submitted already');
       await recordAudit({ actorId: actor.id, action: 'handover.submit', entity: 'handover', entityId: id }, transaction);
     });
@@ -282,6 +285,7 @@ export async function viewHandover(id: number) {
       submittedAt: h.submittedAt?.toISOString() ?? null,
       acceptedBy: name(h.acceptedBy),
       acceptedAt: h.acceptedAt?.toISOString() ?? null,
+      condenserSnapshot: h.condenserSnapshot ?? null,
     },
     items: shownItems,
     amendments: amendments.map((a) => ({ id: a.id, itemId: a.itemId, author: name(a.authorId), at: a.amendedAt.toISOString(), reason: a.reason, text: a.text })),
