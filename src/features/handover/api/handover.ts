@@ -1,4 +1,5 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { CondenserSnapshot } from '../../../../shared/shift-condenser';
 import { api } from '../../../lib/api-client';
 
 export type BoardItem = {
@@ -29,6 +30,7 @@ export type Board = {
     submittedAt: string | null;
     acceptedBy: string | null;
     acceptedAt: string | null;
+    condenserSnapshot: CondenserSnapshot | null;
   };
   items: BoardItem[];
   amendments: { id: number; itemId: number | null; author: string | null; at: string; reason: string; text: string }[];

@@ -11,6 +11,7 @@ import { useCurrentHandover, useHandoverAction } from '../api/handover';
 import { AddItemForm } from '../components/add-item-form';
 import { BoardItemCard } from '../components/board-item';
 import { HandoverNotes } from '../components/handover-notes';
+import { HandoverCondenser } from '../components/handover-condenser';
 
 const stamp = (iso: string) => format(new Date(iso), 'yyyy-MM-dd HH:mm');
 const statusWord = { draft: '✎ Draft — being written', submitted: '⇢ Submitted — incoming crew acknowledging', accepted: '✔ Accepted — turnover done' };
@@ -69,10 +70,13 @@ export function HandoverPage() {
             </Link>
           </div>
           {action.error ? <Notice kind="error">{action.error.message}</Notice> : null}
-          <section aria-label="Notes">
-            <h2 className="mb-1 font-bold">Notes</h2>
-            <HandoverNotes board={board} editable={writer && h.status === 'draft'} />
-          </section>
+          <div className="grid items-start gap-4 lg:grid-cols-2">
+            <section aria-label="Notes">
+              <h2 className="mb-1 font-bold">Notes</h2>
+              <HandoverNotes board={board} editable={writer && h.status === 'draft'} />
+            </section>
+            <HandoverCondenser board={board} />
+          </div>
           <section aria-label="Items" className="flex flex-col gap-2">
             <h2 className="font-bold">Items ({board.items.length})</h2>
             {board.items.map((item) => (
