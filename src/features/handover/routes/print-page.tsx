@@ -21,24 +21,16 @@ export function HandoverPrintPage() {
   return (
     <article className="print-sheet mx-auto max-w-3xl bg-white p-6 text-black">
       <h1 className="text-2xl font-bold">Shift handover — {head.station.name}, {head.unit.name}</h1>
-      <table className="mt-2 text-left text-sm" data-testid="print-header">
-        <tbody>
-          <tr>
-            <th className="pr-3 align-top">Shift change</th>
-            <td>
-              {head.handoverAtLocal} station time ({head.timeZone}); shift from {head.shiftStartLocal}; status {h.status}
-            </td>
-          </tr>
-          <tr>
-            <th className="pr-3 align-top">Outgoing</th>
-            <td>{crewLine(head.outgoingCrew)}</td>
-          </tr>
-          <tr>
-            <th className="pr-3 align-top">Incoming</th>
-            <td>{crewLine(head.incomingCrew)}</td>
-          </tr>
-        </tbody>
-      </table>
+      <dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-3 text-sm" data-testid="print-header">
+        <dt className="font-bold">Shift change</dt>
+        <dd>
+          {head.handoverAtLocal} station time ({head.timeZone}); shift from {head.shiftStartLocal}; status {h.status}
+        </dd>
+        <dt className="font-bold">Outgoing</dt>
+        <dd>{crewLine(head.outgoingCrew)}</dd>
+        <dt className="font-bold">Incoming</dt>
+        <dd>{crewLine(head.incomingCrew)}</dd>
+      </dl>
       <h2 className="mt-4 text-lg font-bold">Notes</h2>
       <div className="order-body" dangerouslySetInnerHTML={{ __html: h.notesHtml || '<p>(none)</p>' }} />
       {h.condenserSnapshot ? (
