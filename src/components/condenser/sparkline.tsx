@@ -20,7 +20,7 @@ export function Sparkline({ points, label, width = 120, height = 32 }: { points:
       {points.length > 1 ? <polyline points={line} fill="none" stroke="currentColor" strokeWidth="1.5" strokeLinejoin="round" /> : null}
       {points.map((p, i) =>
         p.status === 'watch' || p.status === 'alarm' ? (
-          <rect key={p.t} x={x(times[i]!) - 2.5} y={y(p.value) - 2.5} width="5" height="5" className={p.status === 'alarm' ? 'fill-alarm' : 'fill-watch'} />
+          <rect key={i} x={x(times[i]!) - 2.5} y={y(p.value) - 2.5} width="5" height="5" className={p.status === 'alarm' ? 'fill-alarm' : 'fill-watch'} />
         ) : null,
       )}
       <circle cx={x(times[last]!)} cy={y(values[last]!)} r="2.5" fill="currentColor" />
