@@ -27,6 +27,9 @@ test('outgoing writes, incoming acknowledges live, the incoming lead accepts', a
   await signIn(outgoing, 'operator.a@fernhollow.example');
   await openBoard(outgoing);
   await expect(outgoing.getByTestId('handover-status')).toContainText('Draft');
+  // Beside the notes: the condenser over the shift so far, from the demo's rounds.
+  await expect(outgoing.getByTestId('condenser-live')).toContainText('Condenser over the shift');
+  await expect(outgoing.getByTestId('energy-lost')).toContainText('MWh');
   // Each board shows who else has it open.
   await expect(incoming.getByTestId('viewing')).toContainText('Cato Villanueva');
   await expect(incoming.getByTestId('viewing')).toContainText('Greta Ifeanyi');
@@ -42,6 +45,7 @@ test('outgoing writes, incoming acknowledges live, the incoming lead accepts', a
 
   await outgoing.getByRole('button', { name: 'Submit the handover' }).click();
   await expect(incoming.getByTestId('handover-status')).toContainText('Submitted');
+  await expect(incoming.getByTestId('condenser-frozen')).toContainText('as handed over at');
 
   const item = incoming.getByRole('article', { name: 'Item: Check 1-CWP-A bearing temperature every round' });
   await item.getByRole('button', { name: 'Acknowledge' }).click();
@@ -62,6 +66,9 @@ test('outgoing writes, incoming acknowledges live, the incoming lead accepts', a
   await lead.getByRole('link', { name: 'Print view' }).click();
   await expect(lead.getByRole('cell', { name: 'Femi Achterberg' })).toBeVisible();
   await expect(lead.getByRole('cell', { name: 'Cato Villanueva' })).toBeVisible();
+  await expect(lead.getByRole('heading', { name: 'Shift handover — Fernhollow Station, Unit 1' })).toBeVisible();
+  await expect(lead.getByTestId('print-header')).toContainText('Crew B — Femi Achterberg (shift lead)');
+  await expect(lead.getByTestId('condenser-frozen')).toBeVisible();
 });
 
 test('the incoming crew got the submit e-mail, caught by the local fake', async ({ request }) => {

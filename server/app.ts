@@ -44,6 +44,9 @@ import { logbookRoutes } from './features/logbook/routes';
 import { makeReviewCommentService } from './features/logbook/review-comments';
 import { trainingRoutes } from './features/training/routes';
 import { makeTrainingService } from './features/training/service';
+import { shiftCondenserRoutes } from './features/shift-condenser/routes';
+import { handoverHeaderRoutes } from './features/handovers/record-header';
+import { makeShiftCondenserService } from './features/shift-condenser/service';
 
 
 export type BuiltApp = {
@@ -128,6 +131,8 @@ export function createApp(
   app.use('/api', shiftRoutes(makeShiftService(sequelize)));
   app.use('/api', logbookRoutes(sequelize, makeReviewCommentService(sequelize)));
   app.use('/api', trainingRoutes(makeTrainingService(sequelize)));
+  app.use('/api', shiftCondenserRoutes(makeShiftCondenserService(sequelize)));
+  app.use('/api', handoverHeaderRoutes());
   app.use('/api/calc', calcRoutes());
   app.use('/api', (_req, _res, next) => next(new NotFound('That API route')));
 

@@ -78,3 +78,13 @@ export function displayQuantity(value: number, quantity: Quantity, prefs: Displa
       return { text: fixed(value, 1), unit: 'ppb (µg/kg)' };
   }
 }
+
+/** Energy over a time: MWh with two decimals. */
+export function displayEnergy(megawattHours: number): Displayed {
+  return { text: fixed(megawattHours, 2), unit: 'MWh' };
+}
+
+/** An amount of money in the unit's currency (or the word "money" where none is set). */
+export function displayMoney(amount: number, currency: string | null): Displayed {
+  return { text: fixed(amount, 0), unit: currency ?? 'money' };
+}

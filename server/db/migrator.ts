@@ -10,6 +10,7 @@ import * as attachments from './migrations/0007-attachments';
 import * as trendIndex from './migrations/0008-trend-index';
 import * as trainingAndLogbook from './migrations/0009-training-and-logbook';
 import * as handoverIntegrity from './migrations/0010-handover-integrity';
+import * as handoverCondenserSnapshot from './migrations/0011-handover-condenser-snapshot';
 
 // Listed explicitly so the order is obvious and nothing depends on globbing at run time.
 const migrations = [
@@ -23,6 +24,7 @@ const migrations = [
   { name: '0008-trend-index', ...trendIndex },
   { name: '0009-training-and-logbook', ...trainingAndLogbook },
   { name: '0010-handover-integrity', ...handoverIntegrity },
+  { name: '0011-handover-condenser-snapshot', ...handoverCondenserSnapshot },
 ];
 
 export function createMigrator(sequelize: Sequelize) {

@@ -11,6 +11,7 @@ import { userKeys } from '../features/admin-users/api/user-keys';
 import { auditKeys } from '../features/audit/api/audit-keys';
 import { flagKeys } from '../features/flags/api/flags';
 import { handoverKeys } from '../features/handover/api/handover';
+import { shiftCondenserKeys } from '../features/handover/api/get-shift-condenser';
 import { conditionKeys, logKeys } from '../features/log/api/log';
 import { logbookKeys } from '../features/logbook/api/logbook';
 import { orderKeys } from '../features/orders/api/orders';
@@ -21,7 +22,7 @@ import { trainingKeys } from '../features/training/api/training';
 import { trendKeys } from '../features/trends/api/get-trend';
 
 /** Keys for what a unit shows of its rounds and what follows from them (flags, trends, the board). */
-const unitPlantState = (unitId: number): QueryKey[] => [readingKeys.list(unitId), flagKeys.unit(unitId), trendKeys.unit(unitId), handoverKeys.unit(unitId)];
+const unitPlantState = (unitId: number): QueryKey[] => [readingKeys.list(unitId), flagKeys.unit(unitId), trendKeys.unit(unitId), handoverKeys.unit(unitId), shiftCondenserKeys.unit(unitId)];
 
 export const liveKeys: Record<LiveEntity, (event: LiveEvent) => QueryKey[]> = {
   reading: (e) => (e.unitId ? [...unitPlantState(e.unitId), readingKeys.detail(Number(e.id))] : [readingKeys.all]),
@@ -33,9 +34,9 @@ export const liveKeys: Record<LiveEntity, (event: LiveEvent) => QueryKey[]> = {
   standing_order: () => [orderKeys.all, handoverKeys.all],
   handover: (e) => [...(e.unitId ? [handoverKeys.unit(e.unitId)] : []), handoverKeys.one(Number(e.id))],
   training: () => [trainingKeys.all],
-  plant: (e) => [unitsQueryKey, ...(e.unitId ? [setupKeys.unit(e.unitId), calcKeys.design(e.unitId)] : [setupKeys.all, calcKeys.all])],
-  people: () => [userKeys.all, peopleKeys.all, crewKeys.all, sessionKeys.me(), auditKeys.all],
-  station_settings: () => [unitsQueryKey, logKeys.all, handoverKeys.all],
+  plant: (e) => [unitsQueryKey, shiftCondenserKeys.all, ...(e.unitId ? [setupKeys.unit(e.unitId), calcKeys.design(e.unitId)] : [setupKeys.all, calcKeys.all])],
+  people: () => [userKeys.all, peopleKeys.all, crewKeys.all, sessionKeys.me(), auditKeys.all, handoverKeys.all],
+  station_settings: () => [unitsQueryKey, logKeys.all, handoverKeys.all, shiftCondenserKeys.all],
   review_comment: () => [logbookKeys.all],
 };
 

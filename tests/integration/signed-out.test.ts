@@ -47,6 +47,8 @@ const routes: [method: 'get' | 'post' | 'patch' | 'put', path: string][] = [
   ['post', '/api/conditions/1/close'],
   ['get', '/api/units/1/handovers/current'],
   ['get', '/api/handovers/1'],
+  ['get', '/api/handovers/1/header'],
+  ['get', '/api/units/1/shift-condenser'],
   ['post', '/api/handovers/1/items'],
   ['post', '/api/handovers/1/submit'],
   ['post', '/api/handovers/1/amendments'],

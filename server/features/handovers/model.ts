@@ -1,3 +1,4 @@
+import type { CondenserSnapshot } from '../../../shared/shift-condenser';
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 
 export type HandoverStatus = 'draft' | 'submitted' | 'accepted';
@@ -21,6 +22,8 @@ export class Handover extends Model<InferAttributes<Handover>, InferCreationAttr
   declare acceptedBy: number | null;
   declare acceptedAt: Date | null;
   declare reminderSentAt: CreationOptional<Date | null>;
+  /** Written once at submit (migration 0011). */
+  declare condenserSnapshot: CreationOptional<CondenserSnapshot | null>;
 }
 
 export class HandoverItem extends Model<InferAttributes<HandoverItem>, InferCreationAttributes<HandoverItem>> {
@@ -96,6 +99,7 @@ export function initHandoverModels(sequelize: Sequelize) {
       notesHtml: DataTypes.TEXT('medium'), notesVersion: { type: int, defaultValue: 0 },
       status: DataTypes.ENUM('draft', 'submitted', 'accepted'), createdBy: int, createdAt: at,
       submittedBy: int, submittedAt: at, acceptedBy: int, acceptedAt: at, reminderSentAt: at,
+      condenserSnapshot: DataTypes.JSON,
     },
     { sequelize, tableName: 'handovers', timestamps: false },
   );

@@ -19,6 +19,7 @@ import { syncAutomaticItems } from './auto-items';
 import { Handover, HandoverAmendment, HandoverItem, HandoverQuery } from './model';
 import type { Notices } from './notices';
 import { viewHandover } from './view';
+import { freezeCondenserState } from '../shift-condenser/snapshot';
 
 type Actor = Express.User;
 const asActor = (user: Actor): HandoverActor => ({ id: user.id, role: user.role, crewId: user.crewId });
@@ -220,7 +221,9 @@ export function makeHandoverService(sequelize: Sequelize, notices: Notices) {
         const h = await loadHandover(id, transaction, true);
         if (h.status !== 'draft') return false;
         await syncAutomaticItems(h, transaction);
-        await h.update({ status: 'submitted', submittedBy: actor.id, submittedAt: now }, { transaction });
+        // What the outgoing crew saw of the condenser, kept with the record as it stood at submit.
+        const condenserSnapshot = await freezeCondenserState(sequelize, h, now, transaction);
+        await h.update({ status: 'submitted', submittedBy: actor.id, submittedAt: now, condenserSnapshot }, { transaction });
         await recordAudit({ actorId: actor.id, action: 'handover.submit', entity: 'handover', entityId: id }, transaction);
         changed(transaction, h);
         // After the commit; a mail failure must not undo the submit.
@@ -370,7 +373,11 @@ export type HandoverService = ReturnType<typeof makeHandoverService>;
 
 async function handoverOfItem(itemId: number) {
   // One round trip: this sits on the acknowledgement path every open board waits on.
-  const handover = await Handover.findOne({ where: { id: { [Op.eq]: literal(`(SELECT handover_id FROM handover_items WHERE id = ${Number(itemId)})`) } } });
+  const handover = await Handover.findOne({
+    where: { id: { [Op.eq]: literal(`(SELECT handover_id FROM handover_items WHERE id = ${Number(itemId)})`) } },
+    // The notes and the frozen condenser state are large and not needed to check who may act.
+    attributes: { exclude: ['notesHtml', 'condenserSnapshot'] },
+  });
   if (!handover) throw new NotFound('That handover item');
   return handover;
 }

@@ -112,6 +112,7 @@ export async function viewHandover(id: number) {
       submittedAt: h.submittedAt?.toISOString() ?? null,
       acceptedBy: name(h.acceptedBy),
       acceptedAt: h.acceptedAt?.toISOString() ?? null,
+      condenserSnapshot: h.condenserSnapshot ?? null,
     },
     items: shownItems,
     amendments: amendments.map((a) => ({ id: a.id, itemId: a.itemId, author: name(a.authorId), at: a.amendedAt.toISOString(), reason: a.reason, text: a.text })),

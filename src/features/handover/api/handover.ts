@@ -1,6 +1,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { invalidateForChange } from '../../../app/live-keys';
+import type { CondenserSnapshot } from '../../../../shared/shift-condenser';
 import { api } from '../../../lib/api-client';
 
 export type BoardItem = {
@@ -40,6 +41,7 @@ export type Board = {
     submittedAt: string | null;
     acceptedBy: string | null;
     acceptedAt: string | null;
+    condenserSnapshot: CondenserSnapshot | null;
   };
   items: BoardItem[];
   amendments: { id: number; itemId: number | null; author: string | null; at: string; reason: string; text: string }[];

@@ -13,6 +13,7 @@ import { useClientKey, useCurrentHandover, useHandoverAction, type ShiftChange }
 import { AddItemForm } from '../components/add-item-form';
 import { BoardItemCard } from '../components/board-item';
 import { HandoverNotes } from '../components/handover-notes';
+import { HandoverCondenser } from '../components/handover-condenser';
 
 const statusWord = { draft: '✎ Draft — being written', submitted: '⇢ Submitted — incoming crew acknowledging', accepted: '✔ Accepted — turnover done' };
 
@@ -90,10 +91,13 @@ export function HandoverPage() {
               Print view
             </Link>
           </div>
-          <section aria-label="Notes">
-            <h2 className="mb-1 font-bold">Notes</h2>
-            <HandoverNotes key={h.id} board={board} editable={may.write && h.status === 'draft'} stationTime={stationTime} />
-          </section>
+          <div className="grid items-start gap-4 lg:grid-cols-2">
+            <section aria-label="Notes">
+              <h2 className="mb-1 font-bold">Notes</h2>
+              <HandoverNotes key={h.id} board={board} editable={may.write && h.status === 'draft'} stationTime={stationTime} />
+            </section>
+            <HandoverCondenser board={board} />
+          </div>
           <section aria-label="Items" className="flex flex-col gap-2">
             <h2 className="font-bold">Items ({board.items.length})</h2>
             {board.items.map((item) => (

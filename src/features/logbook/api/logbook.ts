@@ -1,6 +1,7 @@
 import { keepPreviousData, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { Evaluation } from '../../../../shared/calc/evaluate';
 import type { LimitSet } from '../../../../shared/calc/limits';
+import type { CondenserSnapshot } from '../../../../shared/shift-condenser';
 import { api } from '../../../lib/api-client';
 import type { ReviewCommentView, SearchHit } from '../../../../shared/schemas/logbook';
 
@@ -41,7 +42,18 @@ export const useLogbookSearch = (filters: SearchFilters, enabled: boolean) =>
   });
 
 type HandoverBoard = {
-  handover: { id: number; shiftStart: string; handoverAt: string; notesHtml: string; status: string; submittedBy: string | null; submittedAt: string | null; acceptedBy: string | null; acceptedAt: string | null };
+  handover: {
+    id: number;
+    shiftStart: string;
+    handoverAt: string;
+    notesHtml: string;
+    status: string;
+    submittedBy: string | null;
+    submittedAt: string | null;
+    acceptedBy: string | null;
+    acceptedAt: string | null;
+    condenserSnapshot: CondenserSnapshot | null;
+  };
   items: {
     id: number;
     kind: string;
@@ -49,6 +61,7 @@ type HandoverBoard = {
     detail: string | null;
     reference: string | null;
     priority: string;
+    attachments: { id: number; fileName: string; mime: string; size: number }[];
     acknowledgedBy: { name: string | null; at: string }[];
     queries: { id: number; question: string; askedBy: string | null; askedAt: string; answer: string | null; answeredBy: string | null; answeredAt: string | null }[];
   }[];

@@ -9,6 +9,7 @@ import { StatusBadge } from '../../../components/ui/status-badge';
 import { useMe } from '../../session/api/get-me';
 import { usePastShift, type PastShift } from '../api/logbook';
 import { ReviewedRecord } from '../components/reviewed-record';
+import { HandedOverCondenser, ItemAttachments } from '../components/handover-record-extras';
 
 const stamp = (iso: string) => format(new Date(iso), 'yyyy-MM-dd HH:mm');
 // The checks shown for each round; the full set is on the round's own page.
@@ -44,12 +45,14 @@ function Handover({ title, board, doc, comments, mayComment, practice }: Handove
       <ReviewedRecord label="Handover notes" documentId={doc('handover_notes', h.id)} comments={comments} mayComment={mayComment}>
         <div className="order-body" dangerouslySetInnerHTML={{ __html: h.notesHtml || '<p><em>No notes.</em></p>' }} />
       </ReviewedRecord>
+      <HandedOverCondenser board={board} />
       {board.items.map((item) => (
         <ReviewedRecord key={item.id} label={`Handover item ${item.title}`} documentId={doc('handover_item', item.id)} comments={comments} mayComment={mayComment}>
           <p className="font-bold">
             {item.title} <span className="text-xs font-normal">({item.kind.replace(/_/g, ' ')}, {item.priority} priority{item.reference ? `, ref. ${item.reference}` : ''})</span>
           </p>
           {item.detail ? <p className="text-sm">{item.detail}</p> : null}
+          <ItemAttachments item={item} />
           <p className="text-xs text-muted">Acknowledged: {item.acknowledgedBy.length ? item.acknowledgedBy.map((a) => `${a.name} ${stamp(a.at)}`).join('; ') : 'nobody'}</p>
           {item.queries.map((q) => (
             <p key={q.id} className="text-sm">
