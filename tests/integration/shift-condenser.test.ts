@@ -1,9 +1,10 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from 'vitest';
 import type { Role } from '../../shared/roles';
 import type { CondenserSnapshot, ShiftCondenserState } from '../../shared/shift-condenser';
 import { anonymousAgent, buildApp, closeAll, makeStation, makeUser, signedInAgent, type Agent } from './support/test-app';
 
 afterAll(closeAll);
+afterEach(() => vi.useRealTimers());
 const built = buildApp();
 const post = (agent: Agent, path: string, body: unknown = {}) => agent.post(path).set('X-CSRF-Token', agent.csrf).send(body as object);
 
@@ -100,9 +101,12 @@ describe('GET /api/units/:unitId/shift-condenser', () => {
     expect(live.body.state.latestRound.id).toBe(beforeSubmit.body.id);
     expect(live.body.state.checks.find((c: { key: string }) => c.key === 'backpressure').latest.value).toBe(9500);
 
-    const opened = await agents.outOperator.get(`/api/units/${unitId}/handovers/current`).expect(200);
+    const opened = await post(agents.outOperator, `/api/units/${unitId}/handovers/current`).expect(201);
     const id = opened.body.board.handover.id;
     expect(opened.body.board.handover.condenserSnapshot).toBeNull();
+    // Submitted within the window around the shift change: the server's clock half an hour before it.
+    vi.useFakeTimers({ toFake: ['Date'], shouldAdvanceTime: true });
+    vi.setSystemTime(new Date(Date.parse(opened.body.board.handover.handoverAt) - 30 * 60_000));
     const submitted = await post(agents.outOperator, `/api/handovers/${id}/submit`).expect(200);
     const frozen: CondenserSnapshot = submitted.body.board.handover.condenserSnapshot;
     expect(frozen.frozenAt).toBe(submitted.body.board.handover.submittedAt);
@@ -122,7 +126,7 @@ describe('GET /api/units/:unitId/shift-condenser', () => {
 
 describe('GET /api/handovers/:id/header', () => {
   it('names station, unit, shift change in station time and both crews; 401 signed out', async () => {
-    const opened = await agents.outOperator.get(`/api/units/${unitId}/handovers/current`).expect(200);
+    const opened = await post(agents.outOperator, `/api/units/${unitId}/handovers/current`).expect(201);
     const id = opened.body.board.handover.id;
     await (await anonymousAgent(built)).get(`/api/handovers/${id}/header`).expect(401);
     const res = await agents.trainer.get(`/api/handovers/${id}/header`).expect(200);
