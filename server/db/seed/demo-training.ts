@@ -35,6 +35,7 @@ type EntryRow = CreationAttributes<TrainingEntry>;
 
 export async function seedDemoTraining(sequelize: Sequelize, { unitId, roster, people, now }: Options): Promise<number> {
   const byEmail = new Map(people.map((p) => [p.email, p]));
+  const byId = new Map(people.map((p) => [p.id, p]));
   const trainer = byEmail.get('trainer@fernhollow.example');
   if (!trainer) return 0;
   const daysAgo = (days: number) => new Date(now.getTime() - days * DAY_MS);
@@ -118,7 +119,7 @@ export async function seedDemoTraining(sequelize: Sequelize, { unitId, roster, p
         // An operator's was on their crew's shifts, countersigned by their crew's lead (or a crew-mate without one).
         const crew = roster.members(person.crewId!);
         const signer = isLead ? leads[(leads.indexOf(person) + 1) % leads.length] : (crew.lead[0] ?? [...crew.control, ...crew.field].find((p) => p.id !== person.id));
-        const signedBy = signer ? byEmail.get(people.find((p) => p.id === signer.id)!.email) : undefined;
+        const signedBy = signer ? byId.get(signer.id) : undefined;
         if (!signedBy || signedBy.id === person.id) return;
         let cursor = daysAgo((isLead ? 2_300 : 720) - i * 45);
         for (const task of catalogue.filter((t) => wanted.includes(t.position))) {
@@ -127,7 +128,7 @@ export async function seedDemoTraining(sequelize: Sequelize, { unitId, roster, p
             const shiftStart = isLead ? null : roster.shiftOfCrew(person.crewId!, cursor);
             const performed = shiftStart ? hours(shiftStart, 3) : hours(cursor, 0);
             const level = k === task.requiredPerformances - 1 ? 'alone' : 'supervised';
-            entries.push(practice(person, version, shiftStart, performed, level, `${task.title} (${task.procedureRef}), ${level === 'alone' ? 'alone with the supervisor watching' : 'under supervision'}.`, signedBy, signedBy));
+            entries.push(practice(person, version, shiftStart, performed, level, `${task.title} per ${task.procedureRef}: ${level === 'alone' ? 'performed alone, walked through with the countersigner afterwards' : 'performed under supervision'}.`, signedBy, signedBy));
             cursor = new Date(performed.getTime() + (2 + (k % 2) * 2) * DAY_MS);
           }
           decisions.push({ traineeId: person.id, taskId: version.id, taskKey: task.taskKey, decision: 'signed_off', comments: `Performed to the standard of ${task.procedureRef} on every counted run; signed off.`, trainerId: trainer!.id, decidedAt: cursor });
