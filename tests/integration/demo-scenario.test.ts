@@ -114,6 +114,10 @@ describe('demo scenario: rounds follow the crew rotation', () => {
     for (const r of await demoRounds()) note(r.recordedBy, r.takenAt);
     for (const e of await LogEntry.findAll({ where: { unitId: unitIds } })) note(e.authorId, e.eventAt);
     for (const v of await LogReview.findAll({ where: { unitId: unitIds } })) note(v.reviewedBy, v.reviewedAt);
+    for (const f of await Flag.findAll({ where: { unitId: unitIds } })) {
+      note(f.raisedBy, f.raisedAt);
+      if (f.clearedAt) note(f.clearedBy, f.clearedAt);
+    }
     for (const t of await TrainingEntry.findAll({ where: { unitId: unitIds } })) {
       note(t.traineeId, t.shiftStart!);
       if (t.countersignedAt) note(t.countersignedBy, t.countersignedAt);
@@ -167,6 +171,26 @@ describe('demo scenario: rounds follow the crew rotation', () => {
     expect(condition.closedAt).toBeNull();
     const order = (await StandingOrder.findOne({ where: { title: 'Unit 1: hourly TTD while cleanliness is below 0.75' } }))!;
     expect(people.get(order.issuedBy)!.crewId).toBe(crewAt(order.issuedAt));
+  });
+});
+
+describe('demo scenario: flags raised and cleared by people', () => {
+  it('has each person-made flag raised and cleared by the lead of the crew on shift then', async () => {
+    const flags = (await Flag.findAll({ where: { unitId: unitIds } })).filter((f) => f.raisedBy !== null || f.clearedBy !== null);
+    expect(flags.length).toBeGreaterThan(0);
+    for (const f of flags) {
+      if (f.raisedBy !== null) {
+        expect(people.get(f.raisedBy)!.role).toBe('shift_lead');
+        expect(people.get(f.raisedBy)!.crewId).toBe(crewAt(f.raisedAt));
+      }
+      if (f.assignedTo !== null) expect(people.get(f.assignedTo)!.crewId).toBe(crewAt(f.raisedAt));
+      if (f.clearedBy !== null) {
+        expect(people.get(f.clearedBy)!.role).toBe('shift_lead');
+        expect(people.get(f.clearedBy)!.crewId).toBe(crewAt(f.clearedAt!));
+        expect(f.clearedAt!.getTime()).toBeGreaterThan(f.raisedAt.getTime());
+        expect(f.clearComment!.length).toBeGreaterThan(10);
+      }
+    }
   });
 });
 

@@ -1,6 +1,7 @@
 // The demo log: the shift in progress (crew A), the night before it (crew D) when 1-CWP-B came out
 // of service, and crew A's shift two days back with the trainee's report. Each entry is written by
-// someone of the crew on shift then; past shifts carry their lead's end-of-shift review.
+// someone of the crew on shift then; past shifts carry their lead's end-of-shift review. Unit 2 has
+// a flag one crew's lead raised and a later crew's lead cleared.
 import type { Sequelize } from 'sequelize';
 import { nextShiftStart } from '../../../shared/shift-time';
 import { defaultStationSettings } from '../../features/stations/settings';
@@ -8,12 +9,13 @@ import { LogEntry, LogReview } from '../../features/log/model';
 import { StandingOrder } from '../../features/standing-orders/model';
 import { Condition } from '../../features/conditions/model';
 import { Equipment } from '../../features/plant/model';
+import { Flag } from '../../features/flags/model';
 import type { User } from '../../features/users/model';
 import type { DemoRoster } from './demo-roster';
 
-type Options = { stationId: number; unitId: number; roster: DemoRoster; byEmail: Map<string, User>; now: Date };
+type Options = { stationId: number; unitId: number; otherUnitId: number; roster: DemoRoster; byEmail: Map<string, User>; now: Date };
 
-export async function seedDemoLog(sequelize: Sequelize, { stationId, unitId, roster, byEmail, now }: Options): Promise<number> {
+export async function seedDemoLog(sequelize: Sequelize, { stationId, unitId, otherUnitId, roster, byEmail, now }: Options): Promise<number> {
   let created = 0;
   await sequelize.transaction(async (transaction) => {
     if (await LogEntry.count({ where: { unitId }, transaction })) return;
@@ -94,6 +96,35 @@ export async function seedDemoLog(sequelize: Sequelize, { stationId, unitId, ros
     await entry(soFar(0.05), operator, 'control_room', 'communication', 'Took the shift from crew D; walked down the condenser panel with the outgoing operator. 1-CWP-B still isolated for its seal.');
     await entry(soFar(0.4), operator, 'control_room', 'alarm_abnormal', 'Backpressure 5.3 kPa a, 0.5 kPa above expected; cleanliness trending down. Informed the shift lead.', { carryToHandover: true });
     await entry(soFar(0.7), field, 'field_cw_tower', 'operation', 'Backwashed Unit 1 waterbox A; screen ΔP back to normal.');
+
+    // Unit 2: raised by the lead on shift four and a half days back, cleared by the lead a shift-and-a-half later.
+    const raisedShift = roster.shiftsBack(now, 9);
+    const clearedShift = roster.shiftsBack(now, 6);
+    const leadOf = (shiftStart: Date) => roster.members(roster.crewOf(shiftStart)!).lead[0]!;
+    const fieldOf = (shiftStart: Date) => roster.members(roster.crewOf(shiftStart)!).field[0] ?? leadOf(shiftStart);
+    await Flag.create(
+      {
+        unitId: otherUnitId,
+        parameter: 'cycles',
+        origin: 'manual',
+        severity: 'watch',
+        status: 'cleared',
+        firstReadingSetId: null,
+        lastReadingSetId: null,
+        lastValue: null,
+        raisedAt: hours(raisedShift, 3),
+        lastSeenAt: hours(raisedShift, 3),
+        raisedBy: leadOf(raisedShift).id,
+        comment: 'Basin conductivity analyser reads about 8 % above the lab sample; cycles on the round are overstated until it is recalibrated.',
+        assignedTo: fieldOf(raisedShift).id,
+        followUp: 'Take a basin sample for the lab on each round until I&C has recalibrated the analyser.',
+        clearedBy: leadOf(clearedShift).id,
+        clearedAt: hours(clearedShift, 5),
+        clearComment: 'Analyser recalibrated by I&C under WO 24-0902; agrees with the lab sample within 2 %.',
+      },
+      { transaction },
+    );
+    created += 1;
 
     // Issued by crew A's lead on that shift two days back.
     const issuedAt = hours(twoDaysBack, 2);

@@ -113,7 +113,7 @@ export async function seedDemo(sequelize: Sequelize, now = new Date()): Promise<
     roster,
     now,
   );
-  const logRows = await seedDemoLog(sequelize, { stationId, unitId: unitIds[0]!, roster, byEmail, now });
+  const logRows = await seedDemoLog(sequelize, { stationId, unitId: unitIds[0]!, otherUnitId: unitIds[1]!, roster, byEmail, now });
   const trainingRows = await seedDemoTraining(sequelize, { unitId: unitIds[0]!, roster, people: demoPeople, now });
   return { created: created + rounds + logRows + trainingRows };
 }
