@@ -7,10 +7,18 @@ import { cleanUHei, tubeVelocity } from '../../../shared/calc/hei';
 import { WATER_CP, waterDensity } from '../../../shared/calc/water';
 import type { ReadingSetInput } from '../../../shared/schemas/reading-set';
 import { convertReadingSet } from '../../lib/convert-readings';
-import { ReadingSet } from '../../features/readings/model';
+import { ReadingCountersign, ReadingSet } from '../../features/readings/model';
 import { storeReading } from '../../features/readings/service';
+import type { DemoRoster } from './demo-roster';
 
 const HOURS = 14 * 24;
+
+/** The hourly rounds cover the fourteen days up to the last full hour before `now`. */
+export function demoHistoryWindow(now: Date) {
+  const end = new Date(now);
+  end.setUTCMinutes(0, 0, 0);
+  return { start: new Date(end.getTime() - HOURS * 3_600_000), end };
+}
 
 function random(seed: number) {
   let state = seed;
@@ -54,24 +62,31 @@ export function demoRound(design: UnitDesign, hour: number, fouling: boolean, ne
 export async function seedDemoHistory(
   sequelize: Sequelize,
   units: { id: number; design: UnitDesign; fouling: boolean }[],
-  recorder: { id: number; role: string },
+  roster: DemoRoster,
+  now: Date,
 ): Promise<number> {
   let stored = 0;
-  const end = new Date();
-  end.setUTCMinutes(0, 0, 0);
-  const start = end.getTime() - HOURS * 3_600_000;
-  for (const unit of units) {
+  const { start } = demoHistoryWindow(now);
+  for (const [unitIndex, unit] of units.entries()) {
     if (await ReadingSet.count({ where: { unitId: unit.id } })) continue;
     const next = random(unit.id * 7919);
     await sequelize.transaction(async (transaction) => {
       for (let hour = 0; hour < HOURS; hour++) {
         const { takenAtOffsetH, ...round } = demoRound(unit.design, hour, unit.fouling, next);
         const raw = { ...round, unitId: unit.id };
-        await storeReading(
-          { unitId: unit.id, takenAt: new Date(start + takenAtOffsetH * 3_600_000), raw, si: convertReadingSet(raw), actor: recorder, source: 'round', importKey: null },
+        const takenAt = new Date(start.getTime() + takenAtOffsetH * 3_600_000);
+        const by = roster.roundBy(takenAt, unitIndex);
+        // Written up a few minutes after the walk, countersigned before the next round.
+        const recordedAt = new Date(takenAt.getTime() + (4 + (hour % 5)) * 60_000);
+        const { reading } = await storeReading(
+          { unitId: unit.id, takenAt, recordedAt, raw, si: convertReadingSet(raw), actor: by.recorder, source: 'round', importKey: null },
           transaction,
         );
         stored += 1;
+        if (by.countersigner) {
+          await ReadingCountersign.create({ readingSetId: reading.id, signedBy: by.countersigner.id, signedAt: new Date(recordedAt.getTime() + 15 * 60_000) }, { transaction });
+          stored += 1;
+        }
       }
     });
   }

@@ -2,6 +2,7 @@
 // Every name, tag and figure here is made up for the demo.
 import type { EquipmentKind } from '../../features/plant/model';
 import type { TubeMaterial } from '../../../shared/calc/hei';
+import { startingLimits, type LimitSet } from '../../../shared/calc/limits';
 
 export const demoStation = { code: 'FHS', name: 'Fernhollow Station' };
 export const demoCrews = ['A', 'B', 'C', 'D'];
@@ -10,6 +11,9 @@ type DemoUnit = {
   code: string;
   name: string;
   equipment: { kind: EquipmentKind; tag: string; name: string }[];
+  designNote: string;
+  /** Limit changes after the first set, dated in days before the seed's "now". */
+  limitRevisions: { daysAgo: number; limits: LimitSet; note: string }[];
 };
 
 const unitEquipment = (n: number): DemoUnit['equipment'] => [
@@ -21,9 +25,31 @@ const unitEquipment = (n: number): DemoUnit['equipment'] => [
   { kind: 'air_removal', tag: `${n}-VP-B`, name: `Unit ${n} liquid-ring vacuum pump B` },
 ];
 
+/** Days before the rounds history starts that the units came back on load with their data sheets. */
+export const demoReturnToServiceDaysBeforeHistory = 9;
+export const demoFirstLimitsNote = 'Starting limits (common practice) for the return to service; review after two weeks on load';
+
 export const demoUnits: DemoUnit[] = [
-  { code: 'U1', name: 'Unit 1', equipment: unitEquipment(1) },
-  { code: 'U2', name: 'Unit 2', equipment: unitEquipment(2) },
+  {
+    code: 'U1',
+    name: 'Unit 1',
+    equipment: unitEquipment(1),
+    designNote: 'Condenser data sheet FH-DS-1-CND rev. C, as built after the titanium retubing outage',
+    limitRevisions: [
+      {
+        daysAgo: 5,
+        limits: { ...startingLimits, dissolvedOxygen: { highWatch: 15, highAlarm: 40 } },
+        note: 'Two-week review: dissolved-oxygen watch lowered from 20 to 15 ppb now the LP gland leak is repaired (WO 24-0817), to catch a return of air in-leakage early. Alarm stays at 40 ppb; other limits unchanged.',
+      },
+    ],
+  },
+  {
+    code: 'U2',
+    name: 'Unit 2',
+    equipment: unitEquipment(2),
+    designNote: 'Condenser data sheet FH-DS-2-CND rev. B, acceptance-test values confirmed at the return to service',
+    limitRevisions: [],
+  },
 ];
 
 /**

@@ -7,7 +7,8 @@ import { publish } from '../../lib/live';
 import { recordAudit } from '../../lib/audit';
 import { convertReadingSet } from '../../lib/convert-readings';
 import { ValidationError, fieldErrorsFromZod } from '../../lib/errors';
-import { requireUnit } from '../plant/versions';
+import { requireUnit, unjudgedReason, versionStarts } from '../plant/versions';
+import { settingsForStation } from '../stations/settings';
 import { ReadingSet } from '../readings/model';
 import { checkTakenAt, storeReading } from '../readings/service';
 import { ImportMappingRow } from './model';
@@ -79,8 +80,9 @@ function buildReading(unitId: number, row: Record<string, string>, mapping: Impo
 export type ImportAnalysis = { reports: ImportRowReport[]; valid: ValidRow[]; counts: { rows: number; valid: number; invalid: number; duplicate: number } };
 
 export async function analyseImport(unitId: number, buffer: Buffer, mapping: ImportMapping): Promise<ImportAnalysis> {
-  await requireUnit(unitId);
+  const unit = await requireUnit(unitId);
   const { headers, rows } = parseCsv(buffer);
+  const [starts, { timeZone }] = await Promise.all([versionStarts(unitId), settingsForStation(unit.stationId)]);
   const missing = [mapping.timeColumn, ...Object.values(mapping.columns).map((c) => c!.column)].filter((c) => !headers.includes(c));
   if (missing.length) throw new ValidationError({ mapping: `The file has no column named ${missing.map((m) => `“${m}”`).join(', ')}` });
 
@@ -99,6 +101,9 @@ export async function analyseImport(unitId: number, buffer: Buffer, mapping: Imp
         if (error instanceof ValidationError) Object.assign(errors, error.fields);
         else throw error;
       }
+      // History from before the unit's first design data or limits has nothing to be judged by.
+      const unjudged = errors.time ? null : unjudgedReason(takenAt, starts, timeZone);
+      if (unjudged) errors.time = unjudged;
     }
     const built = buildReading(unitId, row, mapping);
     Object.assign(errors, built.errors);

@@ -2,6 +2,7 @@
 import { Op, type Sequelize, type Transaction } from 'sequelize';
 import type { LimitSet } from '../../../shared/calc/limits';
 import type { UnitDesign } from '../../../shared/schemas/plant';
+import { stationLocalLabel } from '../../../shared/shift-time';
 import { recordAudit } from '../../lib/audit';
 import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
@@ -26,6 +27,31 @@ export async function limitsInForce(unitId: number, at = new Date(), transaction
   const version = await LimitSetVersion.findOne({ ...inForce(unitId, at), transaction });
   if (!version) throw new NotFound('A limit set in force for that unit and time');
   return version;
+}
+
+export type VersionStarts = { design: Date | null; limits: Date | null };
+
+/** When a unit's first design data and first limit set came into force (null: none yet). */
+export async function versionStarts(unitId: number, transaction?: Transaction): Promise<VersionStarts> {
+  const [design, limits] = await Promise.all([
+    UnitDesignVersion.min<Date | null, UnitDesignVersion>('effectiveFrom', { where: { unitId }, transaction }),
+    LimitSetVersion.min<Date | null, LimitSetVersion>('effectiveFrom', { where: { unitId }, transaction }),
+  ]);
+  return { design: design ? new Date(design) : null, limits: limits ? new Date(limits) : null };
+}
+
+/**
+ * Why a reading taken at `at` cannot be judged, in the words a person reads beside the time (station
+ * time, labelled); null when design data and limits are both in force then. A reading from before the
+ * unit's first versions would otherwise be judged by nothing, or by data written for a later plant.
+ */
+export function unjudgedReason(at: Date, starts: VersionStarts, timeZone: string): string | null {
+  const when = (d: Date) => `${stationLocalLabel(d, timeZone)} (${timeZone})`;
+  const missing = (what: string, from: Date | null) => {
+    if (from && at.getTime() >= from.getTime()) return null;
+    return from ? `No ${what} in force at ${when(at)}; this unit’s first ${what} is in force from ${when(from)}` : `No ${what} in force at ${when(at)}; this unit has none yet`;
+  };
+  return missing('design data', starts.design) ?? missing('limit set', starts.limits);
 }
 
 export async function requireUnit(unitId: number): Promise<PlantUnit> {

@@ -9,7 +9,8 @@ import { unitOfWork } from '../../lib/unit-of-work';
 import { Conflict, Forbidden, NotFound, ValidationError } from '../../lib/errors';
 import { convertReadingSet } from '../../lib/convert-readings';
 import { refreshAutomaticFlags } from '../flags/automatic';
-import { requireUnit } from '../plant/versions';
+import { requireUnit, unjudgedReason, versionStarts } from '../plant/versions';
+import { settingsForStation } from '../stations/settings';
 import { User } from '../users/model';
 import { judgeAt, valueRows } from './evaluate-at';
 import { ReadingAmendment, ReadingCountersign, ReadingSet, ReadingValue, type ReadingSource } from './model';
@@ -32,6 +33,8 @@ export type StoreReading = {
   actor: Actor;
   source: ReadingSource;
   importKey: string | null;
+  /** When it was written down; now unless the record is older history (the demo scenario). */
+  recordedAt?: Date;
 };
 
 /** Stores one reading set with its derived values and automatic flags, inside `transaction`. */
@@ -41,7 +44,7 @@ export async function storeReading(r: StoreReading, transaction: Transaction): P
     {
       unitId: r.unitId,
       takenAt: r.takenAt,
-      recordedAt: new Date(),
+      recordedAt: r.recordedAt ?? new Date(),
       recordedBy: r.actor.id,
       recordedAsTrainee: r.actor.role === 'trainee',
       source: r.source,
@@ -69,10 +72,12 @@ async function names(ids: (number | null | undefined)[]): Promise<Map<number, st
 
 export function makeReadingService(sequelize: Sequelize) {
   async function record(actor: Actor, unitId: number, input: RecordReadingInput) {
-    await requireUnit(unitId);
+    const unit = await requireUnit(unitId);
     const { takenAt: takenAtText, ...readings } = input;
     const takenAt = takenAtText ? new Date(takenAtText) : new Date();
     checkTakenAt(takenAt);
+    const unjudged = unjudgedReason(takenAt, await versionStarts(unitId), (await settingsForStation(unit.stationId)).timeZone);
+    if (unjudged) throw new ValidationError({ takenAt: unjudged });
     const raw: ReadingSetInput = { ...readings, unitId };
     const si = convertReadingSet(raw);
     const { reading, flagsRaised } = await unitOfWork(sequelize, async (transaction) => {
