@@ -104,7 +104,7 @@ export function stationToday(timeZone: string, now: Date = new Date()): string {
 export type RepeatedTime = { first: Date; second: Date; taken: 'first' | 'second' };
 export type StationTimeParse = { ok: true; at: Date; repeated: RepeatedTime | null } | { ok: false; message: string };
 
-const pattern = /^(\d{4})-(\d{2})-(\d{2})[T ](\d{2}):(\d{2})(?::(\d{2})(?:\.\d{1,3})?)?$/;
+const pattern = /^(\d{4})-(\d{2})-(\d{2})[T ](\d{2}):(\d{2})(?::(\d{2})(?:\.(\d+))?)?$/;
 const datePattern = /^(\d{4})-(\d{2})-(\d{2})$/;
 
 function validWall(parts: number[]): Wall | null {
@@ -158,7 +158,9 @@ export function parseStationTime(text: string, timeZone: string, options: { repe
   if (!match) return { ok: false, message: 'Enter the date and time as yyyy-mm-dd hh:mm' };
   const wall = validWall(match.slice(1, 7).map((p) => (p === undefined ? 0 : Number(p))));
   if (!wall) return { ok: false, message: `${trimmed.slice(0, 10)} ${trimmed.slice(11, 16)} is not a valid date and time` };
-  const instants = instantsFor(wall, timeZone);
+  // A fraction of a second (historian exports) cannot change which offset applies; add it afterwards.
+  const millis = match[7] ? Math.floor(Number(`0.${match[7]}`) * 1000) : 0;
+  const instants = instantsFor(wall, timeZone).map((ms) => ms + millis);
   if (instants.length === 0) {
     const gap = gapAround(wall, timeZone);
     return {
