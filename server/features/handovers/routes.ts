@@ -92,6 +92,11 @@ export function handoverRoutes(sequelize: Sequelize, handovers: HandoverService)
     const stationId = parseId(req.params.stationId, 'stationId');
     const swap = parseInput(crewSwapSchema, req.body);
     if (!(await Crew.findOne({ where: { id: swap.crewId, stationId } }))) throw new ValidationError({ crewId: 'Unknown crew' });
+    // A swap at any other instant would match no shift and change nothing, silently.
+    const { timeZone, shiftChangeTimes } = await settingsForStation(stationId);
+    if (shiftStartFor(new Date(swap.shiftStart), timeZone, shiftChangeTimes).getTime() !== Date.parse(swap.shiftStart)) {
+      throw new ValidationError({ shiftStart: `Not the start of a shift at this station (shifts change at ${shiftChangeTimes.join(', ')} station time, ${timeZone})` });
+    }
     const created = await sequelize.transaction(async (transaction) => {
       const row = await CrewSwap.create({ stationId, shiftStart: new Date(swap.shiftStart), crewId: swap.crewId, reason: swap.reason, createdBy: req.user!.id, createdAt: new Date() }, { transaction });
       await recordAudit({ actorId: req.user!.id, action: 'station.crew_swap', entity: 'station', entityId: stationId, after: swap }, transaction);

@@ -1,11 +1,14 @@
 import { useEffect, useRef, useState } from 'react';
 import { RichTextEditor } from '../../../components/ui/rich-text-editor';
+import { useUnitZone } from '../../../components/station-time/use-station-zone';
+import { formatStationTime } from '../../../../shared/station-time';
 import { ApiError } from '../../../lib/api-client';
 import { saveNotes, type Board } from '../api/handover';
 
 /** Draft notes, saved a moment after typing stops; a clash with another writer keeps both texts. */
 export function HandoverNotes({ board, editable }: { board: Board; editable: boolean }) {
   const h = board.handover;
+  const timeZone = useUnitZone(h.unitId)?.timeZone;
   const version = useRef(h.notesVersion);
   const [html, setHtml] = useState(h.notesHtml);
   const [dirty, setDirty] = useState(false);
@@ -29,7 +32,7 @@ export function HandoverNotes({ board, editable }: { board: Board; editable: boo
         .then((r) => {
           version.current = r.version;
           setDirty(false);
-          setStatus(`Draft saved ${new Date().toLocaleTimeString()}`);
+          setStatus(timeZone ? `Draft saved ${formatStationTime(new Date(), timeZone, 'time-seconds')} (station time)` : 'Draft saved');
         })
         .catch((error: unknown) => {
           if (error instanceof ApiError && error.status === 409 && error.code === 'NOTES_CONFLICT') setConflict(error.message);
@@ -37,7 +40,7 @@ export function HandoverNotes({ board, editable }: { board: Board; editable: boo
         });
     }, 1200);
     return () => clearTimeout(timer);
-  }, [dirty, html, h.id, conflict]);
+  }, [dirty, html, h.id, conflict, timeZone]);
 
   if (!editable) {
     return <div className="order-body rounded-md border border-line bg-panel p-3" data-testid="handover-notes" dangerouslySetInnerHTML={{ __html: h.notesHtml || '<p><em>No notes.</em></p>' }} />;

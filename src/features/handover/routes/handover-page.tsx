@@ -1,7 +1,6 @@
 import { useState } from 'react';
 import { Link } from 'react-router';
-import { format } from 'date-fns';
-import { stationLocalLabel } from '../../../../shared/shift-time';
+import { formatStationTime } from '../../../../shared/station-time';
 import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-picker';
 import { Notice } from '../../../components/ui/notice';
 import { usePresence, useWatchUnit } from '../../../app/use-live-updates';
@@ -12,7 +11,7 @@ import { AddItemForm } from '../components/add-item-form';
 import { BoardItemCard } from '../components/board-item';
 import { HandoverNotes } from '../components/handover-notes';
 
-const stamp = (iso: string) => format(new Date(iso), 'yyyy-MM-dd HH:mm');
+const stamp = (iso: string, timeZone: string | undefined) => (timeZone ? formatStationTime(iso, timeZone) : '…');
 const statusWord = { draft: '✎ Draft — being written', submitted: '⇢ Submitted — incoming crew acknowledging', accepted: '✔ Accepted — turnover done' };
 
 export function HandoverPage() {
@@ -38,7 +37,7 @@ export function HandoverPage() {
           <h1 className="text-2xl font-bold">Shift handover</h1>
           <p className="text-muted">
             {unit ? `${unit.name} · ` : ''}
-            {change ? `${crewName(change.outgoingCrewId)} hands over to ${crewName(change.incomingCrewId)} at ${stationLocalLabel(new Date(change.handoverAt), change.timeZone)} (${change.timeZone})` : ''}
+            {change ? `${crewName(change.outgoingCrewId)} hands over to ${crewName(change.incomingCrewId)} at ${formatStationTime(change.handoverAt, change.timeZone)} (station time, ${change.timeZone})` : ''}
           </p>
         </div>
         <UnitPicker />
@@ -58,10 +57,10 @@ export function HandoverPage() {
         <>
           <div className="flex flex-wrap items-center gap-3 rounded-lg border border-line bg-panel p-3">
             <strong data-testid="handover-status">{statusWord[h.status]}</strong>
-            {h.submittedBy ? <span className="text-sm">Handed over by {h.submittedBy} at {stamp(h.submittedAt!)}</span> : null}
+            {h.submittedBy ? <span className="text-sm">Handed over by {h.submittedBy} at {stamp(h.submittedAt!, change?.timeZone)}</span> : null}
             {h.acceptedBy ? (
               <span className="text-sm font-bold" data-testid="turnover">
-                Accepted by {h.acceptedBy} at {stamp(h.acceptedAt!)} — turnover time
+                Accepted by {h.acceptedBy} at {stamp(h.acceptedAt!, change?.timeZone)} — turnover time
               </span>
             ) : null}
             <Link to={`/handover/${h.id}/print`} className="ml-auto text-sm underline">
@@ -106,7 +105,7 @@ export function HandoverPage() {
           ) : null}
           {board.amendments.filter((a) => a.itemId === null).map((a) => (
             <p key={a.id} className="border-l-4 border-accent pl-2 text-sm">
-              {a.text} <span className="text-muted">— amended by {a.author} at {stamp(a.at)}: {a.reason}</span>
+              {a.text} <span className="text-muted">— amended by {a.author} at {stamp(a.at, change?.timeZone)}: {a.reason}</span>
             </p>
           ))}
           {side === 'incoming' && me?.role === 'shift_lead' && h.status === 'submitted' ? (

@@ -1,20 +1,21 @@
 import { useParams } from 'react-router';
-import { format } from 'date-fns';
+import { formatStationTime } from '../../../../shared/station-time';
+import { useUnitZone } from '../../../components/station-time/use-station-zone';
 import { useHandover } from '../api/handover';
 import { kindLabels } from '../components/board-item';
-
-const stamp = (iso: string | null) => (iso ? format(new Date(iso), 'yyyy-MM-dd HH:mm') : '—');
 
 /** A clean page for the paper binder: notes, items with acknowledgements, both signatures and times. */
 export function HandoverPrintPage() {
   const board = useHandover(Number(useParams().id));
+  const zone = useUnitZone(board.data?.handover.unitId);
+  const stamp = (iso: string | null) => (iso && zone ? formatStationTime(iso, zone.timeZone) : '—');
   if (!board.data) return <p>{board.error ? board.error.message : 'Loading…'}</p>;
   const { handover: h, items, amendments } = board.data;
   return (
     <article className="print-sheet mx-auto max-w-3xl bg-white p-6 text-black">
       <h1 className="text-2xl font-bold">Shift handover</h1>
       <p>
-        Shift from {stamp(h.shiftStart)} · handover due {stamp(h.handoverAt)} · status {h.status}
+        Shift from {stamp(h.shiftStart)} · handover due {stamp(h.handoverAt)} · status {h.status} · times in station time ({zone?.timeZone ?? '…'})
       </p>
       <h2 className="mt-4 text-lg font-bold">Notes</h2>
       <div className="order-body" dangerouslySetInnerHTML={{ __html: h.notesHtml || '<p>(none)</p>' }} />

@@ -21,17 +21,19 @@ const csv = (times: string[]) => Buffer.from('Time,P,HW,In,Out\n' + times.map((t
 const upload = (agent: Agent, path: string, file: Buffer) => agent.post(path).set('X-CSRF-Token', agent.csrf).attach('file', file, 'export.csv').field('mapping', JSON.stringify(mapping));
 
 async function stationIn(timeZone: string) {
-  const made = await makeStation(0);
-  await StationSettingsRow.create({ stationId: made.station.id, ...defaultStationSettings, timeZone, updatedAt: new Date() });
-  return made.unit;
+  const made = await makeStation(1);
+  await StationSettingsRow.create({ stationId: made.station.id, ...defaultStationSettings, timeZone, shiftChangeTimes: ['06:00', '18:00'], updatedAt: new Date() });
+  return made;
 }
 
 let berlinUnit = 0;
+let chicago: Awaited<ReturnType<typeof stationIn>>;
 let chicagoUnit = 0;
 let operator: Agent;
 beforeAll(async () => {
-  berlinUnit = (await stationIn('Europe/Berlin')).id;
-  chicagoUnit = (await stationIn('America/Chicago')).id;
+  berlinUnit = (await stationIn('Europe/Berlin')).unit.id;
+  chicago = await stationIn('America/Chicago');
+  chicagoUnit = chicago.unit.id;
   operator = await signedInAgent(built, (await makeUser('operator')).email);
 });
 
@@ -82,5 +84,18 @@ describe('GET /api/plant/units', () => {
 
   it('answers 401 signed out', async () => {
     await (await anonymousAgent(built)).get('/api/plant/units').expect(401);
+  });
+});
+
+describe('POST /api/stations/:stationId/crew-swaps', () => {
+  it('takes a swap at a shift start on the station’s clock and refuses one at any other instant with 400 on the field', async () => {
+    const admin = await signedInAgent(built, (await makeUser('admin')).email);
+    const post = (shiftStart: string) =>
+      admin.post(`/api/stations/${chicago.station.id}/crew-swaps`).set('X-CSRF-Token', admin.csrf).send({ shiftStart, crewId: chicago.crews[0]!.id, reason: 'Crew on a course' });
+    // 06:00 CST on 2026-01-10 is 12:00 UTC; 06:00 UTC would be midnight in Chicago, no shift change there.
+    await post('2026-01-10T12:00:00Z').expect(201);
+    const refused = await post('2026-01-10T06:00:00Z').expect(400);
+    expect(refused.body.error.fields.shiftStart).toContain('Not the start of a shift at this station');
+    expect(refused.body.error.fields.shiftStart).toContain('America/Chicago');
   });
 });
