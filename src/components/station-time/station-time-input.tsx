@@ -63,11 +63,11 @@ export function StationTimeInput({ label, field, timeZone, error, className = ''
         aria-invalid={Boolean(problem)}
         aria-describedby={`${id}-zone${problem ? ` ${id}-error` : ''}`}
       />
-      <span id={`${id}-zone`} className="text-xs text-muted" data-testid="station-time-zone">
+      <span id={`${id}-zone`} className="text-xs font-normal text-muted" data-testid="station-time-zone">
         Station time — {zoneLabel(timeZone, parsed?.ok ? parsed.at : new Date())}
       </span>
       {note ? (
-        <span className="text-xs">
+        <span className="text-xs font-normal">
           ▲ {note}{' '}
           <button type="button" className="underline" onClick={() => field.setRepeated(other)}>
             Use the {other} one
