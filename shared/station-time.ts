@@ -12,6 +12,7 @@ const MINUTE = 60_000;
 const DAY = 86_400_000;
 const two = (n: number) => String(n).padStart(2, '0');
 
+/** Whether the runtime knows the IANA zone (what station settings accept). */
 export function isValidTimeZone(timeZone: string): boolean {
   try {
     new Intl.DateTimeFormat('en', { timeZone });
