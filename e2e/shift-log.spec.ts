@@ -1,4 +1,5 @@
 import { expect, test } from '@playwright/test';
+import { toStationInputValue } from '../shared/station-time';
 import { signIn } from './support';
 
 test('keyboard-only entries, one late, appear live in a second browser; the lead signs the review', async ({ browser }) => {
@@ -20,10 +21,9 @@ test('keyboard-only entries, one late, appear live in a second browser; the lead
   await expect(text).toHaveValue('');
   await expect(writer.getByText('Started 1-CWP-B after seal replacement; amps steady')).toBeVisible();
 
-  // A late entry: the event happened an hour ago.
-  const anHourAgo = new Date(Date.now() - 60 * 60_000);
-  const local = new Date(anHourAgo.getTime() - anHourAgo.getTimezoneOffset() * 60_000).toISOString().slice(0, 16);
-  await writer.getByLabel('Event time (empty = now)').fill(local);
+  // A late entry: the event happened an hour ago, typed on the station's clock.
+  const units = (await (await writer.request.get('/api/plant/units')).json()) as { units: { timeZone: string }[] };
+  await writer.getByLabel('Event time (empty = now)').fill(toStationInputValue(Date.now() - 60 * 60_000, units.units[0]!.timeZone));
   await text.focus();
   await writer.keyboard.type('Hotwell level alarm cleared itself at the time; noted late');
   await writer.keyboard.press('Enter');

@@ -101,7 +101,9 @@ test('an admin sets the shift clock and records a one-off crew swap', async ({ p
   await clock.getByRole('button', { name: 'Save' }).click();
   await expect(clock.getByText('Saved.')).toBeVisible();
   const swap = page.getByRole('form', { name: 'One-off swap' });
-  await swap.getByLabel('Shift starting (local time of this device)').fill('2027-01-10T06:00');
+  // 06:00 on the station's clock (Europe/Berlin, just saved) is a shift change.
+  await swap.getByLabel('Shift starting').fill('2027-01-10T06:00');
+  await expect(swap.getByTestId('station-time-zone')).toContainText('Station time — Europe/Berlin');
   await swap.getByLabel('Crew working it instead').selectOption({ label: 'Crew C' });
   await swap.getByLabel('Reason').fill('Crew A on training');
   await swap.getByRole('button', { name: 'Record swap' }).click();

@@ -41,9 +41,5 @@ export function recentShiftStarts(now: Date, timeZone: string, changeTimes: read
   return starts;
 }
 
-/** "2026-03-29 06:00" in the station's zone, for labels. */
-export function stationLocalLabel(at: Date, timeZone: string): string {
-  const d = new TZDate(at.getTime(), timeZone);
-  const two = (n: number) => String(n).padStart(2, '0');
-  return `${d.getFullYear()}-${two(d.getMonth() + 1)}-${two(d.getDate())} ${two(d.getHours())}:${two(d.getMinutes())}`;
-}
+// Kept here for the callers that import it with the shift helpers; the formatting lives in station-time.ts.
+export { stationLocalLabel } from './station-time';

@@ -1,18 +1,12 @@
 import { z } from 'zod';
+import { isValidTimeZone } from '../station-time';
 
 const key = z.string().regex(/^[a-z][a-z0-9_]{1,39}$/, 'Lower-case letters, digits and _');
 const label = z.string().trim().min(1).max(80);
 const time = z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$/, 'HH:mm');
 
 export const stationSettingsSchema = z.object({
-  timeZone: z.string().refine((tz) => {
-    try {
-      new Intl.DateTimeFormat('en', { timeZone: tz });
-      return true;
-    } catch {
-      return false;
-    }
-  }, 'Not a known IANA time zone (e.g. Europe/Berlin)'),
+  timeZone: z.string().refine(isValidTimeZone, 'Not a known IANA time zone (e.g. Europe/Berlin)'),
   lateEntryMinutes: z.number().int().min(1).max(24 * 60),
   shiftChangeTimes: z.array(time).min(1).max(6),
   positions: z.array(z.object({ key, label })).min(1).max(20),

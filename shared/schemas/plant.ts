@@ -45,3 +45,6 @@ export const limitSetSchema = z.partialRecord(z.enum(checkKeys as [CheckKey, ...
 
 export const newDesignVersionSchema = z.object({ design: unitDesignSchema, note: z.string().trim().min(3, 'Say what changed and why').max(500) });
 export const newLimitVersionSchema = z.object({ limits: limitSetSchema, note: z.string().trim().min(3, 'Say what changed and why').max(500) });
+
+/** A unit as pickers and pages list it, with its station's time zone (times are shown and typed in it). */
+export type UnitSummary = { id: number; code: string; name: string; stationId: number; station: string; timeZone: string };

@@ -6,7 +6,7 @@ import type { LiveEntity, LiveEvent } from '../../shared/live-events';
 import { crewKeys } from '../components/plant/crews';
 import { peopleKeys } from '../components/people/person-select';
 import { calcKeys } from '../components/readings/get-condenser-design';
-import { unitsQueryKey } from '../components/readings/unit-picker';
+import { unitKeys } from '../components/readings/unit-picker';
 import { userKeys } from '../features/admin-users/api/user-keys';
 import { auditKeys } from '../features/audit/api/audit-keys';
 import { flagKeys } from '../features/flags/api/flags';
@@ -34,9 +34,9 @@ export const liveKeys: Record<LiveEntity, (event: LiveEvent) => QueryKey[]> = {
   standing_order: () => [orderKeys.all, handoverKeys.all],
   handover: (e) => [...(e.unitId ? [handoverKeys.unit(e.unitId)] : []), handoverKeys.one(Number(e.id))],
   training: () => [trainingKeys.all],
-  plant: (e) => [unitsQueryKey, shiftCondenserKeys.all, ...(e.unitId ? [setupKeys.unit(e.unitId), calcKeys.design(e.unitId)] : [setupKeys.all, calcKeys.all])],
+  plant: (e) => [unitKeys.all, shiftCondenserKeys.all, ...(e.unitId ? [setupKeys.unit(e.unitId), calcKeys.design(e.unitId)] : [setupKeys.all, calcKeys.all])],
   people: () => [userKeys.all, peopleKeys.all, crewKeys.all, sessionKeys.me(), auditKeys.all, handoverKeys.all],
-  station_settings: () => [unitsQueryKey, logKeys.all, handoverKeys.all, shiftCondenserKeys.all],
+  station_settings: () => [unitKeys.all, logKeys.all, handoverKeys.all, shiftCondenserKeys.all],
   review_comment: () => [logbookKeys.all],
 };
 

@@ -49,7 +49,7 @@ export function importRoutes(imports: ImportService): Router {
   /** Step 2: every row checked against the mapping; nothing stored. */
   router.post('/units/:unitId/imports/preview', ...withFile, async (req, res) => {
     const analysis = await analyseImport(parseId(req.params.unitId, 'unitId'), fileOf(req), mappingOf(req.body));
-    res.json({ counts: analysis.counts, rows: analysis.reports.slice(0, 1000) });
+    res.json({ timeZone: analysis.timeZone, counts: analysis.counts, rows: analysis.reports.slice(0, 1000) });
   });
 
   /** Step 3: store the valid rows in one transaction and report the rest. */

@@ -9,6 +9,7 @@ import { convertReadingSet } from '../../lib/convert-readings';
 import { ValidationError, fieldErrorsFromZod } from '../../lib/errors';
 import { requireUnit, unjudgedReason, versionStarts } from '../plant/versions';
 import { settingsForStation } from '../stations/settings';
+import { parseStationTime } from '../../../shared/station-time';
 import { ReadingSet } from '../readings/model';
 import { checkTakenAt, storeReading } from '../readings/service';
 import { ImportMappingRow } from './model';
@@ -16,15 +17,30 @@ import { parseCsv } from './parse-csv';
 
 type ValidRow = { row: number; takenAt: Date; raw: ReadingSetInput; si: ReadingSetSi };
 
-/** ISO 8601 with or without an offset; without one the time is read as UTC (shown in the preview). */
-function parseTime(text: string | undefined): Date | null {
+type ParsedTime = { at: Date } | { error: string };
+const NOT_A_TIME = 'Not a date-time (use ISO 8601, e.g. 2026-03-01T14:00:00Z, or station time 2026-03-01 15:00)';
+
+/**
+ * ISO 8601 with an offset or Z keeps it. Without one the time is the station's wall clock. A historian that
+ * writes local times shows the hour the clocks go back twice, in order: the first row with such a time is
+ * read as its first occurrence and a later row with the same text as the second (`repeats` counts them).
+ */
+function parseTime(text: string | undefined, timeZone: string, repeats: Map<string, number>): ParsedTime | null {
   if (!text) return null;
   const trimmed = text.trim();
   const iso = /^\d{4}-\d{2}-\d{2}[T ]\d{2}:\d{2}(:\d{2}(\.\d+)?)?(Z|[+-]\d{2}:?\d{2})?$/;
-  if (!iso.test(trimmed)) return null;
-  const hasZone = /(Z|[+-]\d{2}:?\d{2})$/.test(trimmed);
-  const date = new Date(trimmed.replace(' ', 'T') + (hasZone ? '' : 'Z'));
-  return Number.isNaN(date.getTime()) ? null : date;
+  if (!iso.test(trimmed)) return { error: NOT_A_TIME };
+  if (/(Z|[+-]\d{2}:?\d{2})$/.test(trimmed)) {
+    const date = new Date(trimmed.replace(' ', 'T'));
+    return Number.isNaN(date.getTime()) ? { error: NOT_A_TIME } : { at: date };
+  }
+  const first = parseStationTime(trimmed, timeZone);
+  if (!first.ok) return { error: first.message };
+  if (!first.repeated) return { at: first.at };
+  const key = first.at.toISOString();
+  const seen = repeats.get(key) ?? 0;
+  repeats.set(key, seen + 1);
+  return { at: seen === 0 ? first.repeated.first : first.repeated.second };
 }
 
 function cell(row: Record<string, string>, column: string | undefined): string | undefined {
@@ -77,7 +93,13 @@ function buildReading(unitId: number, row: Record<string, string>, mapping: Impo
   return { raw: parsed.data, errors };
 }
 
-export type ImportAnalysis = { reports: ImportRowReport[]; valid: ValidRow[]; counts: { rows: number; valid: number; invalid: number; duplicate: number } };
+export type ImportAnalysis = {
+  reports: ImportRowReport[];
+  valid: ValidRow[];
+  counts: { rows: number; valid: number; invalid: number; duplicate: number };
+  /** The station's zone, in which times without an offset were read. */
+  timeZone: string;
+};
 
 export async function analyseImport(unitId: number, buffer: Buffer, mapping: ImportMapping): Promise<ImportAnalysis> {
   const unit = await requireUnit(unitId);
@@ -89,11 +111,13 @@ export async function analyseImport(unitId: number, buffer: Buffer, mapping: Imp
   const reports: ImportRowReport[] = [];
   const candidates: ValidRow[] = [];
   const seenInFile = new Set<string>();
+  const repeats = new Map<string, number>();
   rows.forEach((row, index) => {
     const rowNumber = index + 2; // line in the file, counting the header
-    const takenAt = parseTime(cell(row, mapping.timeColumn));
+    const time = parseTime(cell(row, mapping.timeColumn), timeZone, repeats);
+    const takenAt = time && 'at' in time ? time.at : null;
     const errors: Record<string, string> = {};
-    if (!takenAt) errors.time = 'Not a date-time (use ISO 8601, e.g. 2026-03-01T14:00:00Z)';
+    if (!takenAt) errors.time = time && 'error' in time ? time.error : NOT_A_TIME;
     else {
       try {
         checkTakenAt(takenAt, 'time');
@@ -146,7 +170,7 @@ export async function analyseImport(unitId: number, buffer: Buffer, mapping: Imp
     }
   }
   const count = (status: ImportRowReport['status']) => reports.filter((r) => r.status === status).length;
-  return { reports, valid, counts: { rows: rows.length, valid: count('valid'), invalid: count('invalid'), duplicate: count('duplicate') } };
+  return { reports, valid, counts: { rows: rows.length, valid: count('valid'), invalid: count('invalid'), duplicate: count('duplicate') }, timeZone };
 }
 
 export function makeImportService(sequelize: Sequelize) {
@@ -175,6 +199,7 @@ export function makeImportService(sequelize: Sequelize) {
       publish(transaction, { entity: 'import', id: unitId, unitId });
     });
     return {
+      timeZone: analysis.timeZone,
       imported: analysis.valid.length,
       flagsRaised,
       counts: analysis.counts,

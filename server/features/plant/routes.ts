@@ -7,7 +7,8 @@ import { publish } from '../../lib/live';
 import { ValidationError } from '../../lib/errors';
 import { parseId, parseInput } from '../../lib/validate';
 import { User } from '../users/model';
-import { Crew, Equipment, LimitSetVersion, PlantUnit, Station, UnitDesignVersion } from './model';
+import { Crew, Equipment, LimitSetVersion, UnitDesignVersion } from './model';
+import { listUnits } from './unit-list';
 import { designInForce, limitsInForce, requireUnit, type VersionService } from './versions';
 import type { Sequelize } from 'sequelize';
 import { UniqueConstraintError } from 'sequelize';
@@ -29,9 +30,7 @@ export function plantRoutes(sequelize: Sequelize, versions: VersionService): Rou
   });
 
   router.get('/units', async (_req, res) => {
-    const [units, stations] = await Promise.all([PlantUnit.findAll({ order: [['code', 'ASC']] }), Station.findAll()]);
-    const stationNames = new Map(stations.map((s) => [s.id, s.name]));
-    res.json({ units: units.map((u) => ({ id: u.id, code: u.code, name: u.name, stationId: u.stationId, station: stationNames.get(u.stationId) ?? '' })) });
+    res.json({ units: await listUnits() });
   });
 
   router.get('/people', async (_req, res) => {

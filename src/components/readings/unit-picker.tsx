@@ -1,11 +1,14 @@
 import { useSearchParams } from 'react-router';
-import { useQuery } from '@tanstack/react-query';
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { UnitSummary } from '../../../shared/schemas/plant';
 import { api } from '../../lib/api-client';
 
-export type UnitSummary = { id: number; code: string; name: string; stationId: number; station: string };
-export const unitsQueryKey = ['plant', 'units'] as const;
-export const useUnitList = () =>
-  useQuery({ queryKey: unitsQueryKey, queryFn: async () => (await api.get<{ units: UnitSummary[] }>('/api/plant/units')).units, staleTime: 5 * 60_000 });
+export type { UnitSummary };
+/** Units with their stations and station time zones: stale when plant or station settings change. */
+export const unitKeys = { all: ['plant', 'units'] as const };
+export const unitsQueryOptions = () =>
+  queryOptions({ queryKey: unitKeys.all, queryFn: async () => (await api.get<{ units: UnitSummary[] }>('/api/plant/units')).units, staleTime: 5 * 60_000 });
+export const useUnitList = () => useQuery(unitsQueryOptions());
 
 const REMEMBERED = 'hotwell.unit';
 /** The unit this browser last chose, so a page opened without ?unit= starts there, not on the first unit. */

@@ -1,23 +1,29 @@
-import { format } from 'date-fns';
+import { formatStationTime } from '../../../../shared/station-time';
+import { useHomeZone } from '../../../components/station-time/use-station-zone';
+import { ZoneNote } from '../../../components/station-time/zone-note';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { useAuditEvents } from '../api/get-audit-events';
+import { useMe } from '../../session/api/get-me';
 
 const show = (value: unknown) => (value == null ? '—' : JSON.stringify(value));
 
 export function AuditPage() {
   const events = useAuditEvents();
   const rows = events.data?.pages.flat() ?? [];
+  // The trail spans the whole installation; its times are read on the person's station's clock.
+  const zone = useHomeZone(useMe().data?.crewId);
   return (
     <section className="flex flex-col gap-4">
       <h1 className="text-2xl font-bold">Audit trail</h1>
       <p className="text-muted">Every change to people and settings, newest first. Nothing here can be edited.</p>
+      <ZoneNote zone={zone} basis={zone?.basis} />
       {events.error ? <Notice kind="error">{events.error.message}</Notice> : null}
       <div className="overflow-x-auto rounded-lg border border-line bg-panel p-4">
         <table className="w-full text-left text-sm">
           <thead>
             <tr className="text-muted">
-              <th className="pb-2">When (local time)</th>
+              <th className="pb-2">When (station time)</th>
               <th className="pb-2">Who</th>
               <th className="pb-2">What</th>
               <th className="pb-2">Record</th>
@@ -28,7 +34,7 @@ export function AuditPage() {
           <tbody>
             {rows.map((e) => (
               <tr key={e.id} className="border-t border-line align-top">
-                <td className="py-1 pr-3 reading whitespace-nowrap">{format(new Date(e.at), 'yyyy-MM-dd HH:mm:ss')}</td>
+                <td className="py-1 pr-3 reading whitespace-nowrap">{zone ? formatStationTime(e.at, zone.timeZone, 'datetime-seconds') : '…'}</td>
                 <td className="py-1 pr-3">{e.actor}</td>
                 <td className="py-1 pr-3 font-bold">{e.action}</td>
                 <td className="py-1 pr-3">

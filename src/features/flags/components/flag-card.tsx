@@ -1,15 +1,14 @@
 import { useState } from 'react';
-import { format } from 'date-fns';
 import { Link } from 'react-router';
 import { defaultDisplayPreferences, displayQuantity } from '../../../../shared/display';
+import { formatStationTime } from '../../../../shared/station-time';
 import { StatusBadge } from '../../../components/ui/status-badge';
 import { Notice } from '../../../components/ui/notice';
 import { useFlagAction, type FlagView } from '../api/flags';
 import { PersonSelect } from '../../../components/people/person-select';
 
-const stamp = (iso: string) => format(new Date(iso), 'yyyy-MM-dd HH:mm');
-
-export function FlagCard({ flag, mayLead }: { flag: FlagView; mayLead: boolean }) {
+export function FlagCard({ flag, mayLead, timeZone }: { flag: FlagView; mayLead: boolean; timeZone: string }) {
+  const stamp = (iso: string) => formatStationTime(iso, timeZone);
   const action = useFlagAction();
   const [mode, setMode] = useState<'none' | 'assign' | 'clear'>('none');
   const [text, setText] = useState('');

@@ -3,6 +3,8 @@ import { checkCatalog, checkKeys } from '../../../../shared/calc/check-catalog';
 import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-picker';
 import { CautionNote, Notice } from '../../../components/ui/notice';
 import { FilterSelect } from '../../../components/ui/filter-select';
+import { ZoneNote } from '../../../components/station-time/zone-note';
+import { stationDayStart } from '../../../../shared/station-time';
 import { useMe } from '../../session/api/get-me';
 import { useFlags, type FlagFilters } from '../api/flags';
 import { FlagCard } from '../components/flag-card';
@@ -24,12 +26,15 @@ export function FlagsPage() {
   const flags = useFlags(unitId, filters);
   const mayLead = me?.role === 'shift_lead' || me?.role === 'admin';
   const set = (patch: Partial<FlagFilters>) => setFilters((f) => ({ ...f, ...patch }));
+  // A station day runs from its midnight to the next (23 or 25 hours on clock-change days).
+  const dayStart = (date: string, addDays = 0) => (date && unit ? stationDayStart(date, unit.timeZone, addDays)?.toISOString() : undefined);
   return (
     <section className="flex flex-col gap-4">
       <div className="flex flex-wrap items-end gap-4">
         <div>
           <h1 className="text-2xl font-bold">Flags</h1>
           <p className="text-muted">{unit ? `${unit.name} · ` : ''}readings and checks outside their limits, and those a shift lead has flagged.</p>
+          <ZoneNote zone={unit} />
         </div>
         <UnitPicker />
       </div>
@@ -50,24 +55,22 @@ export function FlagsPage() {
         <FilterSelect label="Severity" anyLabel="Any" value={filters.severity} options={severityOptions} onChange={(v) => set({ severity: v })} />
         <FilterSelect label="Parameter" anyLabel="Any" value={filters.parameter} options={parameterOptions} onChange={(v) => set({ parameter: v })} />
         <label className="flex flex-col">
-          Raised from
-          <input type="date" className={selectClass} onChange={(e) => set({ from: e.target.value ? new Date(e.target.value).toISOString() : undefined })} />
+          Raised from (station day)
+          <input type="date" className={selectClass} onChange={(e) => set({ from: dayStart(e.target.value) })} />
         </label>
         <label className="flex flex-col">
-          Raised to
-          <input
-            type="date"
-            className={selectClass}
-            onChange={(e) => set({ to: e.target.value ? new Date(new Date(e.target.value).getTime() + 86_400_000).toISOString() : undefined })}
-          />
+          Raised to (station day)
+          <input type="date" className={selectClass} onChange={(e) => set({ to: dayStart(e.target.value, 1) })} />
         </label>
       </fieldset>
       {flags.error ? <Notice kind="error">{flags.error.message}</Notice> : null}
       {flags.data && flags.data.length === 0 ? <Notice kind="info">No flags match.</Notice> : null}
       <div className="flex flex-col gap-3">
-        {flags.data?.map((flag) => (
-          <FlagCard key={flag.id} flag={flag} mayLead={mayLead} />
-        ))}
+        {unit
+          ? flags.data?.map((flag) => (
+              <FlagCard key={flag.id} flag={flag} mayLead={mayLead} timeZone={unit.timeZone} />
+            ))
+          : null}
       </div>
     </section>
   );

@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { Link } from 'react-router';
 import { mayAccept, mayAcknowledge, mayWriteHandover, withinWindow } from '../../../../shared/policies/handover';
-import { stationLocalLabel } from '../../../../shared/shift-time';
+import { formatStationTime } from '../../../../shared/station-time';
 import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-picker';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
@@ -32,7 +32,7 @@ export function HandoverPage() {
   const board = current.data?.board;
   const h = board?.handover;
   const zone = change?.timeZone ?? 'UTC';
-  const stationTime = (iso: string) => stationLocalLabel(new Date(iso), zone);
+  const stationTime = (iso: string) => formatStationTime(iso, zone);
   const actor = me ? { id: me.id, role: me.role, crewId: me.crewId } : null;
   const may = {
     write: Boolean(actor && h && mayWriteHandover(actor, h)),

@@ -6,8 +6,9 @@ import { invalidateForChange } from '../../../app/live-keys';
 export const importKeys = { all: ['imports'] as const, mappings: (unitId: number) => [...importKeys.all, 'mappings', unitId] as const };
 
 export type Inspection = { headers: string[]; sample: Record<string, string>[]; rowCount: number };
-export type Preview = { counts: { rows: number; valid: number; invalid: number; duplicate: number }; rows: ImportRowReport[] };
-export type ImportResult = { imported: number; flagsRaised: number; counts: Preview['counts']; problems: ImportRowReport[] };
+/** `timeZone`: the station zone in which times without an offset were read. */
+export type Preview = { timeZone: string; counts: { rows: number; valid: number; invalid: number; duplicate: number }; rows: ImportRowReport[] };
+export type ImportResult = { timeZone: string; imported: number; flagsRaised: number; counts: Preview['counts']; problems: ImportRowReport[] };
 
 const form = (file: File, mapping?: ImportMapping) => {
   const data = new FormData();

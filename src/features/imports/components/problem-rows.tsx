@@ -1,6 +1,7 @@
 import type { ImportRowReport } from '../../../../shared/schemas/imports';
+import { formatStationTime } from '../../../../shared/station-time';
 
-export function ProblemRows({ rows }: { rows: ImportRowReport[] }) {
+export function ProblemRows({ rows, timeZone }: { rows: ImportRowReport[]; timeZone: string }) {
   const problems = rows.filter((r) => r.status !== 'valid');
   if (!problems.length) return null;
   return (
@@ -10,7 +11,7 @@ export function ProblemRows({ rows }: { rows: ImportRowReport[] }) {
         <thead>
           <tr className="text-muted">
             <th>Line</th>
-            <th>Time</th>
+            <th>Time (station time, {timeZone})</th>
             <th>Why</th>
           </tr>
         </thead>
@@ -18,7 +19,7 @@ export function ProblemRows({ rows }: { rows: ImportRowReport[] }) {
           {problems.map((r) => (
             <tr key={r.row} className="border-t border-line align-top">
               <td className="reading pr-2">{r.row}</td>
-              <td className="reading pr-2">{r.takenAt ?? '—'}</td>
+              <td className="reading pr-2">{r.takenAt ? formatStationTime(r.takenAt, timeZone, 'datetime-seconds') : '—'}</td>
               <td>
                 {r.status === 'duplicate' ? '⧉ ' : '⚠ '}
                 {Object.entries(r.errors)

@@ -80,7 +80,7 @@ export function ImportPage() {
               <input className={selectClass} value={mapping.source} onChange={(e) => setMapping({ ...mapping, source: e.target.value })} />
             </label>
             <label className="flex flex-col text-sm">
-              Time column (ISO 8601; without an offset read as UTC)
+              Time column (ISO 8601; without an offset read as station time{unit ? `, ${unit.timeZone}` : ''})
               <select className={selectClass} value={mapping.timeColumn} onChange={(e) => setMapping({ ...mapping, timeColumn: e.target.value })}>
                 <option value="">Choose…</option>
                 {headers.map((h) => (
@@ -135,10 +135,11 @@ export function ImportPage() {
       {preview.data ? (
         <div className="flex flex-col gap-3">
           <Notice kind="info">
+            <span data-testid="import-time-zone">Times without an offset are read as station time ({preview.data.timeZone}); times with an offset or Z keep it.</span>{' '}
             {preview.data.counts.valid} rows ready to import · {preview.data.counts.invalid} with problems · {preview.data.counts.duplicate} already imported or
             repeated.
           </Notice>
-          <ProblemRows rows={preview.data.rows} />
+          <ProblemRows rows={preview.data.rows} timeZone={preview.data.timeZone} />
           <Button disabled={!preview.data.counts.valid || commit.isPending || commit.isSuccess} onClick={() => file && commit.mutate({ file, mapping })}>
             4 · Import {preview.data.counts.valid} rows
           </Button>

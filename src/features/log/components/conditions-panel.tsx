@@ -98,7 +98,7 @@ export function ConditionsPanel({ unitId, position, mayHandle }: { unitId: numbe
             <Countdown condition={c} />
           </div>
           <p className="text-sm">
-            {c.requiredAction} · deadline {c.limitLocal} ({c.timeZone}) · owner {c.owner}
+            {c.requiredAction} · deadline {c.limitLocal} (station time, {c.timeZone}) · owner {c.owner}
           </p>
           {mayHandle ? <CloseForm condition={c} position={position} /> : null}
         </article>

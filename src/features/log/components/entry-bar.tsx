@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import type { StationSettings } from '../../../../shared/schemas/log';
 import { ApiError } from '../../../lib/api-client';
+import { StationTimeInput, readStationTime, useStationTimeField } from '../../../components/station-time/station-time-input';
 import { useAddEntry, useEquipment } from '../api/log';
 
 const field = 'rounded-md border border-line bg-field px-2 py-1';
@@ -11,27 +12,28 @@ export function EntryBar({ unitId, settings, position }: { unitId: number; setti
   const equipment = useEquipment(unitId);
   const [text, setText] = useState('');
   const [category, setCategory] = useState(settings.categories[0]?.key ?? 'other');
-  const [eventAt, setEventAt] = useState('');
+  const eventAt = useStationTimeField();
   const [equipmentId, setEquipmentId] = useState('');
   const [carry, setCarry] = useState(false);
   const fields = add.error instanceof ApiError ? add.error.fields : {};
   const tag = equipment.data?.find((e) => String(e.id) === equipmentId)?.tag;
 
   const submit = () => {
-    if (!text.trim()) return;
+    const typed = readStationTime(eventAt, settings.timeZone);
+    if (!text.trim() || !typed.ok) return;
     add.mutate(
       {
         position,
         category,
         text: text.trim(),
-        ...(eventAt ? { eventAt: new Date(eventAt).toISOString() } : {}),
+        ...(typed.at ? { eventAt: typed.at.toISOString() } : {}),
         equipmentId: equipmentId ? Number(equipmentId) : null,
         carryToHandover: carry,
       },
       {
         onSuccess: () => {
           setText('');
-          setEventAt('');
+          eventAt.reset();
           setCarry(false);
         },
       },
@@ -60,7 +62,7 @@ export function EntryBar({ unitId, settings, position }: { unitId: number; setti
           Log it
         </button>
       </div>
-      <div className="flex flex-wrap items-end gap-2 text-sm">
+      <div className="flex flex-wrap items-start gap-2 text-sm">
         <label className="flex flex-col">
           Category
           <select className={field} value={category} onChange={(e) => setCategory(e.target.value)}>
@@ -71,10 +73,7 @@ export function EntryBar({ unitId, settings, position }: { unitId: number; setti
             ))}
           </select>
         </label>
-        <label className="flex flex-col">
-          Event time (empty = now)
-          <input type="datetime-local" className={field} value={eventAt} onChange={(e) => setEventAt(e.target.value)} />
-        </label>
+        <StationTimeInput label="Event time (empty = now)" field={eventAt} timeZone={settings.timeZone} error={fields.eventAt} />
         <label className="flex flex-col">
           Equipment
           <select className={field} value={equipmentId} onChange={(e) => setEquipmentId(e.target.value)}>

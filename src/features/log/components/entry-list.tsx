@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import type { StationSettings } from '../../../../shared/schemas/log';
-import { stationLocalLabel } from '../../../../shared/shift-time';
+import { formatStationTime } from '../../../../shared/station-time';
 import { useAmendEntry, type LogEntryView } from '../api/log';
 
 function AmendInline({ entry, onDone }: { entry: LogEntryView; onDone: () => void }) {
@@ -34,7 +34,7 @@ function AmendInline({ entry, onDone }: { entry: LogEntryView; onDone: () => voi
 export function EntryList({ entries, settings, mayAmend }: { entries: LogEntryView[]; settings: StationSettings; mayAmend: boolean }) {
   const [amending, setAmending] = useState<number | null>(null);
   const label = (list: { key: string; label: string }[], key: string) => list.find((i) => i.key === key)?.label ?? key;
-  const local = (iso: string) => stationLocalLabel(new Date(iso), settings.timeZone);
+  const local = (iso: string) => formatStationTime(iso, settings.timeZone);
   if (!entries.length) return <p className="text-muted">No entries match.</p>;
   return (
     <ol className="flex flex-col gap-2" aria-label="Log entries">

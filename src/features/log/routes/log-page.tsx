@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-picker';
 import { Notice } from '../../../components/ui/notice';
+import { ZoneNote } from '../../../components/station-time/zone-note';
 import { FilterSelect, keyedOptions } from '../../../components/ui/filter-select';
 import { useWatchUnit } from '../../../app/use-live-updates';
 import { useMe } from '../../session/api/get-me';
@@ -34,6 +35,7 @@ export function LogPage() {
         <div>
           <h1 className="text-2xl font-bold">Shift log</h1>
           <p className="text-muted">{unit ? `${unit.name} · ` : ''}a running record of what changed and why. Entries are never changed or removed; corrections are amendments.</p>
+          {settings && unit ? <ZoneNote zone={{ timeZone: settings.timeZone, station: unit.station }} /> : null}
         </div>
         <UnitPicker />
       </div>
@@ -85,7 +87,7 @@ export function LogPage() {
             <section aria-label="End-of-shift review" className="rounded-lg border border-line bg-panel p-3 text-sm">
               <h2 className="font-bold">End-of-shift review</h2>
               <p>
-                Shift from {shifts.data?.shifts.find((s) => s.start === reviewShift)?.label} ({settings.timeZone}),{' '}
+                Shift from {shifts.data?.shifts.find((s) => s.start === reviewShift)?.label} (station time, {settings.timeZone}),{' '}
                 {settings.positions.find((p) => p.key === reviewPosition)?.label}.
               </p>
               {signed ? (

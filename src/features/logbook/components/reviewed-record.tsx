@@ -1,13 +1,13 @@
 import { useState, type ReactNode } from 'react';
-import { format } from 'date-fns';
 import { Notice } from '../../../components/ui/notice';
 import { ApiError } from '../../../lib/api-client';
+import { formatStationTime } from '../../../../shared/station-time';
 import { useAddReviewComment, type ReviewCommentView } from '../api/logbook';
 
-type Props = { documentId: number | undefined; comments: ReviewCommentView[]; mayComment: boolean; children: ReactNode; label: string };
+type Props = { documentId: number | undefined; comments: ReviewCommentView[]; mayComment: boolean; children: ReactNode; label: string; timeZone: string };
 
 /** One past record with the review comments on it and, for trainers, a way to add one. */
-export function ReviewedRecord({ documentId, comments, mayComment, children, label }: Props) {
+export function ReviewedRecord({ documentId, comments, mayComment, children, label, timeZone }: Props) {
   const mine = comments.filter((c) => c.documentId === documentId);
   const [open, setOpen] = useState(false);
   const [body, setBody] = useState('');
@@ -20,7 +20,7 @@ export function ReviewedRecord({ documentId, comments, mayComment, children, lab
         <ul className="mt-2 flex flex-col gap-1 border-l-4 border-accent pl-3" aria-label="Review comments">
           {mine.map((c) => (
             <li key={c.id} className="text-sm" data-testid="review-comment">
-              <strong>Review — {c.author}</strong> <span className="text-muted">{format(new Date(c.createdAt), 'yyyy-MM-dd HH:mm')}</span>
+              <strong>Review — {c.author}</strong> <span className="text-muted">{formatStationTime(c.createdAt, timeZone)}</span>
               <p>{c.body}</p>
             </li>
           ))}

@@ -1,12 +1,14 @@
 import { useState, type FormEvent } from 'react';
 import { Link, useSearchParams } from 'react-router';
-import { format } from 'date-fns';
 import { documentKindLabels } from '../../../../shared/schemas/logbook';
 import { useUnitList } from '../../../components/readings/unit-picker';
 import { useCrews } from '../../../components/plant/crews';
 import { usePeople } from '../../../components/people/person-select';
 import { FilterSelect } from '../../../components/ui/filter-select';
 import { Notice } from '../../../components/ui/notice';
+import { useStationZone, useUnitZone, useZoneOfUnit } from '../../../components/station-time/use-station-zone';
+import { formatStationTime } from '../../../../shared/station-time';
+import { useMe } from '../../session/api/get-me';
 import { ApiError } from '../../../lib/api-client';
 import { searchParams, shiftLink, useLogbookSearch, type SearchFilters } from '../api/logbook';
 import { MyReviewComments } from '../components/my-review-comments';
@@ -45,6 +47,11 @@ export function LogbookPage() {
   const fieldErrors = results.error instanceof ApiError ? results.error.fields : {};
   const fallbackUnit = filters.unitId ? Number(filters.unitId) : (units.data?.[0]?.id ?? null);
   const pages = results.data ? Math.max(1, Math.ceil(results.data.total / results.data.pageSize)) : 1;
+  // The server reads the date filters as days of the chosen unit's station, or of the first station.
+  const unitZone = useUnitZone(filters.unitId ? Number(filters.unitId) : null);
+  const firstZone = useStationZone(null);
+  const dayZone = filters.unitId ? unitZone : firstZone;
+  const zoneOf = useZoneOfUnit(useMe().data?.crewId);
 
   const submit = (e: FormEvent) => {
     e.preventDefault();
@@ -74,11 +81,11 @@ export function LogbookPage() {
           <FilterSelect label="Record" anyLabel="Any record" value={filters.kind} options={kindOptions} onChange={(v) => update({ kind: v })} />
           <FilterSelect label="Severity" anyLabel="Any" value={filters.severity} options={severityOptions} onChange={(v) => update({ severity: v })} />
           <label className="flex flex-col">
-            From (station day)
+            From (station day{dayZone ? `, ${dayZone.timeZone}` : ''})
             <input type="date" className={inputClass} value={filters.from ?? ''} onChange={(e) => update({ from: e.target.value || undefined })} />
           </label>
           <label className="flex flex-col">
-            To (station day)
+            To (station day{dayZone ? `, ${dayZone.timeZone}` : ''})
             <input type="date" className={inputClass} value={filters.to ?? ''} onChange={(e) => update({ to: e.target.value || undefined })} />
             {fieldErrors.to ? <span role="alert" className="text-alarm">⚠ {fieldErrors.to}</span> : null}
           </label>
@@ -109,7 +116,7 @@ export function LogbookPage() {
                     {hit.exactPhrase ? <span className="text-xs font-bold text-accent">exact phrase</span> : null}
                     {hit.severity ? <span className="text-xs font-bold">{hit.kind === 'handover_item' ? 'priority' : 'severity'}: {hit.severity}</span> : null}
                     <span className="text-muted">
-                      {format(new Date(hit.occurredAt), 'yyyy-MM-dd HH:mm')} · {hit.unitName ?? 'whole station'}
+                      {zoneOf ? `${formatStationTime(hit.occurredAt, zoneOf(hit.unitId))} station time` : '…'} · {hit.unitName ?? 'whole station'}
                       {hit.crewName ? ` · crew ${hit.crewName}` : ''}
                       {hit.personName ? ` · ${hit.personName}` : ''}
                     </span>

@@ -1,9 +1,9 @@
 import { useEffect } from 'react';
 import { Link, useLocation, useParams } from 'react-router';
-import { format } from 'date-fns';
 import type { CheckKey } from '../../../../shared/calc/check-catalog';
 import type { Status } from '../../../../shared/calc/limits';
 import { defaultDisplayPreferences, displayQuantity } from '../../../../shared/display';
+import { formatStationTime } from '../../../../shared/station-time';
 import { CautionNote, Notice } from '../../../components/ui/notice';
 import { StatusBadge } from '../../../components/ui/status-badge';
 import { useMe } from '../../session/api/get-me';
@@ -11,7 +11,6 @@ import { usePastShift, type PastShift } from '../api/logbook';
 import { ReviewedRecord } from '../components/reviewed-record';
 import { HandedOverCondenser, ItemAttachments } from '../components/handover-record-extras';
 
-const stamp = (iso: string) => format(new Date(iso), 'yyyy-MM-dd HH:mm');
 // The checks shown for each round; the full set is on the round's own page.
 const roundColumns: CheckKey[] = ['backpressure', 'expectedBackpressure', 'subcooling', 'ttd', 'cwRise', 'cleanlinessFactor', 'towerApproach'];
 
@@ -30,10 +29,12 @@ type HandoverProps = {
   comments: PastShift['comments'];
   mayComment: boolean;
   practice: ((itemId: number) => React.ReactNode) | null;
+  timeZone: string;
 };
 
-function Handover({ title, board, doc, comments, mayComment, practice }: HandoverProps) {
+function Handover({ title, board, doc, comments, mayComment, practice, timeZone }: HandoverProps) {
   const h = board.handover;
+  const stamp = (iso: string) => formatStationTime(iso, timeZone);
   return (
     <section aria-label={title} className="flex flex-col gap-2">
       <h2 className="text-xl font-bold">{title}</h2>
@@ -42,12 +43,12 @@ function Handover({ title, board, doc, comments, mayComment, practice }: Handove
         {h.submittedAt ? ` · submitted by ${h.submittedBy} at ${stamp(h.submittedAt)}` : ''}
         {h.acceptedAt ? ` · turnover accepted by ${h.acceptedBy} at ${stamp(h.acceptedAt)}` : ' · not accepted'}
       </p>
-      <ReviewedRecord label="Handover notes" documentId={doc('handover_notes', h.id)} comments={comments} mayComment={mayComment}>
+      <ReviewedRecord label="Handover notes" documentId={doc('handover_notes', h.id)} comments={comments} mayComment={mayComment} timeZone={timeZone}>
         <div className="order-body" dangerouslySetInnerHTML={{ __html: h.notesHtml || '<p><em>No notes.</em></p>' }} />
       </ReviewedRecord>
       <HandedOverCondenser board={board} />
       {board.items.map((item) => (
-        <ReviewedRecord key={item.id} label={`Handover item ${item.title}`} documentId={doc('handover_item', item.id)} comments={comments} mayComment={mayComment}>
+        <ReviewedRecord key={item.id} label={`Handover item ${item.title}`} documentId={doc('handover_item', item.id)} comments={comments} mayComment={mayComment} timeZone={timeZone}>
           <p className="font-bold">
             {item.title} <span className="text-xs font-normal">({item.kind.replace(/_/g, ' ')}, {item.priority} priority{item.reference ? `, ref. ${item.reference}` : ''})</span>
           </p>
@@ -63,7 +64,7 @@ function Handover({ title, board, doc, comments, mayComment, practice }: Handove
         </ReviewedRecord>
       ))}
       {board.amendments.map((a) => (
-        <ReviewedRecord key={a.id} label="Handover amendment" documentId={doc('handover_amendment', a.id)} comments={comments} mayComment={mayComment}>
+        <ReviewedRecord key={a.id} label="Handover amendment" documentId={doc('handover_amendment', a.id)} comments={comments} mayComment={mayComment} timeZone={timeZone}>
           <p className="text-sm">
             Amendment by {a.author} at {stamp(a.at)} — <em>{a.reason}</em>: {a.text}
           </p>
@@ -101,9 +102,10 @@ export function PastShiftPage() {
   if (shift.error) return <Notice kind="error">{shift.error.message}</Notice>;
   if (!shift.data) return <p>Loading the shift…</p>;
   const s = shift.data;
+  const stamp = (iso: string) => formatStationTime(iso, s.shift.timeZone);
   const docs = new Map(s.documents.map((d) => [`${d.kind}:${d.refId}`, d.id]));
   const doc = (kind: string, id: number) => docs.get(`${kind}:${id}`);
-  const common = { comments: s.comments, mayComment };
+  const common = { comments: s.comments, mayComment, timeZone: s.shift.timeZone };
   const isTrainee = me?.role === 'trainee';
   const practice = isTrainee ? (itemId: number) => <PracticeLink unitId={s.unit.id} shiftStart={s.shift.start} what={{ handoverItemId: itemId }} /> : null;
   return (
@@ -116,7 +118,7 @@ export function PastShiftPage() {
           {s.unit.name}: shift {s.shift.startLocal} – {s.shift.endLocal}
         </h1>
         <p className="text-muted">
-          {s.shift.crew ? `Crew ${s.shift.crew.name} on shift` : 'No crew rotation recorded'} · station time ({s.shift.timeZone}) · read-only record
+          {s.shift.crew ? `Crew ${s.shift.crew.name} on shift` : 'No crew rotation recorded'} · times in station time ({s.shift.timeZone}) · read-only record
           {s.shift.inProgress ? ' · this shift is still in progress' : ''}
         </p>
         {isTrainee ? <PracticeLink unitId={s.unit.id} shiftStart={s.shift.start} /> : null}

@@ -3,17 +3,18 @@ import { RichTextEditor } from '../../../components/ui/rich-text-editor';
 import { Notice } from '../../../components/ui/notice';
 import { ApiError } from '../../../lib/api-client';
 import { useCrews } from '../../../components/plant/crews';
+import { StationTimeInput, readStationTime, useStationTimeField } from '../../../components/station-time/station-time-input';
 import { useIssueOrder } from '../api/orders';
 
 const field = 'rounded-md border border-line bg-field px-2 py-1';
 
-export function IssueOrderForm({ positions }: { positions: { key: string; label: string }[] }) {
+export function IssueOrderForm({ positions, timeZone }: { positions: { key: string; label: string }[]; timeZone: string }) {
   const issue = useIssueOrder();
   const crews = useCrews();
   const [title, setTitle] = useState('');
   const [body, setBody] = useState('');
-  const [from, setFrom] = useState('');
-  const [to, setTo] = useState('');
+  const from = useStationTimeField();
+  const to = useStationTimeField();
   const [crewIds, setCrewIds] = useState<number[]>([]);
   const [scopePositions, setScopePositions] = useState<string[]>([]);
   const [formKey, setFormKey] = useState(0);
@@ -27,12 +28,15 @@ export function IssueOrderForm({ positions }: { positions: { key: string; label:
       className="flex flex-col gap-3 rounded-lg border border-line bg-panel p-3"
       onSubmit={(e) => {
         e.preventDefault();
+        const start = readStationTime(from, timeZone);
+        const end = readStationTime(to, timeZone);
+        if (!start.ok || !end.ok) return;
         issue.mutate(
           {
             title,
             bodyHtml: body,
-            effectiveFrom: from ? new Date(from).toISOString() : new Date().toISOString(),
-            effectiveTo: to ? new Date(to).toISOString() : null,
+            effectiveFrom: (start.at ?? new Date()).toISOString(),
+            effectiveTo: end.at ? end.at.toISOString() : null,
             crewIds,
             positions: scopePositions,
           },
@@ -40,6 +44,8 @@ export function IssueOrderForm({ positions }: { positions: { key: string; label:
             onSuccess: () => {
               setTitle('');
               setBody('');
+              from.reset();
+              to.reset();
               setFormKey((k) => k + 1);
             },
           },
@@ -55,14 +61,8 @@ export function IssueOrderForm({ positions }: { positions: { key: string; label:
       </label>
       <RichTextEditor label="Order text" onChange={setBody} />
       <div className="flex flex-wrap gap-3 text-sm">
-        <label className="flex flex-col">
-          In force from (empty = now)
-          <input type="datetime-local" className={field} value={from} onChange={(e) => setFrom(e.target.value)} />
-        </label>
-        <label className="flex flex-col">
-          Until (empty = until withdrawn)
-          <input type="datetime-local" className={field} value={to} onChange={(e) => setTo(e.target.value)} />
-        </label>
+        <StationTimeInput label="In force from (empty = now)" field={from} timeZone={timeZone} error={fields.effectiveFrom} />
+        <StationTimeInput label="Until (empty = until withdrawn)" field={to} timeZone={timeZone} error={fields.effectiveTo} />
       </div>
       <fieldset className="flex flex-wrap gap-3 text-sm">
         <legend className="font-bold">Crews (none ticked = all)</legend>

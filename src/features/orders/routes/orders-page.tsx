@@ -1,17 +1,18 @@
 import { useState } from 'react';
-import { format } from 'date-fns';
 import { useQuery } from '@tanstack/react-query';
 import type { StationSettings } from '../../../../shared/schemas/log';
 import { useSelectedUnit } from '../../../components/readings/unit-picker';
 import { Notice } from '../../../components/ui/notice';
+import { useStationZone } from '../../../components/station-time/use-station-zone';
+import { ZoneNote } from '../../../components/station-time/zone-note';
+import { formatStationTime } from '../../../../shared/station-time';
 import { api } from '../../../lib/api-client';
 import { useMe } from '../../session/api/get-me';
 import { useOrder, useOrders } from '../api/orders';
 import { IssueOrderForm } from '../components/issue-order-form';
 
-const stamp = (iso: string) => format(new Date(iso), 'yyyy-MM-dd HH:mm');
 
-function WhoHasRead({ id }: { id: number }) {
+function WhoHasRead({ id, stamp }: { id: number; stamp: (iso: string) => string }) {
   const order = useOrder(id);
   if (!order.data?.people) return null;
   return (
@@ -35,11 +36,15 @@ export function OrdersPage() {
     queryFn: async () => (await api.get<{ settings: StationSettings }>(`/api/stations/${unit!.stationId}/settings`)).settings,
     enabled: Boolean(unit),
   });
+  // The list is the first station's (the server's choice when none is named), so its zone applies.
+  const zone = useStationZone(null);
+  const stamp = (iso: string) => (zone ? formatStationTime(iso, zone.timeZone) : '…');
   const mayIssue = me?.role === 'shift_lead' || me?.role === 'admin';
   return (
     <section className="flex flex-col gap-4">
       <h1 className="text-2xl font-bold">Standing orders</h1>
-      {mayIssue && settings.data ? <IssueOrderForm positions={settings.data.positions} /> : null}
+      <ZoneNote zone={zone} />
+      {mayIssue && settings.data && zone ? <IssueOrderForm positions={settings.data.positions} timeZone={zone.timeZone} /> : null}
       <div className="flex flex-wrap gap-2 text-sm">
         <label className="flex flex-col">
           Show
@@ -72,7 +77,7 @@ export function OrdersPage() {
           <button type="button" className="mt-1 text-sm underline" onClick={() => setOpen(open === o.id ? null : o.id)}>
             {open === o.id ? 'Hide who has read it' : 'Who has read it'}
           </button>
-          {open === o.id ? <WhoHasRead id={o.id} /> : null}
+          {open === o.id ? <WhoHasRead id={o.id} stamp={stamp} /> : null}
         </article>
       ))}
     </section>

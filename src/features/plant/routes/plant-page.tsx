@@ -1,7 +1,8 @@
 import { useState } from 'react';
-import { format } from 'date-fns';
+import { formatStationTime } from '../../../../shared/station-time';
 import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-picker';
 import { Notice } from '../../../components/ui/notice';
+import { ZoneNote } from '../../../components/station-time/zone-note';
 import { ApiError } from '../../../lib/api-client';
 import { useMe } from '../../session/api/get-me';
 import { useChangeSetup, useUnitSetup, type UnitSetup } from '../api/setup';
@@ -9,14 +10,14 @@ import { DesignForm } from '../components/design-form';
 import { LimitsForm } from '../components/limits-form';
 import { useWatchUnit } from '../../../app/use-live-updates';
 
-function History({ title, rows }: { title: string; rows: UnitSetup['designHistory'] }) {
+function History({ title, rows, timeZone }: { title: string; rows: UnitSetup['designHistory']; timeZone: string }) {
   return (
     <div className="rounded-lg border border-line bg-panel p-3 text-sm">
       <h3 className="font-bold">{title}</h3>
       <ul>
         {rows.map((r, i) => (
           <li key={r.id} className="border-t border-line py-1">
-            <span className="reading">{format(new Date(r.effectiveFrom), 'yyyy-MM-dd HH:mm')}</span> · {r.by} · {r.note}
+            <span className="reading">{formatStationTime(r.effectiveFrom, timeZone)}</span> · {r.by} · {r.note}
             {i === 0 ? <strong> (in force)</strong> : null}
           </li>
         ))}
@@ -69,7 +70,7 @@ function Equipment({ setup, editable }: { setup: UnitSetup; editable: boolean })
 
 export function PlantPage() {
   const { data: me } = useMe();
-  const { unitId } = useSelectedUnit();
+  const { unitId, unit } = useSelectedUnit();
   useWatchUnit(unitId);
   const setup = useUnitSetup(unitId);
   const editable = me?.role === 'admin';
@@ -79,20 +80,21 @@ export function PlantPage() {
         <div>
           <h1 className="text-2xl font-bold">Plant setup</h1>
           <p className="text-muted">Design data and limits are versioned: each reading is judged by the versions in force when it was taken.</p>
+          <ZoneNote zone={unit} />
         </div>
         <UnitPicker />
       </div>
       {setup.error ? <Notice kind="error">{setup.error.message}</Notice> : null}
-      {setup.data ? (
+      {setup.data && unit ? (
         <div className="grid gap-4 lg:grid-cols-2" key={`${setup.data.unit.id}-${setup.data.design.versionId}-${setup.data.limits.versionId}`}>
           <div className="flex flex-col gap-4">
             <DesignForm unitId={setup.data.unit.id} design={setup.data.design.data} editable={editable} />
-            <History title="Design data versions" rows={setup.data.designHistory} />
+            <History title="Design data versions" rows={setup.data.designHistory} timeZone={unit.timeZone} />
             <Equipment setup={setup.data} editable={editable} />
           </div>
           <div className="flex flex-col gap-4">
             <LimitsForm unitId={setup.data.unit.id} limits={setup.data.limits.data} editable={editable} />
-            <History title="Limit versions" rows={setup.data.limitHistory} />
+            <History title="Limit versions" rows={setup.data.limitHistory} timeZone={unit.timeZone} />
           </div>
         </div>
       ) : null}

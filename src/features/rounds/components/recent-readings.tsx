@@ -1,12 +1,12 @@
-import { format } from 'date-fns';
 import { Link } from 'react-router';
+import { formatStationTime } from '../../../../shared/station-time';
 import { pressureUnitLabels, type PressureUnit } from '../../../../shared/units';
 import { StatusBadge } from '../../../components/ui/status-badge';
 import { Notice } from '../../../components/ui/notice';
 import { useMe } from '../../session/api/get-me';
 import { useCountersign, type ReadingSummary } from '../api/readings';
 
-export function RecentReadings({ readings }: { readings: ReadingSummary[] }) {
+export function RecentReadings({ readings, timeZone }: { readings: ReadingSummary[]; timeZone: string }) {
   const { data: me } = useMe();
   const countersign = useCountersign();
   const maySign = me?.role === 'operator' || me?.role === 'shift_lead';
@@ -18,7 +18,7 @@ export function RecentReadings({ readings }: { readings: ReadingSummary[] }) {
       <table className="w-full text-left text-sm">
         <thead>
           <tr className="text-muted">
-            <th className="pb-1">Taken (local time)</th>
+            <th className="pb-1">Taken (station time, {timeZone})</th>
             <th className="pb-1">Pressure</th>
             <th className="pb-1">By</th>
             <th className="pb-1">Status</th>
@@ -30,7 +30,7 @@ export function RecentReadings({ readings }: { readings: ReadingSummary[] }) {
             <tr key={r.id} className="border-t border-line" data-testid={`reading-${r.id}`}>
               <td className="reading py-1 pr-2">
                 <Link to={`/rounds/${r.id}`} className="text-accent underline">
-                  {format(new Date(r.takenAt), 'yyyy-MM-dd HH:mm')}
+                  {formatStationTime(r.takenAt, timeZone)}
                 </Link>
               </td>
               <td className="reading py-1 pr-2">

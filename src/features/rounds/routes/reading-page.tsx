@@ -1,7 +1,6 @@
 import { useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import { Link, useParams } from 'react-router';
-import { format } from 'date-fns';
 import type { Evaluation } from '../../../../shared/calc/evaluate';
 import { CheckResults } from '../../../components/readings/check-results';
 import { ReadingFormFields } from '../../../components/readings/reading-form-fields';
@@ -11,12 +10,14 @@ import { useLiveEvaluation } from '../../../components/readings/use-live-evaluat
 import { Button } from '../../../components/ui/button';
 import { CautionNote, Notice } from '../../../components/ui/notice';
 import { StatusBadge } from '../../../components/ui/status-badge';
+import { useUnitZone } from '../../../components/station-time/use-station-zone';
+import { ZoneNote } from '../../../components/station-time/zone-note';
+import { formatStationTime } from '../../../../shared/station-time';
 import { ApiError } from '../../../lib/api-client';
 import type { DisplayPreferences } from '../../../../shared/display';
 import { useMe } from '../../session/api/get-me';
 import { useAmendReading, useReading, type ReadingDetail } from '../api/readings';
 
-const stamp = (iso: string) => format(new Date(iso), 'yyyy-MM-dd HH:mm');
 const prefsOf = (detail: ReadingDetail): DisplayPreferences => ({
   temperature: detail.reading.raw.hotwellTemperature.unit as DisplayPreferences['temperature'],
   pressure: 'kPa_a',
@@ -101,9 +102,11 @@ export function ReadingPage() {
   const { data: me } = useMe();
   const reading = useReading(id);
   const [amending, setAmending] = useState(false);
-  if (reading.isPending) return <p className="text-muted">Loading…</p>;
+  const zone = useUnitZone(reading.data?.reading.unitId);
   if (reading.error) return <Notice kind="error">{reading.error.message}</Notice>;
+  if (reading.isPending || !zone) return <p className="text-muted">Loading…</p>;
   const detail = reading.data;
+  const stamp = (iso: string) => formatStationTime(iso, zone.timeZone);
   const prefs = prefsOf(detail);
   const mayAmend = me && ['operator', 'shift_lead', 'admin'].includes(me.role);
   return (
@@ -114,6 +117,7 @@ export function ReadingPage() {
       <h1 className="text-2xl font-bold">
         Round of {stamp(detail.reading.takenAt)} <StatusBadge status={detail.current.worstStatus} />
       </h1>
+      <ZoneNote zone={zone} />
       <CautionNote />
       {detail.reading.recordedAsTrainee ? (
         detail.countersign ? (

@@ -1,7 +1,6 @@
 import { useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import { Link } from 'react-router';
-import { format } from 'date-fns';
 import { CautionNote, Notice } from '../../../components/ui/notice';
 import { Button } from '../../../components/ui/button';
 import { CheckResults, EnterReadingsNotice } from '../../../components/readings/check-results';
@@ -11,6 +10,8 @@ import { emptyReadingForm, formErrorsFromServer, type FormErrors, type ReadingFo
 import { loadUnitChoices, useRememberUnitChoices } from '../../../components/readings/unit-choices';
 import { useLiveEvaluation } from '../../../components/readings/use-live-evaluation';
 import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-picker';
+import { StationTimeInput, readStationTime, useStationTimeField } from '../../../components/station-time/station-time-input';
+import { formatStationTime } from '../../../../shared/station-time';
 import { pressureUnitLabels, temperatureUnits, type PressureUnit, type TemperatureUnit } from '../../../../shared/units';
 import { ApiError } from '../../../lib/api-client';
 import { useMe } from '../../session/api/get-me';
@@ -18,12 +19,12 @@ import { useReadings, useRecordReading, type ReadingSummary } from '../api/readi
 import { RecentReadings } from '../components/recent-readings';
 import { useWatchUnit } from '../../../app/use-live-updates';
 
-function LastReadingHint({ last }: { last: ReadingSummary | undefined }) {
+function LastReadingHint({ last, timeZone }: { last: ReadingSummary | undefined; timeZone: string }) {
   if (!last) return null;
   const t = (q: { value: number; unit: string } | null | undefined) => (q ? `${q.value} ${temperatureUnits[q.unit as TemperatureUnit]?.label ?? q.unit}` : '—');
   return (
     <p className="rounded-md border border-line bg-panel px-3 py-2 text-sm" data-testid="last-reading">
-      Last round {format(new Date(last.takenAt), 'yyyy-MM-dd HH:mm')} by {last.recordedBy}: pressure {last.raw.pressure.value}{' '}
+      Last round {formatStationTime(last.takenAt, timeZone)} by {last.recordedBy}: pressure {last.raw.pressure.value}{' '}
       {pressureUnitLabels[last.raw.pressure.unit as PressureUnit]}, hotwell {t(last.raw.hotwellTemperature)}, CW in {t(last.raw.cwInletTemperature)}, CW out{' '}
       {t(last.raw.cwOutletTemperature)}
     </p>
@@ -41,29 +42,39 @@ export function RoundsPage() {
   const values = useWatch({ control: form.control }) as ReadingFormValues;
   useRememberUnitChoices(values, me?.id);
   const live = useLiveEvaluation(unitId, values, design.data);
-  const [takenAt, setTakenAt] = useState('');
+  const takenAt = useStationTimeField();
   const [serverErrors, setServerErrors] = useState<FormErrors>({});
   const [saveError, setSaveError] = useState<string | null>(null);
+  const [takenAtError, setTakenAtError] = useState<string | undefined>();
   const mayRecord = me && me.role !== 'trainer';
 
   const save = () => {
     setSaveError(null);
     setServerErrors({});
+    setTakenAtError(undefined);
     if (!unitId || !live.input) {
       setSaveError('Some readings are missing or wrong; see the messages beside them.');
       return;
     }
+    const typed = unit ? readStationTime(takenAt, unit.timeZone) : { ok: true as const, at: null };
+    if (!typed.ok) {
+      setSaveError('Check the “Taken at” time; see the message beside it.');
+      return;
+    }
     const { unitId: _unit, ...reading } = live.input;
     record.mutate(
-      { unitId, reading: { ...reading, ...(takenAt ? { takenAt: new Date(takenAt).toISOString() } : {}) } },
+      { unitId, reading: { ...reading, ...(typed.at ? { takenAt: typed.at.toISOString() } : {}) } },
       {
         onSuccess: () => {
           form.reset(emptyReadingForm(loadUnitChoices(me?.id)));
-          setTakenAt('');
+          takenAt.reset();
         },
         onError: (error) => {
           setSaveError(error.message);
-          if (error instanceof ApiError) setServerErrors(formErrorsFromServer(error.fields));
+          if (error instanceof ApiError) {
+            setServerErrors(formErrorsFromServer(error.fields));
+            setTakenAtError(error.fields.takenAt);
+          }
         },
       },
     );
@@ -80,7 +91,7 @@ export function RoundsPage() {
       </div>
       <CautionNote />
       {me?.role === 'trainee' ? <Notice kind="info">Your rounds are marked as a trainee’s and wait for an operator’s countersign.</Notice> : null}
-      <LastReadingHint last={readings.data?.[0]} />
+      {unit ? <LastReadingHint last={readings.data?.[0]} timeZone={unit.timeZone} /> : null}
       {record.isSuccess ? (
         <Notice kind="success">
           Round saved.{' '}
@@ -102,15 +113,7 @@ export function RoundsPage() {
             save();
           }}
         >
-          <label className="flex flex-col text-sm font-bold">
-            Taken at (leave empty for now)
-            <input
-              type="datetime-local"
-              className="reading rounded-md border border-line bg-field px-2 py-1 font-normal"
-              value={takenAt}
-              onChange={(e) => setTakenAt(e.target.value)}
-            />
-          </label>
+          {unit ? <StationTimeInput className="text-sm font-bold" label="Taken at (leave empty for now)" field={takenAt} timeZone={unit.timeZone} error={takenAtError} /> : null}
           <ReadingFormFields form={form} errors={{ ...live.shownErrors, ...serverErrors }} values={values} />
           {mayRecord ? (
             <Button type="submit" disabled={record.isPending}>
@@ -124,7 +127,7 @@ export function RoundsPage() {
           {live.evaluation ? <CheckResults evaluation={live.evaluation} prefs={live.prefs} /> : <EnterReadingsNotice />}
         </div>
       </div>
-      {readings.data ? <RecentReadings readings={readings.data} /> : null}
+      {readings.data && unit ? <RecentReadings readings={readings.data} timeZone={unit.timeZone} /> : null}
     </section>
   );
 }

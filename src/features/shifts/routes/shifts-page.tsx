@@ -5,6 +5,7 @@ import { useSelectedUnit } from '../../../components/readings/unit-picker';
 import { Notice } from '../../../components/ui/notice';
 import { ApiError, api } from '../../../lib/api-client';
 import { useCrews } from '../../../components/plant/crews';
+import { StationTimeInput, readStationTime, useStationTimeField } from '../../../components/station-time/station-time-input';
 
 const field = 'rounded-md border border-line bg-field px-2 py-1';
 const fieldsOf = (error: unknown) => (error instanceof ApiError ? Object.entries(error.fields).map(([k, v]) => `${k}: ${v}`).join('; ') || error.message : error instanceof Error ? error.message : '');
@@ -25,7 +26,8 @@ export function ShiftsPage() {
   const [late, setLate] = useState<string | null>(null);
   const [anchor, setAnchor] = useState('');
   const [order, setOrder] = useState<number[]>([]);
-  const [swap, setSwap] = useState({ shiftStart: '', crewId: '', reason: '' });
+  const [swap, setSwap] = useState({ crewId: '', reason: '' });
+  const swapStart = useStationTimeField();
   const refresh = () => void queryClient.invalidateQueries();
   const saveSettings = useMutation({
     mutationFn: (settings: StationSettings) => api.put(`/api/stations/${stationId}/settings`, settings),
@@ -83,7 +85,7 @@ export function ShiftsPage() {
         <h2 className="font-bold">Crew rotation</h2>
         <p>Crews take the shifts in the order ticked, one shift each, starting with the chosen shift.</p>
         <label className="flex flex-col">
-          First shift of the rotation
+          First shift of the rotation (station time, {settings.timeZone})
           <select className={field} value={anchor} onChange={(e) => setAnchor(e.target.value)}>
             <option value="">Choose…</option>
             {shifts.data?.shifts.map((s) => (
@@ -113,14 +115,14 @@ export function ShiftsPage() {
         className="flex flex-col gap-2 rounded-lg border border-line bg-panel p-3 text-sm"
         onSubmit={(e) => {
           e.preventDefault();
-          addSwap.mutate({ shiftStart: swap.shiftStart ? new Date(swap.shiftStart).toISOString() : '', crewId: Number(swap.crewId), reason: swap.reason });
+          // Read on the station's saved clock; an unsaved zone typed above does not apply yet.
+          const start = readStationTime(swapStart, settings.timeZone);
+          if (!start.ok) return;
+          addSwap.mutate({ shiftStart: start.at ? start.at.toISOString() : '', crewId: Number(swap.crewId), reason: swap.reason });
         }}
       >
         <h2 className="font-bold">One-off swap</h2>
-        <label className="flex flex-col">
-          Shift starting (local time of this device)
-          <input type="datetime-local" className={field} value={swap.shiftStart} onChange={(e) => setSwap({ ...swap, shiftStart: e.target.value })} />
-        </label>
+        <StationTimeInput label="Shift starting" field={swapStart} timeZone={settings.timeZone} error={addSwap.error instanceof ApiError ? addSwap.error.fields.shiftStart : undefined} />
         <label className="flex flex-col">
           Crew working it instead
           <select className={field} value={swap.crewId} onChange={(e) => setSwap({ ...swap, crewId: e.target.value })}>

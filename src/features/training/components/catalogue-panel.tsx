@@ -6,6 +6,8 @@ import { Notice } from '../../../components/ui/notice';
 import { applyServerErrors } from '../../../lib/form-errors';
 import { ApiError } from '../../../lib/api-client';
 import { useRetireTask, useSaveTask, useTasks, useTaskVersions, type TaskView } from '../api/training';
+import { formatStationTime } from '../../../../shared/station-time';
+import { useTrainingZone } from '../lib/use-training-zone';
 import { groupBySystem } from '../lib/group-by-system';
 
 type Values = { taskKey: string; position: string; system: string; title: string; standard: string; procedureRef: string; requiredPerformances: string; changeNote: string };
@@ -69,11 +71,12 @@ function TaskForm({ editing, onDone }: { editing: TaskView | null; onDone: () =>
 
 function Versions({ taskKey }: { taskKey: string }) {
   const versions = useTaskVersions(taskKey);
+  const zone = useTrainingZone();
   return (
     <ul className="mt-1 text-xs">
       {versions.data?.map((v) => (
         <li key={v.id}>
-          v{v.version} · {v.createdAt.slice(0, 10)} · {v.changeNote ?? ''} · {v.requiredPerformances} performances{v.retired ? ' · retired' : ''}
+          v{v.version} · {zone ? formatStationTime(v.createdAt, zone.timeZone, 'date') : '…'} · {v.changeNote ?? ''} · {v.requiredPerformances} performances{v.retired ? ' · retired' : ''}
         </li>
       ))}
     </ul>

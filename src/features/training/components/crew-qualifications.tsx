@@ -1,7 +1,9 @@
 import { useState } from 'react';
 import { useCrews } from '../../../components/plant/crews';
 import { FilterSelect } from '../../../components/ui/filter-select';
+import { formatStationTime } from '../../../../shared/station-time';
 import { useCrewQualifications } from '../api/training';
+import { useTrainingZone } from '../lib/use-training-zone';
 
 /** Per crew: who is signed off for which task. */
 export function CrewQualifications({ defaultCrewId }: { defaultCrewId: number | null }) {
@@ -9,6 +11,7 @@ export function CrewQualifications({ defaultCrewId }: { defaultCrewId: number | 
   const [chosen, setChosen] = useState<number | null>(null);
   const crewId = chosen ?? defaultCrewId ?? crews.data?.[0]?.id ?? null;
   const data = useCrewQualifications(crewId);
+  const zone = useTrainingZone();
   return (
     <section aria-label="Crew qualifications" className="flex flex-col gap-2">
       <div className="flex flex-wrap items-end gap-3">
@@ -38,7 +41,7 @@ export function CrewQualifications({ defaultCrewId }: { defaultCrewId: number | 
                     const signed = p.signedOff.find((s) => s.taskKey === t.taskKey);
                     return (
                       <td key={t.taskKey} className="p-2 text-center">
-                        {signed ? <span title={`signed off ${signed.at.slice(0, 10)}`}>✔<span className="sr-only"> qualified</span></span> : <span className="text-muted">–<span className="sr-only"> not signed off</span></span>}
+                        {signed ? <span title={`signed off ${zone ? formatStationTime(signed.at, zone.timeZone, 'date') : ''}`}>✔<span className="sr-only"> qualified</span></span> : <span className="text-muted">–<span className="sr-only"> not signed off</span></span>}
                       </td>
                     );
                   })}

@@ -1,9 +1,11 @@
 import { useState } from 'react';
-import { format } from 'date-fns';
 import { Link } from 'react-router';
 import { trainingLevelLabels } from '../../../../shared/schemas/training';
 import { Notice } from '../../../components/ui/notice';
 import { ApiError } from '../../../lib/api-client';
+import { useZoneOfUnit } from '../../../components/station-time/use-station-zone';
+import { formatStationTime } from '../../../../shared/station-time';
+import { useMe } from '../../session/api/get-me';
 import { useAmendTraining, type EntryView } from '../api/training';
 
 const statusWords = { awaiting_countersign: '… awaiting countersign', countersigned: '✔ countersigned', rejected: '✖ rejected' };
@@ -49,6 +51,9 @@ function AmendEntry({ entry }: { entry: EntryView }) {
 
 /** Training entries newest first, as recorded, with countersign state and amendments beside them. */
 export function EntryList({ entries, mayAmend }: { entries: EntryView[]; mayAmend: boolean }) {
+  const zoneOf = useZoneOfUnit(useMe().data?.crewId);
+  // Each entry in its unit's station time (the person's station when it names no unit).
+  const stamp = (iso: string, unitId: number | null) => (zoneOf ? formatStationTime(iso, zoneOf(unitId)) : '…');
   if (entries.length === 0) return <p className="text-muted">No practice recorded yet.</p>;
   return (
     <ul className="flex flex-col gap-2">
@@ -64,19 +69,19 @@ export function EntryList({ entries, mayAmend }: { entries: EntryView[]; mayAmen
           <p>{e.note}</p>
           {e.unitId && e.shiftStart ? (
             <Link className="text-xs underline" to={`/logbook/units/${e.unitId}/shifts/${encodeURIComponent(e.shiftStart)}`}>
-              From the shift of {format(new Date(e.shiftStart), 'yyyy-MM-dd HH:mm')}
+              From the shift of {stamp(e.shiftStart, e.unitId)}
               {e.readingSetId ? `, round #${e.readingSetId}` : ''}
               {e.handoverItemId ? `, handover item #${e.handoverItemId}` : ''}
             </Link>
           ) : null}
           <p className="text-xs font-bold">
             {statusWords[e.status]}
-            {e.countersignedBy ? ` by ${e.countersignedBy} ${format(new Date(e.countersignedAt!), 'yyyy-MM-dd HH:mm')}` : ''}
+            {e.countersignedBy ? ` by ${e.countersignedBy} ${stamp(e.countersignedAt!, e.unitId)}` : ''}
             {e.rejectReason ? ` — ${e.rejectReason}` : ''}
           </p>
           {e.amendments.map((a) => (
             <p key={a.id} className="text-xs">
-              Amended by {a.by} {format(new Date(a.at), 'yyyy-MM-dd HH:mm')} — <em>{a.reason}</em>: {a.text}
+              Amended by {a.by} {stamp(a.at, e.unitId)} — <em>{a.reason}</em>: {a.text}
             </p>
           ))}
           {mayAmend ? <AmendEntry entry={e} /> : null}

@@ -1,5 +1,6 @@
 import { useState } from 'react';
-import { format } from 'date-fns';
+import { formatStationTime } from '../../../../shared/station-time';
+import { useTrainingZone } from '../lib/use-training-zone';
 import { qualificationSystemLabels, taskStatusLabels, type TaskStatus } from '../../../../shared/schemas/training';
 import { Notice } from '../../../components/ui/notice';
 import { ApiError } from '../../../lib/api-client';
@@ -50,6 +51,7 @@ function DecisionForm({ traineeId, row }: { traineeId: number; row: ProgressRow 
 
 /** Tasks down the side, where the trainee stands across. Trainers get sign-off controls per row. */
 export function ProgressMatrix({ progress, mayDecide }: { progress: Progress; mayDecide: boolean }) {
+  const zone = useTrainingZone();
   return (
     <div className="overflow-x-auto rounded-lg border border-line bg-panel">
       <table className="w-full text-left text-sm" aria-label={`Qualification tasks for ${progress.trainee.name}`}>
@@ -101,7 +103,7 @@ export function ProgressMatrix({ progress, mayDecide }: { progress: Progress; ma
               <td className="p-2 text-xs">
                 {row.lastDecision ? (
                   <>
-                    {row.lastDecision.decision === 'signed_off' ? 'Signed off' : 'Returned'} by {row.lastDecision.trainer}, {format(new Date(row.lastDecision.decidedAt), 'yyyy-MM-dd')}
+                    {row.lastDecision.decision === 'signed_off' ? 'Signed off' : 'Returned'} by {row.lastDecision.trainer}, {zone ? formatStationTime(row.lastDecision.decidedAt, zone.timeZone, 'date') : '…'}
                     <span className="block italic">“{row.lastDecision.comments}”</span>
                     {row.lastDecision.amendments.map((a) => (
                       <span key={a.id} className="block">

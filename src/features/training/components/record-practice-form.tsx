@@ -1,14 +1,16 @@
 import { useForm } from 'react-hook-form';
 import { Link, useSearchParams } from 'react-router';
-import { format } from 'date-fns';
+import { formatStationTime, stationToday } from '../../../../shared/station-time';
 import { trainingLevelLabels, trainingLevels, type NewTrainingEntry } from '../../../../shared/schemas/training';
 import { SelectField, TextField } from '../../../components/ui/form-field';
 import { Notice } from '../../../components/ui/notice';
 import { usePeople } from '../../../components/people/person-select';
 import { useUnitList } from '../../../components/readings/unit-picker';
+import { useUnitZone } from '../../../components/station-time/use-station-zone';
 import { applyServerErrors } from '../../../lib/form-errors';
 import { useRecordEntry, useTasks } from '../api/training';
 import { groupBySystem } from '../lib/group-by-system';
+import { useTrainingZone } from '../lib/use-training-zone';
 
 type Values = { taskKey: string; performedOn: string; level: string; supervisorId: string; unitId: string; note: string };
 
@@ -24,12 +26,22 @@ function useLinkedRecord() {
 
 /** A trainee records one practice of a task; a supervising operator countersigns it later. */
 export function RecordPracticeForm() {
+  const linkedUnit = useLinkedRecord().link.unitId;
+  // The date is a day on the station's clock: the linked unit's station, else the person's.
+  const unitZone = useUnitZone(linkedUnit);
+  const homeZone = useTrainingZone();
+  const zone = linkedUnit ? unitZone : homeZone;
+  if (!zone) return <p className="text-muted">Loading…</p>;
+  return <PracticeForm timeZone={zone.timeZone} />;
+}
+
+function PracticeForm({ timeZone }: { timeZone: string }) {
   const { link, linked, clear } = useLinkedRecord();
   const tasks = useTasks();
   const people = usePeople();
   const units = useUnitList();
   const record = useRecordEntry();
-  const performedOn = link.shiftStart ? format(new Date(link.shiftStart), 'yyyy-MM-dd') : format(new Date(), 'yyyy-MM-dd'); // the browser's own day
+  const performedOn = link.shiftStart ? formatStationTime(link.shiftStart, timeZone, 'date') : stationToday(timeZone);
   const form = useForm<Values>({ defaultValues: { taskKey: '', performedOn, level: 'supervised', supervisorId: '', unitId: link.unitId ? String(link.unitId) : '', note: '' } });
   const errors = form.formState.errors;
   const submit = form.handleSubmit(async (values) => {
@@ -55,7 +67,7 @@ export function RecordPracticeForm() {
       {linked ? (
         <p className="text-sm sm:col-span-2" data-testid="practice-link">
           Linked to {link.readingSetId ? `round #${link.readingSetId}` : link.handoverItemId ? `handover item #${link.handoverItemId}` : 'the shift'}
-          {link.shiftStart ? ` of the shift starting ${format(new Date(link.shiftStart), 'yyyy-MM-dd HH:mm')}` : ''}.{' '}
+          {link.shiftStart ? ` of the shift starting ${formatStationTime(link.shiftStart, timeZone)} (station time)` : ''}.{' '}
           {link.unitId && link.shiftStart ? (
             <Link className="underline" to={`/logbook/units/${link.unitId}/shifts/${encodeURIComponent(link.shiftStart)}`}>
               Open it
@@ -80,7 +92,7 @@ export function RecordPracticeForm() {
           </optgroup>
         ))}
       </SelectField>
-      <TextField label="Date" type="date" error={errors.performedOn?.message} {...form.register('performedOn')} />
+      <TextField label="Date" hint={`Station day, ${timeZone}`} type="date" error={errors.performedOn?.message} {...form.register('performedOn')} />
       <SelectField label="Level" error={errors.level?.message} {...form.register('level')}>
         {trainingLevels.map((l) => (
           <option key={l} value={l}>

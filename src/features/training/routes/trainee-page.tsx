@@ -1,15 +1,18 @@
 import { Link, useParams } from 'react-router';
 import { Notice } from '../../../components/ui/notice';
+import { ZoneNote } from '../../../components/station-time/zone-note';
 import { useMe } from '../../session/api/get-me';
 import { useTraineeProgress } from '../api/training';
 import { EntryList } from '../components/entry-list';
 import { ProgressMatrix } from '../components/progress-matrix';
+import { useTrainingZone } from '../lib/use-training-zone';
 
 /** One trainee's record for trainers, shift leads and administrators; trainers sign off here. */
 export function TraineePage() {
   const id = Number(useParams().id);
   const progress = useTraineeProgress(id);
   const { data: me } = useMe();
+  const zone = useTrainingZone();
   if (progress.error) return <Notice kind="error">{progress.error.message}</Notice>;
   if (!progress.data) return <p>Loading…</p>;
   const p = progress.data;
@@ -19,6 +22,7 @@ export function TraineePage() {
         ← Training
       </Link>
       <h1 className="text-2xl font-bold">{p.trainee.name}: qualification record</h1>
+      <ZoneNote zone={zone} basis={zone?.basis} what="Dates and times" />
       <p>
         {p.left} {p.left === 1 ? 'task' : 'tasks'} left. Sign-offs are final; a correction is an amendment with a reason.
       </p>

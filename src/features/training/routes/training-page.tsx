@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import { Notice } from '../../../components/ui/notice';
+import { ZoneNote } from '../../../components/station-time/zone-note';
 import { useMe } from '../../session/api/get-me';
 import { MyReviewComments } from '../../logbook/components/my-review-comments';
 import { useMyProgress } from '../api/training';
@@ -10,6 +11,7 @@ import { EntryList } from '../components/entry-list';
 import { ProgressMatrix } from '../components/progress-matrix';
 import { RecordPracticeForm } from '../components/record-practice-form';
 import { ReviewQueue } from '../components/review-queue';
+import { useTrainingZone } from '../lib/use-training-zone';
 
 type Tab = 'mine' | 'countersign' | 'queue' | 'crews' | 'catalogue';
 const tabLabels: Record<Tab, string> = { mine: 'My qualification record', countersign: 'Countersign', queue: 'Trainer’s queue', crews: 'Crew qualifications', catalogue: 'Catalogue' };
@@ -45,6 +47,7 @@ export function TrainingPage() {
   const { data: me } = useMe();
   const tabs = me ? tabsFor(me.role) : [];
   const [chosen, setChosen] = useState<Tab | null>(null);
+  const zone = useTrainingZone();
   const tab = chosen && tabs.includes(chosen) ? chosen : tabs[0];
   if (!me || !tab) return null;
   const mayEdit = me.role === 'trainer' || me.role === 'admin';
@@ -53,6 +56,7 @@ export function TrainingPage() {
       <div>
         <h1 className="text-2xl font-bold">Training</h1>
         <p className="text-muted">Qualification tasks on the cooling-water and condenser systems, practice countersigned by operators and signed off by trainers.</p>
+        <ZoneNote zone={zone} basis={zone?.basis} what="Dates and times" />
       </div>
       <aside className="rounded-md border border-watch bg-panel px-4 py-2 text-sm" aria-label="Caution">
         <strong>Caution — </strong>a sign-off here records training; it does not authorise anyone to operate plant. The station’s qualification procedure and the shift lead decide who may do what.

@@ -1,7 +1,7 @@
-import { format } from 'date-fns';
 import { CartesianGrid, Legend, Line, LineChart, ReferenceArea, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
 import { checkCatalog, type CheckKey } from '../../../../shared/calc/check-catalog';
 import { convertForDisplay, type DisplayPreferences } from '../../../../shared/display';
+import { formatStationTime } from '../../../../shared/station-time';
 import type { TrendResponse } from '../api/get-trend';
 
 const lineColours = ['var(--c-accent)', 'var(--c-ink)', 'var(--c-muted)', 'var(--c-focus)'];
@@ -27,7 +27,7 @@ export function toRows(data: TrendResponse, prefs: DisplayPreferences): { rows: 
   return { rows: [...byTime.values()].sort((a, b) => a.t - b.t), unit };
 }
 
-export function TrendChart({ data, prefs, parameters }: { data: TrendResponse; prefs: DisplayPreferences; parameters: CheckKey[] }) {
+export function TrendChart({ data, prefs, parameters, timeZone }: { data: TrendResponse; prefs: DisplayPreferences; parameters: CheckKey[]; timeZone: string }) {
   const { rows, unit } = toRows(data, prefs);
   const first = parameters[0]!;
   const quantity = checkCatalog[first].quantity;
@@ -43,9 +43,9 @@ export function TrendChart({ data, prefs, parameters }: { data: TrendResponse; p
       <ResponsiveContainer width="100%" height="100%">
         <LineChart data={rows} margin={{ top: 10, right: 20, bottom: 10, left: 10 }}>
           <CartesianGrid stroke="var(--c-line)" strokeOpacity={0.4} />
-          <XAxis dataKey="t" type="number" domain={['dataMin', 'dataMax']} scale="time" tickFormatter={(t: number) => format(new Date(t), 'MM-dd HH:mm')} stroke="var(--c-muted)" />
+          <XAxis dataKey="t" type="number" domain={['dataMin', 'dataMax']} scale="time" tickFormatter={(t: number) => formatStationTime(t, timeZone).slice(5, 16)} stroke="var(--c-muted)" />
           <YAxis stroke="var(--c-muted)" label={{ value: unit, angle: -90, position: 'insideLeft', fill: 'var(--c-muted)' }} domain={[yMin, yMax]} tickFormatter={(v: number) => Number(v.toPrecision(3)).toString()} />
-          <Tooltip labelFormatter={(t) => format(new Date(Number(t)), 'yyyy-MM-dd HH:mm')} formatter={(v) => `${Number(v).toFixed(3)} ${unit}`} contentStyle={{ background: 'var(--c-panel)' }} />
+          <Tooltip labelFormatter={(t) => `${formatStationTime(Number(t), timeZone)} station time`} formatter={(v) => `${Number(v).toFixed(3)} ${unit}`} contentStyle={{ background: 'var(--c-panel)' }} />
           <Legend />
           {/* Limit bands of the first parameter, each over the period its version was in force,
               clamped to the plotted range so an off-scale limit never floods the chart. */}

@@ -8,6 +8,8 @@ import { CautionNote, Notice } from '../../../components/ui/notice';
 import { useTrend } from '../api/get-trend';
 import { TrendChart } from '../components/trend-chart';
 import { useWatchUnit } from '../../../app/use-live-updates';
+import { ZoneNote } from '../../../components/station-time/zone-note';
+import { formatStationTime } from '../../../../shared/station-time';
 
 const views: { label: string; parameters: CheckKey[] }[] = [
   { label: 'Actual vs expected backpressure', parameters: ['backpressure', 'expectedBackpressure'] },
@@ -44,7 +46,15 @@ export function TrendsPage() {
     const rows = trend.data.series.flatMap((s) =>
       s.points.map((p) => {
         const shown = convertForDisplay(p.v, checkCatalog[s.parameter as CheckKey].quantity, prefs);
-        return { time_utc: new Date(p.t).toISOString(), parameter: s.parameter, value: shown.value, unit: shown.unit, status: p.s };
+        return {
+          time_utc: new Date(p.t).toISOString(),
+          time_station: unit ? formatStationTime(p.t, unit.timeZone, 'datetime-seconds') : '',
+          station_time_zone: unit?.timeZone ?? '',
+          parameter: s.parameter,
+          value: shown.value,
+          unit: shown.unit,
+          status: p.s,
+        };
       }),
     );
     const blob = new Blob([Papa.unparse(rows)], { type: 'text/csv;charset=utf-8' });
@@ -61,6 +71,7 @@ export function TrendsPage() {
         <div>
           <h1 className="text-2xl font-bold">Trends</h1>
           <p className="text-muted">{unit ? `${unit.name} · ` : ''}computed checks over time, with the limit bands in force and flags marked.</p>
+          <ZoneNote zone={unit} what="Time axis" />
         </div>
         <UnitPicker />
       </div>
@@ -105,7 +116,7 @@ export function TrendsPage() {
       </div>
       {trend.error ? <Notice kind="error">{trend.error.message}</Notice> : null}
       {trend.data && points === 0 ? <Notice kind="info">No readings in this period.</Notice> : null}
-      {trend.data && points > 0 ? <TrendChart data={trend.data} prefs={prefs} parameters={view.parameters} /> : null}
+      {trend.data && points > 0 && unit ? <TrendChart data={trend.data} prefs={prefs} parameters={view.parameters} timeZone={unit.timeZone} /> : null}
       {trend.data?.limitBands.length ? (
         <p className="text-sm text-muted">
           Shaded: ▲ watch and ◆ alarm bands of {checkCatalog[view.parameters[0]!].label}, as each limit version was in force. Dashed
