@@ -40,6 +40,8 @@ import { logbookRoutes } from './features/logbook/routes';
 import { makeReviewCommentService } from './features/logbook/review-comments';
 import { trainingRoutes } from './features/training/routes';
 import { makeTrainingService } from './features/training/service';
+import { stationRoutes } from './features/stations/routes';
+import { makeStationService } from './features/stations/service';
 
 
 export type BuiltApp = {
@@ -114,7 +116,8 @@ export function createApp(
   app.use('/api', trendRoutes(sequelize));
   app.use('/api', importRoutes(makeImportService(sequelize)));
   const log = makeLogService(sequelize, realtime);
-  app.use('/api', logRoutes(sequelize, log));
+  app.use('/api', stationRoutes(makeStationService(sequelize)));
+  app.use('/api', logRoutes(log));
   app.use('/api', standingOrderRoutes(makeStandingOrderService(sequelize, realtime)));
   app.use('/api', conditionRoutes(makeConditionService(sequelize, realtime, log)));
   app.use('/api', handoverRoutes(sequelize, makeHandoverService(sequelize, realtime, notices)));

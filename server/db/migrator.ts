@@ -9,6 +9,7 @@ import * as notices from './migrations/0006-notices';
 import * as attachments from './migrations/0007-attachments';
 import * as trendIndex from './migrations/0008-trend-index';
 import * as trainingAndLogbook from './migrations/0009-training-and-logbook';
+import * as roundIntervalAndHandoverWindow from './migrations/0012-round-interval-and-handover-window';
 
 // Listed explicitly so the order is obvious and nothing depends on globbing at run time.
 const migrations = [
@@ -21,6 +22,7 @@ const migrations = [
   { name: '0007-attachments', ...attachments },
   { name: '0008-trend-index', ...trendIndex },
   { name: '0009-training-and-logbook', ...trainingAndLogbook },
+  { name: '0012-round-interval-and-handover-window', ...roundIntervalAndHandoverWindow },
 ];
 
 export function createMigrator(sequelize: Sequelize) {
