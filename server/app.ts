@@ -42,6 +42,8 @@ import { trainingRoutes } from './features/training/routes';
 import { makeTrainingService } from './features/training/service';
 import { stationRoutes } from './features/stations/routes';
 import { makeStationService } from './features/stations/service';
+import { overviewRoutes } from './features/overview/routes';
+import { makeOverviewService } from './features/overview/service';
 
 
 export type BuiltApp = {
@@ -122,8 +124,10 @@ export function createApp(
   app.use('/api', conditionRoutes(makeConditionService(sequelize, realtime, log)));
   app.use('/api', handoverRoutes(sequelize, makeHandoverService(sequelize, realtime, notices)));
   app.use('/api', attachmentRoutes(deps.storage ?? storageFromEnv(), realtime));
-  app.use('/api', logbookRoutes(sequelize, makeReviewCommentService(sequelize, realtime)));
+  const reviewComments = makeReviewCommentService(sequelize, realtime);
+  app.use('/api', logbookRoutes(sequelize, reviewComments));
   app.use('/api', trainingRoutes(makeTrainingService(sequelize)));
+  app.use('/api', overviewRoutes(makeOverviewService(sequelize, { reviewCommentsFor: reviewComments.forPerson })));
   app.use('/api/calc', calcRoutes());
   app.use('/api', (_req, _res, next) => next(new NotFound('That API route')));
 
