@@ -78,6 +78,35 @@ describe('GET /api/overview', () => {
     expect(await Handover.count({ where: { unitId } })).toBe(0);
   });
 
+  it('reads a fixed number of statements however many units, rounds, flags and conditions there are', async () => {
+    const statements: string[] = [];
+    db().addHook('beforeQuery', 'count-overview', (_options, query) => {
+      const sql = String((query as unknown as { sql?: string }).sql ?? '');
+      // The session store's reads and its once-a-minute touch are not the overview's.
+      if (!/sessions/.test(sql)) statements.push(sql);
+    });
+    const count = async () => {
+      statements.length = 0;
+      await operatorA.get('/api/overview').expect(200);
+      return statements.length;
+    };
+    const lead = await signedInAgent(built, (await makeUser('shift_lead')).email);
+    const busyUnit = async () => {
+      const unit = await makeUnit();
+      await post(lead, `/api/units/${unit.id}/readings`, round()).expect(201);
+      await post(lead, `/api/units/${unit.id}/flags`, { parameter: 'cwRise', severity: 'watch', comment: 'Rise creeping up' }).expect(201);
+      await post(lead, `/api/units/${unit.id}/conditions`, { title: 'Screen wash out of service', requiredAction: 'Restore within 24 h', startedAt: new Date().toISOString(), limitHours: 24, ownerId: (await lead.get('/api/me')).body.user.id }).expect(201);
+    };
+    try {
+      await busyUnit();
+      const before = await count();
+      for (let i = 0; i < 3; i++) await busyUnit();
+      expect(await count()).toBe(before);
+    } finally {
+      db().removeHook('beforeQuery', 'count-overview');
+    }
+  });
+
   it('shows a unit with no round yet: the crews, the next change in the station zone and nothing open', async () => {
     const shown = await panel(operatorA, unitId);
     expect(shown.round).toBeNull();
