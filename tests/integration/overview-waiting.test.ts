@@ -74,6 +74,12 @@ describe('GET /api/overview — waiting on you', () => {
     expect((await waiting(b.operator)).handoverItems).toEqual([]);
     expect((await waiting(b.lead)).handoverItems).toHaveLength(itemIds.length);
     expect((await panelOf(b.lead, unitId)).handover).toMatchObject({ state: 'submitted', acknowledgementsOutstanding: itemIds.length });
+
+    // Accepted, nothing waits any more (and no submitted handover is left behind for other tests' reminders).
+    for (const id of itemIds) await post(b.lead, `/api/handover-items/${id}/acknowledge`).expect(201);
+    await post(b.lead, `/api/handovers/${handoverId}/accept`).expect(200);
+    expect((await waiting(b.lead)).handoverItems).toEqual([]);
+    expect((await panelOf(b.lead, unitId)).handover).toMatchObject({ state: 'accepted', id: handoverId });
   });
 
   it('lists a trainee’s round for the operators of the trainee’s crew to countersign, until one does', async () => {
