@@ -47,6 +47,10 @@ import { makeTrainingService } from './features/training/service';
 import { shiftCondenserRoutes } from './features/shift-condenser/routes';
 import { handoverHeaderRoutes } from './features/handovers/record-header';
 import { makeShiftCondenserService } from './features/shift-condenser/service';
+import { stationRoutes } from './features/stations/routes';
+import { makeStationService } from './features/stations/service';
+import { overviewRoutes } from './features/overview/routes';
+import { makeOverviewService } from './features/overview/service';
 
 
 export type BuiltApp = {
@@ -122,17 +126,20 @@ export function createApp(
   app.use('/api', trendRoutes(sequelize));
   app.use('/api', importRoutes(makeImportService(sequelize)));
   const log = makeLogService(sequelize);
-  app.use('/api', logRoutes(sequelize, log));
+  app.use('/api', stationRoutes(makeStationService(sequelize)));
+  app.use('/api', logRoutes(log));
   app.use('/api', standingOrderRoutes(makeStandingOrderService(sequelize)));
   app.use('/api', conditionRoutes(makeConditionService(sequelize, log)));
   const handovers = makeHandoverService(sequelize, notices);
   app.use('/api', handoverRoutes(handovers));
   app.use('/api', attachmentRoutes(makeAttachmentService(sequelize, deps.storage ?? storageFromEnv(), handovers)));
   app.use('/api', shiftRoutes(makeShiftService(sequelize)));
-  app.use('/api', logbookRoutes(sequelize, makeReviewCommentService(sequelize)));
+  const reviewComments = makeReviewCommentService(sequelize);
+  app.use('/api', logbookRoutes(sequelize, reviewComments));
   app.use('/api', trainingRoutes(makeTrainingService(sequelize)));
   app.use('/api', shiftCondenserRoutes(makeShiftCondenserService(sequelize)));
   app.use('/api', handoverHeaderRoutes());
+  app.use('/api', overviewRoutes(makeOverviewService(sequelize, { reviewCommentsFor: reviewComments.forPerson })));
   app.use('/api/calc', calcRoutes());
   app.use('/api', (_req, _res, next) => next(new NotFound('That API route')));
 

@@ -11,6 +11,7 @@ import * as trendIndex from './migrations/0008-trend-index';
 import * as trainingAndLogbook from './migrations/0009-training-and-logbook';
 import * as handoverIntegrity from './migrations/0010-handover-integrity';
 import * as handoverCondenserSnapshot from './migrations/0011-handover-condenser-snapshot';
+import * as roundIntervalAndHandoverWindow from './migrations/0012-round-interval-and-handover-window';
 
 // Listed explicitly so the order is obvious and nothing depends on globbing at run time.
 const migrations = [
@@ -25,6 +26,7 @@ const migrations = [
   { name: '0009-training-and-logbook', ...trainingAndLogbook },
   { name: '0010-handover-integrity', ...handoverIntegrity },
   { name: '0011-handover-condenser-snapshot', ...handoverCondenserSnapshot },
+  { name: '0012-round-interval-and-handover-window', ...roundIntervalAndHandoverWindow },
 ];
 
 export function createMigrator(sequelize: Sequelize) {

@@ -15,6 +15,8 @@ import { shiftCondenserKeys } from '../features/handover/api/get-shift-condenser
 import { conditionKeys, logKeys } from '../features/log/api/log';
 import { logbookKeys } from '../features/logbook/api/logbook';
 import { orderKeys } from '../features/orders/api/orders';
+import { overviewKeys } from '../features/overview/api/overview-keys';
+import { stationSettingsKeys } from '../features/shifts/api/station-settings';
 import { setupKeys } from '../features/plant/api/setup';
 import { readingKeys } from '../features/rounds/api/reading-keys';
 import { sessionKeys } from '../features/session/api/session-keys';
@@ -24,7 +26,8 @@ import { trendKeys } from '../features/trends/api/get-trend';
 /** Keys for what a unit shows of its rounds and what follows from them (flags, trends, the board). */
 const unitPlantState = (unitId: number): QueryKey[] => [readingKeys.list(unitId), flagKeys.unit(unitId), trendKeys.unit(unitId), handoverKeys.unit(unitId), shiftCondenserKeys.unit(unitId)];
 
-export const liveKeys: Record<LiveEntity, (event: LiveEvent) => QueryKey[]> = {
+/** What each kind of change makes stale, besides the front page (which shows a bit of everything). */
+const keysFor: Record<LiveEntity, (event: LiveEvent) => QueryKey[]> = {
   reading: (e) => (e.unitId ? [...unitPlantState(e.unitId), readingKeys.detail(Number(e.id))] : [readingKeys.all]),
   import: (e) => (e.unitId ? unitPlantState(e.unitId) : [readingKeys.all]),
   flag: (e) => (e.unitId ? [flagKeys.unit(e.unitId), trendKeys.unit(e.unitId), handoverKeys.unit(e.unitId)] : [flagKeys.all]),
@@ -36,9 +39,14 @@ export const liveKeys: Record<LiveEntity, (event: LiveEvent) => QueryKey[]> = {
   training: () => [trainingKeys.all],
   plant: (e) => [unitKeys.all, shiftCondenserKeys.all, ...(e.unitId ? [setupKeys.unit(e.unitId), calcKeys.design(e.unitId)] : [setupKeys.all, calcKeys.all])],
   people: () => [userKeys.all, peopleKeys.all, crewKeys.all, sessionKeys.me(), auditKeys.all, handoverKeys.all],
-  station_settings: () => [unitKeys.all, logKeys.all, handoverKeys.all, shiftCondenserKeys.all],
+  station_settings: () => [unitKeys.all, logKeys.all, handoverKeys.all, shiftCondenserKeys.all, stationSettingsKeys.all],
   review_comment: () => [logbookKeys.all],
 };
+
+// Every kind of change shows on the overview (crew, rounds, flags, conditions, handover, what waits on you).
+export const liveKeys: Record<LiveEntity, (event: LiveEvent) => QueryKey[]> = Object.fromEntries(
+  Object.entries(keysFor).map(([entity, keys]) => [entity, (event: LiveEvent) => [...keys(event), overviewKeys.all]]),
+) as Record<LiveEntity, (event: LiveEvent) => QueryKey[]>;
 
 /** Marks stale what this change affects; the queries on screen refetch. */
 export function invalidateForChange(queryClient: QueryClient, event: LiveEvent) {

@@ -7,6 +7,7 @@ const built = buildApp();
 // Every API route except sign-in, the CSRF token and the health check needs a session.
 const routes: [method: 'get' | 'post' | 'patch' | 'put', path: string][] = [
   ['get', '/api/me'],
+  ['get', '/api/overview'],
   ['post', '/api/me/password'],
   ['get', '/api/plant/crews'],
   ['get', '/api/plant/units'],

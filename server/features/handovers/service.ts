@@ -24,12 +24,8 @@ import { freezeCondenserState } from '../shift-condenser/snapshot';
 type Actor = Express.User;
 const asActor = (user: Actor): HandoverActor => ({ id: user.id, role: user.role, crewId: user.crewId });
 
-const DEFAULT_WINDOW_MINUTES = 120;
-/** The station's window around a shift change for submit and acceptance (2 h either side unless set). */
-export function windowOf(settings: StationSettings, handoverAt: Date) {
-  const s = settings as StationSettings & { handoverWindowBeforeMinutes?: number; handoverWindowAfterMinutes?: number };
-  return handoverWindow(handoverAt, s.handoverWindowBeforeMinutes ?? DEFAULT_WINDOW_MINUTES, s.handoverWindowAfterMinutes ?? DEFAULT_WINDOW_MINUTES);
-}
+/** The station's window around a shift change for submit and acceptance (station settings). */
+export const windowOf = (settings: StationSettings, handoverAt: Date) => handoverWindow(handoverAt, settings.handoverWindowBeforeMinutes, settings.handoverWindowAfterMinutes);
 
 async function requireWindow(h: Handover, what: 'submitted' | 'accepted', now: Date) {
   const unit = await PlantUnit.findByPk(h.unitId);

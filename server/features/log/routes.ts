@@ -1,41 +1,16 @@
 import { Router } from 'express';
-import { amendLogEntrySchema, logQuerySchema, newLogEntrySchema, signReviewSchema, stationSettingsSchema } from '../../../shared/schemas/log';
+import { amendLogEntrySchema, logQuerySchema, newLogEntrySchema, signReviewSchema } from '../../../shared/schemas/log';
 import { recentShiftStarts, stationLocalLabel } from '../../../shared/shift-time';
-import { adminOnly, authorize, signedIn } from '../../lib/auth';
-import { recordAudit } from '../../lib/audit';
-import { publish } from '../../lib/live';
+import { authorize, signedIn } from '../../lib/auth';
 import { parseId, parseInput } from '../../lib/validate';
-import { Station } from '../plant/model';
-import { NotFound } from '../../lib/errors';
-import { StationSettingsRow } from '../stations/model';
-import { settingsForStation, settingsForUnit } from '../stations/settings';
+import { settingsForUnit } from '../stations/settings';
 import { listEntries, reviewsFor, type LogService } from './service';
-import type { Sequelize } from 'sequelize';
 
 const mayWrite = authorize(['trainee', 'operator', 'shift_lead', 'admin']);
 const mayReview = authorize(['shift_lead']);
 
-export function logRoutes(sequelize: Sequelize, log: LogService): Router {
+export function logRoutes(log: LogService): Router {
   const router = Router();
-
-  router.get('/stations/:stationId/settings', signedIn, async (req, res) => {
-    const stationId = parseId(req.params.stationId, 'stationId');
-    if (!(await Station.findByPk(stationId))) throw new NotFound('That station');
-    res.json({ settings: await settingsForStation(stationId) });
-  });
-
-  router.put('/stations/:stationId/settings', adminOnly, async (req, res) => {
-    const stationId = parseId(req.params.stationId, 'stationId');
-    if (!(await Station.findByPk(stationId))) throw new NotFound('That station');
-    const settings = parseInput(stationSettingsSchema, req.body);
-    await sequelize.transaction(async (transaction) => {
-      const before = await settingsForStation(stationId, transaction);
-      await StationSettingsRow.upsert({ stationId, ...settings, updatedAt: new Date() }, { transaction });
-      await recordAudit({ actorId: req.user!.id, action: 'station.settings', entity: 'station', entityId: stationId, before, after: settings }, transaction);
-      publish(transaction, { entity: 'station_settings', id: stationId });
-    });
-    res.json({ settings });
-  });
 
   router.get('/units/:unitId/log', signedIn, async (req, res) => {
     const unitId = parseId(req.params.unitId, 'unitId');

@@ -1,5 +1,6 @@
 // Which crew works a shift: the station's rotation (crews in order, one shift each, counted from an
 // anchor shift), unless a one-off swap says otherwise.
+import { Op } from 'sequelize';
 import { nextShiftStart, shiftStartFor } from '../../../shared/shift-time';
 import { stationShiftSetup } from '../stations/settings';
 import { CrewSwap } from './model';
@@ -35,4 +36,14 @@ export async function shiftChangeAt(stationId: number, at = new Date()) {
   const perDay = settings.shiftChangeTimes.length;
   const [outgoingCrewId, incomingCrewId] = await Promise.all([crewOnShift(stationId, current, rotation, perDay), crewOnShift(stationId, next, rotation, perDay)]);
   return { settings, shiftStart: current, handoverAt: next, outgoingCrewId, incomingCrewId };
+}
+
+export type ShiftAsked = { stationId: number; shiftStart: Date; rotation: CrewRotation | null; changesPerDay: number };
+
+/** The crew of each shift asked for (swaps first, then the rotation), with one read of the swaps for all of them. */
+export async function crewsOnShifts(shifts: ShiftAsked[]): Promise<(number | null)[]> {
+  const swaps = shifts.length ? await CrewSwap.findAll({ where: { [Op.or]: shifts.map((s) => ({ stationId: s.stationId, shiftStart: s.shiftStart })) } }) : [];
+  return shifts.map(
+    (s) => swaps.find((w) => w.stationId === s.stationId && w.shiftStart.getTime() === s.shiftStart.getTime())?.crewId ?? crewFromRotation(s.rotation, s.shiftStart, s.changesPerDay),
+  );
 }

@@ -6,6 +6,9 @@ export class StationSettingsRow extends Model<InferAttributes<StationSettingsRow
   declare timeZone: string;
   declare lateEntryMinutes: number;
   declare shiftChangeTimes: string[];
+  declare roundIntervalMinutes: number;
+  declare handoverWindowBeforeMinutes: number;
+  declare handoverWindowAfterMinutes: number;
   declare positions: StationSettings['positions'];
   declare categories: StationSettings['categories'];
   declare templates: StationSettings['templates'];
@@ -20,6 +23,9 @@ export function initStationModels(sequelize: Sequelize) {
       timeZone: DataTypes.STRING(64),
       lateEntryMinutes: DataTypes.INTEGER.UNSIGNED,
       shiftChangeTimes: DataTypes.JSON,
+      roundIntervalMinutes: DataTypes.INTEGER.UNSIGNED,
+      handoverWindowBeforeMinutes: DataTypes.INTEGER.UNSIGNED,
+      handoverWindowAfterMinutes: DataTypes.INTEGER.UNSIGNED,
       positions: DataTypes.JSON,
       categories: DataTypes.JSON,
       templates: DataTypes.JSON,

@@ -9,6 +9,10 @@ export const defaultStationSettings: StationSettings = {
   timeZone: 'Europe/Berlin',
   lateEntryMinutes: 30,
   shiftChangeTimes: ['06:00', '18:00'],
+  // Common practice varies from hourly rounds to one a shift; four hours is a starting point only.
+  roundIntervalMinutes: 240,
+  handoverWindowBeforeMinutes: 120,
+  handoverWindowAfterMinutes: 120,
   positions: [
     { key: 'control_room', label: 'Control room' },
     { key: 'field_cw_tower', label: 'Field — CW and tower' },
@@ -46,6 +50,9 @@ export function settingsFromRow(row: StationSettingsRow): StationSettings {
     timeZone: row.timeZone,
     lateEntryMinutes: row.lateEntryMinutes,
     shiftChangeTimes: row.shiftChangeTimes,
+    roundIntervalMinutes: row.roundIntervalMinutes,
+    handoverWindowBeforeMinutes: row.handoverWindowBeforeMinutes,
+    handoverWindowAfterMinutes: row.handoverWindowAfterMinutes,
     positions: row.positions,
     categories: row.categories,
     templates: row.templates,

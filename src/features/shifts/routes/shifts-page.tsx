@@ -6,6 +6,8 @@ import { Notice } from '../../../components/ui/notice';
 import { ApiError, api } from '../../../lib/api-client';
 import { useCrews } from '../../../components/plant/crews';
 import { StationTimeInput, readStationTime, useStationTimeField } from '../../../components/station-time/station-time-input';
+import { useStationSettings } from '../api/station-settings';
+import { StationSettingsForm } from '../components/station-settings-form';
 
 const field = 'rounded-md border border-line bg-field px-2 py-1';
 const fieldsOf = (error: unknown) => (error instanceof ApiError ? Object.entries(error.fields).map(([k, v]) => `${k}: ${v}`).join('; ') || error.message : error instanceof Error ? error.message : '');
@@ -16,23 +18,17 @@ export function ShiftsPage() {
   const stationId = unit?.stationId ?? null;
   const queryClient = useQueryClient();
   const crews = useCrews();
+  const stationSettings = useStationSettings(stationId);
   const shifts = useQuery({
     queryKey: ['log', 'shifts', unitId],
     queryFn: () => api.get<{ settings: StationSettings; shifts: { start: string; label: string }[] }>(`/api/units/${unitId}/log/shifts`),
     enabled: unitId !== null,
   });
-  const [timeZone, setTimeZone] = useState<string | null>(null);
-  const [times, setTimes] = useState<string | null>(null);
-  const [late, setLate] = useState<string | null>(null);
   const [anchor, setAnchor] = useState('');
   const [order, setOrder] = useState<number[]>([]);
   const [swap, setSwap] = useState({ crewId: '', reason: '' });
   const swapStart = useStationTimeField();
   const refresh = () => void queryClient.invalidateQueries();
-  const saveSettings = useMutation({
-    mutationFn: (settings: StationSettings) => api.put(`/api/stations/${stationId}/settings`, settings),
-    onSuccess: refresh,
-  });
   const saveRotation = useMutation({ mutationFn: (body: { anchorShiftStart: string; crewIds: number[] }) => api.put(`/api/stations/${stationId}/crew-rotation`, body), onSuccess: refresh });
   const addSwap = useMutation({ mutationFn: (body: { shiftStart: string; crewId: number; reason: string }) => api.post(`/api/stations/${stationId}/crew-swaps`, body), onSuccess: refresh });
   const settings = shifts.data?.settings;
@@ -41,38 +37,8 @@ export function ShiftsPage() {
   return (
     <section className="flex max-w-3xl flex-col gap-4">
       <h1 className="text-2xl font-bold">Shifts and crews</h1>
-      <form
-        aria-label="Station clock and shifts"
-        className="flex flex-col gap-2 rounded-lg border border-line bg-panel p-3 text-sm"
-        onSubmit={(e) => {
-          e.preventDefault();
-          saveSettings.mutate({
-            ...settings,
-            timeZone: timeZone ?? settings.timeZone,
-            shiftChangeTimes: (times ?? settings.shiftChangeTimes.join(', ')).split(',').map((t) => t.trim()).filter(Boolean),
-            lateEntryMinutes: Number(late ?? settings.lateEntryMinutes),
-          });
-        }}
-      >
-        <h2 className="font-bold">Station clock and shifts</h2>
-        <label className="flex flex-col">
-          Time zone (IANA)
-          <input className={field} value={timeZone ?? settings.timeZone} onChange={(e) => setTimeZone(e.target.value)} />
-        </label>
-        <label className="flex flex-col">
-          Shift change times, local (e.g. 06:00, 18:00 for 12-hour shifts; 06:00, 14:00, 22:00 for 8-hour)
-          <input className={field} value={times ?? settings.shiftChangeTimes.join(', ')} onChange={(e) => setTimes(e.target.value)} />
-        </label>
-        <label className="flex flex-col">
-          Late entry after (minutes)
-          <input className={field} inputMode="numeric" value={late ?? String(settings.lateEntryMinutes)} onChange={(e) => setLate(e.target.value)} />
-        </label>
-        {saveSettings.error ? <Notice kind="error">{fieldsOf(saveSettings.error)}</Notice> : null}
-        {saveSettings.isSuccess ? <Notice kind="success">Saved.</Notice> : null}
-        <button type="submit" className="self-start rounded-md bg-accent px-3 py-1 font-bold text-on-accent">
-          Save
-        </button>
-      </form>
+      {stationId !== null && stationSettings.data ? <StationSettingsForm key={stationId} stationId={stationId} settings={stationSettings.data} /> : null}
+      {stationSettings.error ? <Notice kind="error">{stationSettings.error.message}</Notice> : null}
 
       <form
         aria-label="Crew rotation"

@@ -1,0 +1,48 @@
+// Every unit with its station's settings and the shift in progress: which crew works it, when it
+// changes and who comes in. A fixed number of reads whatever the number of units or stations.
+import { nextShiftStart, shiftStartFor } from '../../../shared/shift-time';
+import type { StationSettings } from '../../../shared/schemas/log';
+import { Crew, PlantUnit, Station } from '../plant/model';
+import { crewsOnShifts, type CrewRotation } from '../shifts/crews';
+import { StationSettingsRow } from '../stations/model';
+import { defaultStationSettings, settingsFromRow } from '../stations/settings';
+
+export type StationNow = {
+  stationId: number;
+  name: string;
+  settings: StationSettings;
+  shiftStart: Date;
+  changeAt: Date;
+  crewOnShiftId: number | null;
+  incomingCrewId: number | null;
+};
+
+export type ShiftNow = {
+  units: PlantUnit[];
+  stations: Map<number, StationNow>;
+  crewNames: Map<number, string>;
+};
+
+export async function shiftNow(now: Date): Promise<ShiftNow> {
+  const [units, stations, rows] = await Promise.all([PlantUnit.findAll({ order: [['code', 'ASC']] }), Station.findAll(), StationSettingsRow.findAll()]);
+  const rowOf = new Map(rows.map((r) => [r.stationId, r]));
+  const setups = stations.map((station) => {
+    const row = rowOf.get(station.id);
+    const settings = row ? settingsFromRow(row) : defaultStationSettings;
+    const shiftStart = shiftStartFor(now, settings.timeZone, settings.shiftChangeTimes);
+    const changeAt = nextShiftStart(shiftStart, settings.timeZone, settings.shiftChangeTimes);
+    return { station, settings, rotation: (row?.crewRotation ?? null) as CrewRotation | null, shiftStart, changeAt };
+  });
+  const crews = await crewsOnShifts(
+    setups.flatMap((s) => [s.shiftStart, s.changeAt].map((shiftStart) => ({ stationId: s.station.id, shiftStart, rotation: s.rotation, changesPerDay: s.settings.shiftChangeTimes.length }))),
+  );
+  const crewIds = [...new Set(crews.filter((id): id is number => id !== null))];
+  const crewNames = new Map((crewIds.length ? await Crew.findAll({ where: { id: crewIds }, attributes: ['id', 'name'] }) : []).map((c) => [c.id, c.name]));
+  const byStation = new Map<number, StationNow>(
+    setups.map((s, i) => [
+      s.station.id,
+      { stationId: s.station.id, name: s.station.name, settings: s.settings, shiftStart: s.shiftStart, changeAt: s.changeAt, crewOnShiftId: crews[2 * i] ?? null, incomingCrewId: crews[2 * i + 1] ?? null },
+    ]),
+  );
+  return { units, stations: byStation, crewNames };
+}

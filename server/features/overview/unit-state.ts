@@ -1,0 +1,119 @@
+// What each unit's panel shows besides the shift: its latest round, open flags, open conditions and
+// the handover of the coming change. Each reader takes every unit at once (one or two statements),
+// so the page costs the same number of queries for two units as for twenty.
+import { Op, QueryTypes, type Sequelize } from 'sequelize';
+import { checkCatalog, type CheckKey } from '../../../shared/calc/check-catalog';
+import type { Evaluation } from '../../../shared/calc/evaluate';
+import type { Status } from '../../../shared/calc/limits';
+import { overviewCheckKeys, type OverviewCheck, type OverviewFlag } from '../../../shared/schemas/overview';
+import { Condition } from '../conditions/model';
+import { Handover, HandoverAck, HandoverItem, HandoverQuery } from '../handovers/model';
+import { ReadingAmendment, ReadingCountersign, ReadingSet } from '../readings/model';
+
+/** The newest round (walked and recorded, not imported history) of each unit, in its current version. */
+export async function latestRounds(sequelize: Sequelize, unitIds: number[]) {
+  if (!unitIds.length) return new Map<number, LatestRound>();
+  // One index range per unit, newest first, in a single statement.
+  const pick = unitIds.map(() => `(SELECT id FROM reading_sets WHERE unit_id = ? AND source = 'round' ORDER BY taken_at DESC, id DESC LIMIT 1)`).join(' UNION ALL ');
+  const ids = (await sequelize.query<{ id: number }>(pick, { replacements: unitIds, type: QueryTypes.SELECT })).map((r) => Number(r.id));
+  if (!ids.length) return new Map<number, LatestRound>();
+  const [readings, amendments, countersigns] = await Promise.all([
+    ReadingSet.findAll({ where: { id: ids }, attributes: ['id', 'unitId', 'takenAt', 'recordedBy', 'recordedAsTrainee', 'results', 'worstStatus'] }),
+    ReadingAmendment.findAll({ where: { readingSetId: ids }, attributes: ['id', 'readingSetId', 'results', 'worstStatus'], order: [['id', 'ASC']] }),
+    ReadingCountersign.findAll({ where: { readingSetId: ids }, attributes: ['readingSetId'] }),
+  ]);
+  const signed = new Set(countersigns.map((c) => c.readingSetId));
+  return new Map(
+    readings.map((r) => {
+      const current = amendments.filter((a) => a.readingSetId === r.id).at(-1);
+      const round: LatestRound = {
+        id: r.id,
+        unitId: r.unitId,
+        takenAt: r.takenAt,
+        recordedBy: r.recordedBy,
+        recordedAsTrainee: Boolean(r.recordedAsTrainee),
+        needsCountersign: Boolean(r.recordedAsTrainee) && !signed.has(r.id),
+        amended: Boolean(current),
+        worstStatus: current?.worstStatus ?? r.worstStatus,
+        checks: keyChecks(current?.results ?? r.results),
+      };
+      return [r.unitId, round];
+    }),
+  );
+}
+
+export type LatestRound = {
+  id: number;
+  unitId: number;
+  takenAt: Date;
+  recordedBy: number;
+  recordedAsTrainee: boolean;
+  needsCountersign: boolean;
+  amended: boolean;
+  worstStatus: Status;
+  checks: OverviewCheck[];
+};
+
+function keyChecks(evaluation: Evaluation): OverviewCheck[] {
+  return overviewCheckKeys.map((key: CheckKey) => {
+    const check = evaluation.checks[key];
+    const { label, quantity } = checkCatalog[key];
+    if (!check) return { key, label, quantity, value: null, status: 'unknown', reason: 'Not computed for this round' };
+    return { key, label, quantity, value: check.value, status: check.status, reason: check.reason ?? null };
+  });
+}
+
+const TOP_FLAGS = 3;
+
+/** Open flags per unit counted by severity, and the few most severe (alarm first), newest first within a severity. */
+export async function openFlags(sequelize: Sequelize, unitIds: number[]) {
+  const counts = new Map<number, { alarm: number; watch: number }>(unitIds.map((id) => [id, { alarm: 0, watch: 0 }]));
+  const top = new Map<number, OverviewFlag[]>(unitIds.map((id) => [id, []]));
+  if (!unitIds.length) return { counts, top };
+  const [grouped, leading] = await Promise.all([
+    sequelize.query<{ unitId: number; severity: 'watch' | 'alarm'; n: number }>(
+      `SELECT unit_id AS unitId, severity, COUNT(*) AS n FROM flags WHERE status = 'open' AND unit_id IN (?) GROUP BY unit_id, severity`,
+      { replacements: [unitIds], type: QueryTypes.SELECT },
+    ),
+    sequelize.query<{ id: number; unitId: number; parameter: string; origin: 'automatic' | 'manual'; severity: 'watch' | 'alarm'; lastValue: number | null; raisedAt: Date }>(
+      `SELECT id, unit_id AS unitId, parameter, origin, severity, last_value AS lastValue, raised_at AS raisedAt FROM (
+         SELECT f.*, ROW_NUMBER() OVER (PARTITION BY unit_id ORDER BY severity = 'alarm' DESC, raised_at DESC, id DESC) AS place
+         FROM flags f WHERE status = 'open' AND unit_id IN (?)) ranked
+       WHERE place <= ${TOP_FLAGS} ORDER BY unitId, place`,
+      { replacements: [unitIds], type: QueryTypes.SELECT },
+    ),
+  ]);
+  for (const g of grouped) counts.get(Number(g.unitId))![g.severity] = Number(g.n);
+  for (const f of leading) {
+    const catalogued = checkCatalog[f.parameter as CheckKey];
+    top.get(Number(f.unitId))!.push({
+      id: Number(f.id),
+      parameter: f.parameter,
+      parameterLabel: catalogued?.label ?? f.parameter,
+      quantity: catalogued?.quantity ?? null,
+      origin: f.origin,
+      severity: f.severity,
+      lastValue: f.lastValue === null ? null : Number(f.lastValue),
+      raisedAt: new Date(f.raisedAt).toISOString(),
+    });
+  }
+  return { counts, top };
+}
+
+/** Open time-limited conditions, soonest deadline first. */
+export const openConditions = (unitIds: number[]) =>
+  unitIds.length ? Condition.findAll({ where: { unitId: unitIds, closedAt: null }, order: [['limitAt', 'ASC']], limit: 200 }) : Promise.resolve([]);
+
+/** The handover of each unit's coming change (the board's "current" one), with its items, acknowledgements and open questions. */
+export async function currentHandovers(shifts: { unitId: number; shiftStart: Date }[]) {
+  const handovers = shifts.length ? await Handover.findAll({ where: { [Op.or]: shifts.map((s) => ({ unitId: s.unitId, shiftStart: s.shiftStart })) } }) : [];
+  const submittedIds = handovers.filter((h) => h.status === 'submitted').map((h) => h.id);
+  const items = submittedIds.length ? await HandoverItem.findAll({ where: { handoverId: submittedIds }, attributes: ['id', 'handoverId', 'title', 'priority'], order: [['id', 'ASC']] }) : [];
+  const itemIds = items.map((i) => i.id);
+  const [acks, openQuestions] = await Promise.all([
+    itemIds.length ? HandoverAck.findAll({ where: { itemId: itemIds }, attributes: ['itemId', 'userId'] }) : [],
+    itemIds.length ? HandoverQuery.findAll({ where: { itemId: itemIds, answeredAt: null }, attributes: ['id', 'itemId'] }) : [],
+  ]);
+  return { handovers, items, acks, openQuestions };
+}
+export type CurrentHandovers = Awaited<ReturnType<typeof currentHandovers>>;

@@ -1,0 +1,65 @@
+// "Waiting on you": what the person asking still has to do, gathered from the features that own
+// each rule — handover items to acknowledge, trainee rounds and training entries to countersign,
+// standing orders to read, review comments on their records.
+import { Op, literal } from 'sequelize';
+import type { ReviewCommentView } from '../../../shared/schemas/logbook';
+import type { WaitingOnYou } from '../../../shared/schemas/overview';
+import { ReadingSet } from '../readings/model';
+import { pendingFor } from '../standing-orders/service';
+import { countersignQueue } from '../training/service';
+import type { CurrentHandovers } from './unit-state';
+
+const CREW_ROLES: readonly string[] = ['trainee', 'operator', 'shift_lead'];
+/** The roles the rounds and training routes let countersign. */
+const COUNTERSIGNERS: readonly string[] = ['operator', 'shift_lead'];
+const LIST_LIMIT = 10;
+/** Review comments have no "read" mark; the front page shows the recent ones and the logbook keeps them all. */
+const RECENT_COMMENTS_MS = 7 * 86_400_000;
+
+export type ReviewCommentsFor = (viewer: Express.User, limit: number) => Promise<ReviewCommentView[]>;
+
+/** Handover items of submitted handovers where the viewer's crew comes in and the viewer has not acknowledged. */
+export function handoverItemsFor(viewer: Express.User, current: CurrentHandovers, unitName: (unitId: number) => string): WaitingOnYou['handoverItems'] {
+  if (viewer.crewId === null || !CREW_ROLES.includes(viewer.role)) return [];
+  const mine = new Map(current.handovers.filter((h) => h.status === 'submitted' && h.incomingCrewId === viewer.crewId).map((h) => [h.id, h]));
+  const acked = new Set(current.acks.filter((a) => a.userId === viewer.id).map((a) => a.itemId));
+  return current.items
+    .filter((i) => mine.has(i.handoverId) && !acked.has(i.id))
+    .map((i) => {
+      const unitId = mine.get(i.handoverId)!.unitId;
+      return { itemId: i.id, handoverId: i.handoverId, unitId, unitName: unitName(unitId), title: i.title, priority: i.priority };
+    });
+}
+
+/**
+ * Trainee rounds not yet countersigned, newest first, for someone whose role countersigns — their
+ * own crew's trainees when they belong to a crew, since those are the rounds they walked beside.
+ */
+export async function traineeRoundsFor(viewer: Express.User) {
+  if (!COUNTERSIGNERS.includes(viewer.role)) return [];
+  const recordedBy: Record<symbol, unknown> = { [Op.ne]: viewer.id };
+  if (viewer.crewId !== null) recordedBy[Op.in] = literal(`(SELECT id FROM users WHERE crew_id = ${Number(viewer.crewId)})`);
+  return ReadingSet.findAll({
+    where: { recordedAsTrainee: true, recordedBy, id: { [Op.notIn]: literal('(SELECT reading_set_id FROM reading_countersigns)') } },
+    attributes: ['id', 'unitId', 'takenAt', 'recordedBy'],
+    order: [['takenAt', 'DESC'], ['id', 'DESC']],
+    limit: LIST_LIMIT,
+  });
+}
+
+export async function trainingEntriesFor(viewer: Express.User): Promise<WaitingOnYou['trainingEntries']> {
+  if (!COUNTERSIGNERS.includes(viewer.role)) return [];
+  const queue = await countersignQueue(viewer);
+  return queue.slice(0, LIST_LIMIT).map((e) => ({ id: e.id, trainee: e.trainee, taskTitle: e.taskTitle, performedOn: e.performedOn, level: e.level }));
+}
+
+export async function standingOrdersFor(viewer: Express.User): Promise<WaitingOnYou['standingOrders']> {
+  return (await pendingFor(viewer.id)).slice(0, LIST_LIMIT).map((o) => ({ id: o.id, title: o.title, effectiveFrom: o.effectiveFrom }));
+}
+
+export async function reviewCommentsFor(viewer: Express.User, commentsFor: ReviewCommentsFor, now: Date): Promise<WaitingOnYou['reviewComments']> {
+  const comments = await commentsFor(viewer, LIST_LIMIT);
+  return comments
+    .filter((c) => now.getTime() - Date.parse(c.createdAt) <= RECENT_COMMENTS_MS)
+    .map((c) => ({ id: c.id, documentId: c.documentId, about: c.about, author: c.author, body: c.body, createdAt: c.createdAt, unitId: c.unitId, shiftStart: c.shiftStart }));
+}

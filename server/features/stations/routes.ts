@@ -1,0 +1,24 @@
+import { Router } from 'express';
+import { stationSettingsSchema } from '../../../shared/schemas/log';
+import { adminOnly, signedIn } from '../../lib/auth';
+import { parseId, parseInput } from '../../lib/validate';
+import { settingsForStation } from './settings';
+import { requireStation, type StationService } from './service';
+
+export function stationRoutes(stations: StationService): Router {
+  const router = Router();
+
+  router.get('/stations/:stationId/settings', signedIn, async (req, res) => {
+    const stationId = parseId(req.params.stationId, 'stationId');
+    await requireStation(stationId);
+    res.json({ settings: await settingsForStation(stationId) });
+  });
+
+  router.put('/stations/:stationId/settings', adminOnly, async (req, res) => {
+    const stationId = parseId(req.params.stationId, 'stationId');
+    const settings = parseInput(stationSettingsSchema, req.body);
+    res.json({ settings: await stations.saveSettings(req.user!, stationId, settings) });
+  });
+
+  return router;
+}
