@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from 'vitest';
 import type { Role } from '../../shared/roles';
 import type { Overview } from '../../shared/schemas/overview';
 import { shiftStartFor } from '../../shared/shift-time';
@@ -6,6 +6,7 @@ import { defaultStationSettings } from '../../server/features/stations/settings'
 import { buildApp, closeAll, makeStation, makeUser, signedInAgent, type Agent } from './support/test-app';
 
 afterAll(closeAll);
+afterEach(() => vi.useRealTimers());
 const built = buildApp();
 const post = (agent: Agent, path: string, body: unknown = {}) => agent.post(path).set('X-CSRF-Token', agent.csrf).send(body as object);
 const waiting = async (agent: Agent) => ((await agent.get('/api/overview').expect(200)).body as Overview).waiting;
@@ -51,11 +52,14 @@ beforeAll(async () => {
 
 describe('GET /api/overview — waiting on you', () => {
   it('lists a submitted handover’s items for each incoming crew member until they acknowledge, and counts what is outstanding', async () => {
-    const opened = await a.operator.get(`/api/units/${unitId}/handovers/current`).expect(200);
+    const opened = await post(a.operator, `/api/units/${unitId}/handovers/current`).expect(201);
     const handoverId = opened.body.board.handover.id;
     await post(a.operator, `/api/handovers/${handoverId}/items`, { kind: 'follow_up', title: 'Waterbox A backwash due at 02:00', priority: 'high' }).expect(201);
     expect((await panelOf(a.operator, unitId)).handover).toMatchObject({ state: 'draft', id: handoverId });
     expect((await waiting(b.operator)).handoverItems).toEqual([]);
+    // Submitted within the window around the shift change: the server's clock half an hour before it.
+    vi.useFakeTimers({ toFake: ['Date'], shouldAdvanceTime: true });
+    vi.setSystemTime(new Date(Date.parse(opened.body.board.handover.handoverAt) - 30 * 60_000));
     await post(a.operator, `/api/handovers/${handoverId}/submit`).expect(200);
 
     const board = (await a.operator.get(`/api/handovers/${handoverId}`).expect(200)).body.board;

@@ -106,14 +106,21 @@ export const openConditions = (unitIds: number[]) =>
 
 /** The handover of each unit's coming change (the board's "current" one), with its items, acknowledgements and open questions. */
 export async function currentHandovers(shifts: { unitId: number; shiftStart: Date }[]) {
-  const handovers = shifts.length ? await Handover.findAll({ where: { [Op.or]: shifts.map((s) => ({ unitId: s.unitId, shiftStart: s.shiftStart })) } }) : [];
+  const handovers = shifts.length
+    ? await Handover.findAll({ where: { [Op.or]: shifts.map((s) => ({ unitId: s.unitId, shiftStart: s.shiftStart })) }, attributes: { exclude: ['notesHtml', 'condenserSnapshot'] } })
+    : [];
   const submittedIds = handovers.filter((h) => h.status === 'submitted').map((h) => h.id);
-  const items = submittedIds.length ? await HandoverItem.findAll({ where: { handoverId: submittedIds }, attributes: ['id', 'handoverId', 'title', 'priority'], order: [['id', 'ASC']] }) : [];
+  const items = submittedIds.length
+    ? await HandoverItem.findAll({ where: { handoverId: submittedIds, removedAt: null }, attributes: ['id', 'handoverId', 'title', 'priority', 'version'], order: [['id', 'ASC']] })
+    : [];
   const itemIds = items.map((i) => i.id);
-  const [acks, openQuestions] = await Promise.all([
-    itemIds.length ? HandoverAck.findAll({ where: { itemId: itemIds }, attributes: ['itemId', 'userId'] }) : [],
+  const [allAcks, openQuestions] = await Promise.all([
+    itemIds.length ? HandoverAck.findAll({ where: { itemId: itemIds }, attributes: ['itemId', 'userId', 'itemVersion'] }) : [],
     itemIds.length ? HandoverQuery.findAll({ where: { itemId: itemIds, answeredAt: null }, attributes: ['id', 'itemId'] }) : [],
   ]);
+  // Only an acknowledgement of the item as it stands counts: an amended item waits again.
+  const versionOf = new Map(items.map((i) => [i.id, i.version]));
+  const acks = allAcks.filter((a) => a.itemVersion === versionOf.get(a.itemId));
   return { handovers, items, acks, openQuestions };
 }
 export type CurrentHandovers = Awaited<ReturnType<typeof currentHandovers>>;
