@@ -1,5 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
-import { signIn } from './support';
+import { openHandoverWindowAllShift, signIn } from './support';
 
 async function openBoard(page: Page) {
   await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Handover', exact: true }).click();
@@ -14,7 +14,9 @@ async function acknowledgeEverything(page: Page) {
   }
 }
 
-test('outgoing writes, incoming acknowledges live, the incoming lead accepts', async ({ browser }) => {
+test('outgoing writes, incoming acknowledges live, the incoming lead accepts', async ({ browser, baseURL }) => {
+  test.setTimeout(90_000);
+  await openHandoverWindowAllShift(baseURL!);
   const outgoing = await (await browser.newContext()).newPage();
   const incoming = await (await browser.newContext()).newPage();
   const lead = await (await browser.newContext()).newPage();
@@ -22,11 +24,17 @@ test('outgoing writes, incoming acknowledges live, the incoming lead accepts', a
   // Demo rotation: crew A is on shift, crew B comes next.
   await signIn(incoming, 'operator.b@fernhollow.example');
   await openBoard(incoming);
-  await expect(incoming.getByText('has not started this shift’s handover')).toBeVisible();
-
   await signIn(outgoing, 'operator.a@fernhollow.example');
   await openBoard(outgoing);
+  // Opening the board starts nothing; the outgoing crew starts the draft (an earlier test may have).
+  const start = outgoing.getByRole('button', { name: 'Start this shift’s handover' });
+  await expect(start.or(outgoing.getByTestId('handover-status'))).toBeVisible();
+  if (await start.isVisible()) {
+    await expect(incoming.getByText('has not started this shift’s handover')).toBeVisible();
+    await start.click();
+  }
   await expect(outgoing.getByTestId('handover-status')).toContainText('Draft');
+  await expect(incoming.getByTestId('handover-status')).toContainText('Draft');
   // Beside the notes: the condenser over the shift so far, from the demo's rounds.
   await expect(outgoing.getByTestId('condenser-live')).toContainText('Condenser over the shift');
   await expect(outgoing.getByTestId('energy-lost')).toContainText('MWh');

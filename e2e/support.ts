@@ -1,4 +1,4 @@
-import { expect, type Page } from '@playwright/test';
+import { expect, request, type Page } from '@playwright/test';
 
 export const DEMO_PASSWORD = 'hotwell-demo-2026';
 
@@ -9,7 +9,45 @@ export async function signIn(page: Page, email: string, password = DEMO_PASSWORD
   await page.getByRole('button', { name: 'Sign in' }).click();
 }
 
+/**
+ * Signs in and reads any standing orders the prompt puts in front of the person first (the demo has
+ * orders for crew A), so the page behind it can be used. Waits for the prompt's own query, not a guess.
+ */
+export async function signInReadingOrders(page: Page, email: string) {
+  const pending = page.waitForResponse((r) => r.url().endsWith('/api/me/pending-orders') && r.request().method() === 'GET');
+  await signIn(page, email);
+  const { orders } = (await (await pending).json()) as { orders: unknown[] };
+  const dialog = page.getByRole('dialog', { name: 'Standing orders to acknowledge' });
+  for (let i = 0; i < orders.length; i++) await dialog.getByRole('button', { name: 'I have read this order' }).first().click();
+  await expect(dialog).toHaveCount(0);
+}
+
 export async function signOut(page: Page) {
   await page.getByRole('button', { name: 'Sign out' }).click();
   await expect(page.getByRole('heading', { name: 'Sign in' })).toBeVisible();
+}
+
+/** The demo administrator's API session, for setting the scene a test needs (not what it tests). */
+export async function adminApi(baseURL: string) {
+  const api = await request.newContext({ baseURL });
+  const { csrfToken } = (await (await api.get('/api/session/csrf')).json()) as { csrfToken: string };
+  const signedIn = await api.post('/api/session', { headers: { 'x-csrf-token': csrfToken }, data: { email: 'admin@fernhollow.example', password: DEMO_PASSWORD } });
+  expect(signedIn.ok()).toBe(true);
+  const csrf = ((await signedIn.json()) as { csrfToken: string }).csrfToken;
+  return { api, csrf };
+}
+
+/**
+ * The handover window is set by the station (2 h either side of the change by default). A test that
+ * submits and accepts at whatever time it runs opens it for the whole shift: the most a station may
+ * set (before + after = the 12-hour shift), so the run does not depend on the time of day.
+ */
+export async function openHandoverWindowAllShift(baseURL: string) {
+  const { api, csrf } = await adminApi(baseURL);
+  const units = ((await (await api.get('/api/plant/units')).json()) as { units: { stationId: number }[] }).units;
+  const stationId = units[0]!.stationId;
+  const { settings } = (await (await api.get(`/api/stations/${stationId}/settings`)).json()) as { settings: Record<string, unknown> };
+  const saved = await api.put(`/api/stations/${stationId}/settings`, { headers: { 'x-csrf-token': csrf }, data: { ...settings, handoverWindowBeforeMinutes: 720, handoverWindowAfterMinutes: 0 } });
+  expect(saved.status(), await saved.text()).toBe(200);
+  await api.dispose();
 }
