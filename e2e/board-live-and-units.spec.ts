@@ -39,7 +39,7 @@ test('a round with a high backpressure saved in one browser shows within a secon
 
   // The recorder, in another browser.
   const recorder = await (await browser.newContext()).newPage();
-  await signInReadingOrders(recorder, 'operator.a@fernhollow.example');
+  await signInReadingOrders(recorder, 'field.a@fernhollow.example');
   await recorder.goto(`/rounds?unit=${unitParam}`);
   const form = recorder.getByRole('form', { name: 'Record a round' });
   await form.getByLabel('Pressure gauge').selectOption('inHg_vac');
@@ -66,7 +66,7 @@ test('a round with a high backpressure saved in one browser shows within a secon
 
 test('switching units on the handover keeps each unit’s notes apart, and a reload right after typing keeps the text', async ({ page }) => {
   test.setTimeout(90_000);
-  await signInReadingOrders(page, 'operator.a@fernhollow.example');
+  await signInReadingOrders(page, 'field.a@fernhollow.example');
   await nav(page, 'Handover');
   const editor = page.getByRole('textbox', { name: 'Handover notes' });
   const startIfNeeded = async () => {

@@ -1,15 +1,13 @@
 import { useState } from 'react';
-import { useQuery } from '@tanstack/react-query';
-import type { StationSettings } from '../../../../shared/schemas/log';
 import { useSelectedUnit } from '../../../components/readings/unit-picker';
 import { Notice } from '../../../components/ui/notice';
 import { useStationZone } from '../../../components/station-time/use-station-zone';
 import { ZoneNote } from '../../../components/station-time/zone-note';
 import { formatStationTime } from '../../../../shared/station-time';
-import { api } from '../../../lib/api-client';
 import { useMe } from '../../session/api/get-me';
 import { useOrder, useOrders } from '../api/orders';
 import { IssueOrderForm } from '../components/issue-order-form';
+import { useStationSettings } from '../../shifts/api/station-settings';
 
 
 function WhoHasRead({ id, stamp }: { id: number; stamp: (iso: string) => string }) {
@@ -31,11 +29,7 @@ export function OrdersPage() {
   const [q, setQ] = useState('');
   const [open, setOpen] = useState<number | null>(null);
   const orders = useOrders(state, q);
-  const settings = useQuery({
-    queryKey: ['station-settings', unit?.stationId],
-    queryFn: async () => (await api.get<{ settings: StationSettings }>(`/api/stations/${unit!.stationId}/settings`)).settings,
-    enabled: Boolean(unit),
-  });
+  const settings = useStationSettings(unit?.stationId ?? null);
   // The list is the first station's (the server's choice when none is named), so its zone applies.
   const zone = useStationZone(null);
   const stamp = (iso: string) => (zone ? formatStationTime(iso, zone.timeZone) : '…');

@@ -17,6 +17,7 @@ import { ApiError } from '../../../lib/api-client';
 import type { DisplayPreferences } from '../../../../shared/display';
 import { useMe } from '../../session/api/get-me';
 import { useAmendReading, useReading, type ReadingDetail } from '../api/readings';
+import { useWatchUnit } from '../../../app/use-live-updates';
 
 const prefsOf = (detail: ReadingDetail): DisplayPreferences => ({
   temperature: detail.reading.raw.hotwellTemperature.unit as DisplayPreferences['temperature'],
@@ -101,6 +102,7 @@ export function ReadingPage() {
   const id = Number(useParams().id);
   const { data: me } = useMe();
   const reading = useReading(id);
+  useWatchUnit(reading.data?.reading.unitId ?? null);
   const [amending, setAmending] = useState(false);
   const zone = useUnitZone(reading.data?.reading.unitId);
   if (reading.error) return <Notice kind="error">{reading.error.message}</Notice>;

@@ -8,6 +8,7 @@ import { useCrews } from '../../../components/plant/crews';
 import { StationTimeInput, readStationTime, useStationTimeField } from '../../../components/station-time/station-time-input';
 import { useStationSettings } from '../api/station-settings';
 import { StationSettingsForm } from '../components/station-settings-form';
+import { logKeys } from '../../log/api/log';
 
 const field = 'rounded-md border border-line bg-field px-2 py-1';
 const fieldsOf = (error: unknown) => (error instanceof ApiError ? Object.entries(error.fields).map(([k, v]) => `${k}: ${v}`).join('; ') || error.message : error instanceof Error ? error.message : '');
@@ -20,7 +21,7 @@ export function ShiftsPage() {
   const crews = useCrews();
   const stationSettings = useStationSettings(stationId);
   const shifts = useQuery({
-    queryKey: ['log', 'shifts', unitId],
+    queryKey: logKeys.shifts(unitId ?? 0),
     queryFn: () => api.get<{ settings: StationSettings; shifts: { start: string; label: string }[] }>(`/api/units/${unitId}/log/shifts`),
     enabled: unitId !== null,
   });
