@@ -31,10 +31,12 @@ export async function refreshAutomaticFlags(
         existing.lastSeenAt = takenAt;
         existing.lastValue = check.value;
       }
-      if (severity === 'alarm') existing.severity = 'alarm';
+      const escalates = severity === 'alarm' && existing.severity !== 'alarm';
+      if (escalates) existing.severity = 'alarm';
       existing.version += 1;
       await existing.save({ transaction });
-      publish(transaction, { entity: 'flag', id: existing.id, unitId });
+      // A refreshed last value reaches the browsers with the round's own event; an escalation is news of its own.
+      if (escalates) publish(transaction, { entity: 'flag', id: existing.id, unitId });
     } else {
       const created = await Flag.create(
         {

@@ -39,7 +39,7 @@ async function wantedItems(handover: Handover, transaction: Transaction): Promis
   ];
 }
 
-/** Brings a draft's automatic items up to date; returns how many were attached. */
+/** Brings a draft's automatic items up to date; returns how many items it attached or changed. */
 export async function syncAutomaticItems(handover: Handover, transaction: Transaction): Promise<number> {
   if (handover.status !== 'draft') return 0;
   const [wanted, existing] = await Promise.all([
@@ -62,6 +62,7 @@ export async function syncAutomaticItems(handover: Handover, transaction: Transa
     const item = have.get(`${w.kind}:${w.sourceId}`);
     if (!item || item.removedAt || (item.title === w.title && item.priority === w.priority)) continue;
     await item.update({ title: w.title, priority: w.priority, version: item.version + 1 }, { transaction });
+    attached += 1;
   }
   return attached;
 }

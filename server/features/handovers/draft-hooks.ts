@@ -25,8 +25,7 @@ async function syncDraftsOf(unitIds: number[], transaction: Transaction | null |
     transaction,
   });
   for (const draft of drafts) {
-    await syncAutomaticItems(draft, transaction);
-    publish(transaction, { entity: 'handover', id: draft.id, unitId: draft.unitId });
+    if (await syncAutomaticItems(draft, transaction)) publish(transaction, { entity: 'handover', id: draft.id, unitId: draft.unitId });
   }
 }
 

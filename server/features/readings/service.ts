@@ -23,7 +23,7 @@ export function checkTakenAt(takenAt: Date, field = 'takenAt') {
   if (takenAt.getFullYear() < 1990) throw new ValidationError({ [field]: 'Too far in the past (before 1990)' });
 }
 
-type Actor = { id: number; role: string };
+type Actor = { id: number; role: string; name?: string };
 
 export type StoreReading = {
   unitId: number;
@@ -89,7 +89,9 @@ export function makeReadingService(sequelize: Sequelize) {
       publish(transaction, { entity: 'reading', id: stored.reading.id, unitId });
       return stored;
     });
-    return { id: reading.id, flagsRaised, ...(await getReading(reading.id)) };
+    // Presented from what was just written: no read back, so the work after the commit (while every
+    // open board is being told) stays small.
+    return { id: reading.id, flagsRaised, ...presentReading(reading, [], null, new Map([[actor.id, actor.name ?? (await names([actor.id])).get(actor.id) ?? `#${actor.id}`]])) };
   }
 
   async function amend(actor: Actor, readingSetId: number, input: AmendReadingInput) {
@@ -145,6 +147,10 @@ export async function getReading(id: number) {
     ReadingCountersign.findByPk(id),
   ]);
   const who = await names([reading.recordedBy, countersign?.signedBy, ...amendments.map((a) => a.amendedBy)]);
+  return presentReading(reading, amendments, countersign, who);
+}
+
+function presentReading(reading: ReadingSet, amendments: ReadingAmendment[], countersign: ReadingCountersign | null, who: Map<number, string>) {
   const current = amendments.at(-1);
   return {
     reading: {
