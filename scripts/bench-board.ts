@@ -96,7 +96,7 @@ async function main() {
     await new Promise((r) => setTimeout(r, 500)); // let every join land
 
     /** The moment (performance.now) each client has a matching event, after `trigger` runs. */
-    const arrivalStamps = async (trigger: () => Promise<unknown>, expect: (payload: { entity?: string; probe?: boolean }) => boolean) => {
+    const arrivalStamps = async (trigger: () => Promise<unknown> | void, expect: (payload: { entity?: string; probe?: boolean }) => boolean) => {
       const arrivals = sockets.map(
         (socket) =>
           new Promise<number>((resolve) => {
@@ -112,21 +112,10 @@ async function main() {
       return Promise.all(arrivals);
     };
 
+    /** How long after the trigger started each client has a matching event. */
     const timeToAll = async (trigger: () => Promise<unknown> | void, expect: (payload: { entity?: string; probe?: boolean }) => boolean) => {
       const started = performance.now();
-      const arrivals = sockets.map(
-        (socket) =>
-          new Promise<number>((resolve) => {
-            const handler = (payload: { entity?: string; probe?: boolean }) => {
-              if (!expect(payload)) return;
-              socket.off('changed', handler);
-              resolve(performance.now() - started);
-            };
-            socket.on('changed', handler);
-          }),
-      );
-      await trigger();
-      return Promise.all(arrivals);
+      return (await arrivalStamps(trigger, expect)).map((at) => at - started);
     };
 
     // One acknowledgement per item (each a separate round), alternating with the raw broadcast.

@@ -3,6 +3,7 @@ import type { Role } from '../../shared/roles';
 import { AuditEvent } from '../../server/features/audit/model';
 import { Handover, HandoverAck, HandoverItem, HandoverQuery } from '../../server/features/handovers/model';
 import { db } from './support/test-app';
+import { vacuumRound } from './support/rounds';
 import { User } from '../../server/features/users/model';
 import { anonymousAgent, buildApp, closeAll, makeStation, makeUser, signedInAgent, type Agent } from './support/test-app';
 
@@ -274,14 +275,7 @@ describe('a flag that escalates while the handover is a draft', () => {
     const writer = await signedInAgent(built, (await makeUser('operator', { crewId: crews[0]!.id })).email);
     const shifts = await agents.admin.get(`/api/units/${unit.id}/log/shifts`).expect(200);
     await agents.admin.put(`/api/stations/${station.id}/crew-rotation`).set('X-CSRF-Token', agents.admin.csrf).send({ anchorShiftStart: shifts.body.shifts[0].start, crewIds: crews.map((c) => c.id) }).expect(200);
-    const round = (vacuumInHg: number) => ({
-      pressure: { value: vacuumInHg, unit: 'inHg_vac' },
-      barometer: { value: 29.92, unit: 'inHgA' },
-      hotwellTemperature: { value: 45, unit: 'degC' },
-      cwInletTemperature: { value: 18, unit: 'degC' },
-      cwOutletTemperature: { value: 26.5, unit: 'degC' },
-      cwFlow: { value: 54_000, unit: 'm3_h' },
-    });
+    const round = (vacuumInHg: number) => vacuumRound(vacuumInHg, 45);
     // 26.5 inHg vacuum → 3.42 inHgA = 11.6 kPa a: above the 11 kPa a starting watch limit, below the 16 kPa a alarm.
     await post(writer, `/api/units/${unit.id}/readings`, round(26.5)).expect(201);
     const started = await post(writer, `/api/units/${unit.id}/handovers/current`).expect(201);

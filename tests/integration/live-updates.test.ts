@@ -10,6 +10,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { LiveEntity, LiveEvent } from '../../shared/live-events';
 import { onPublished, publish } from '../../server/lib/live';
 import { unitOfWork } from '../../server/lib/unit-of-work';
+import { vacuumRound } from './support/rounds';
 import { buildApp, closeAll, db, makeStation, makeUser, signedInAgent, PASSWORD, type Agent } from './support/test-app';
 
 const built = buildApp();
@@ -146,14 +147,7 @@ describe('each kind of record goes live from its service', () => {
     a.admin = await signedInAgent(built, (await makeUser('admin')).email);
   });
   const kinds = (list: LiveEvent[]) => list.map((e) => `${e.entity}${e.unitId ? `@${e.unitId}` : ''}`);
-  const round = (vacuumInHg = 28.5) => ({
-    pressure: { value: vacuumInHg, unit: 'inHg_vac' },
-    barometer: { value: 29.92, unit: 'inHgA' },
-    hotwellTemperature: { value: 31.5, unit: 'degC' },
-    cwInletTemperature: { value: 18, unit: 'degC' },
-    cwOutletTemperature: { value: 26.5, unit: 'degC' },
-    cwFlow: { value: 54_000, unit: 'm3_h' },
-  });
+  const round = (vacuumInHg = 28.5) => vacuumRound(vacuumInHg);
 
   it('rounds, their flags and countersigns', async () => {
     const traineeRound = await a.trainee.post(`/api/units/${unitId}/readings`).set('X-CSRF-Token', a.trainee.csrf).send(round());
