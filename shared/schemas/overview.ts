@@ -59,7 +59,9 @@ export type OverviewCondition = { id: number; title: string; limitAt: string; li
 
 export type OverviewHandover =
   | { state: 'none'; id: null; changeAt: string }
-  | { state: 'draft' | 'accepted'; id: number; changeAt: string }
+  | { state: 'draft'; id: number; changeAt: string }
+  /** `acknowledgementsOutstanding`: for items amended after the turnover. */
+  | { state: 'accepted'; id: number; changeAt: string; acknowledgementsOutstanding: number }
   | { state: 'submitted'; id: number; changeAt: string; acknowledgementsOutstanding: number; openQuestions: number };
 
 export type OverviewUnit = {
@@ -75,6 +77,8 @@ export type OverviewUnit = {
 
 export type WaitingOnYou = {
   handoverItems: { itemId: number; handoverId: number; unitId: number; unitName: string; title: string; priority: 'low' | 'normal' | 'high' }[];
+  handoverQuestions: { queryId: number; unitId: number; unitName: string; itemTitle: string; question: string }[];
+  handoversToAccept: { handoverId: number; unitId: number; unitName: string }[];
   traineeRounds: { id: number; unitId: number; unitName: string; takenAt: string; timeZone: string; recordedBy: string }[];
   trainingEntries: { id: number; trainee: string; taskTitle: string; performedOn: string; level: string }[];
   standingOrders: { id: number; title: string; effectiveFrom: string }[];

@@ -86,3 +86,34 @@ export function useBoardPresence(unitId: number | null): string[] {
   }, [unitId]);
   return presence && presence.unitId === unitId ? presence.people : [];
 }
+
+/**
+ * Whether this tab is hearing the server: false while the browser is offline or the live connection
+ * is down (after a short grace, so a reconnect does not flash a warning).
+ */
+export function useConnected(signedIn: boolean): boolean {
+  const [connected, setConnected] = useState(true);
+  useEffect(() => {
+    if (!signedIn) return;
+    const socket = getSocket();
+    let timer: ReturnType<typeof setTimeout> | undefined;
+    const update = () => {
+      clearTimeout(timer);
+      const up = navigator.onLine && socket.connected;
+      if (up) setConnected(true);
+      else timer = setTimeout(() => setConnected(navigator.onLine && socket.connected), 3000);
+    };
+    socket.on('connect', update);
+    socket.on('disconnect', update);
+    window.addEventListener('online', update);
+    window.addEventListener('offline', update);
+    return () => {
+      clearTimeout(timer);
+      socket.off('connect', update);
+      socket.off('disconnect', update);
+      window.removeEventListener('online', update);
+      window.removeEventListener('offline', update);
+    };
+  }, [signedIn]);
+  return connected;
+}

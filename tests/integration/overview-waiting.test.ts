@@ -74,16 +74,35 @@ describe('GET /api/overview — waiting on you', () => {
     expect((await waiting(a.operator)).handoverItems).toEqual([]);
     expect((await waiting(trainer)).handoverItems).toEqual([]);
 
+    // A question waits on the outgoing crew's writers until answered.
+    const asked = await post(b.operator, `/api/handover-items/${itemIds[0]}/queries`, { question: 'Which strainer is blocked?' }).expect(201);
+    expect((await waiting(a.operator)).handoverQuestions).toEqual([expect.objectContaining({ queryId: asked.body.id, unitId, question: 'Which strainer is blocked?' })]);
+    expect((await waiting(b.operator)).handoverQuestions).toEqual([]);
+    await post(a.operator, `/api/handover-queries/${asked.body.id}/answer`, { answer: 'Strainer B' }).expect(200);
+    expect((await waiting(a.operator)).handoverQuestions).toEqual([]);
+
     for (const id of itemIds) await post(b.operator, `/api/handover-items/${id}/acknowledge`).expect(201);
     expect((await waiting(b.operator)).handoverItems).toEqual([]);
     expect((await waiting(b.lead)).handoverItems).toHaveLength(itemIds.length);
     expect((await panelOf(b.lead, unitId)).handover).toMatchObject({ state: 'submitted', acknowledgementsOutstanding: itemIds.length });
 
     // Accepted, nothing waits any more (and no submitted handover is left behind for other tests' reminders).
+    expect((await waiting(b.lead)).handoversToAccept).toEqual([]);
     for (const id of itemIds) await post(b.lead, `/api/handover-items/${id}/acknowledge`).expect(201);
+    // Everything acknowledged and answered: the incoming lead is told the handover is ready to accept.
+    expect((await waiting(b.lead)).handoversToAccept).toEqual([{ handoverId, unitId, unitName: expect.any(String) }]);
+    expect((await waiting(b.operator)).handoversToAccept).toEqual([]);
     await post(b.lead, `/api/handovers/${handoverId}/accept`).expect(200);
     expect((await waiting(b.lead)).handoverItems).toEqual([]);
-    expect((await panelOf(b.lead, unitId)).handover).toMatchObject({ state: 'accepted', id: handoverId });
+    expect((await waiting(b.lead)).handoversToAccept).toEqual([]);
+    expect((await panelOf(b.lead, unitId)).handover).toMatchObject({ state: 'accepted', id: handoverId, acknowledgementsOutstanding: 0 });
+
+    // Amended after the turnover: the incoming crew is asked to acknowledge the item again.
+    await post(a.operator, `/api/handovers/${handoverId}/amendments`, { itemId: itemIds[0], reason: 'Time was wrong', text: 'Backwash due at 03:00' }).expect(201);
+    expect((await waiting(b.operator)).handoverItems.map((i) => i.itemId)).toEqual([itemIds[0]]);
+    expect((await panelOf(b.lead, unitId)).handover).toMatchObject({ state: 'accepted', acknowledgementsOutstanding: 2 });
+    await post(b.operator, `/api/handover-items/${itemIds[0]}/acknowledge`).expect(201);
+    expect((await waiting(b.operator)).handoverItems).toEqual([]);
   });
 
   it('lists a trainee’s round for the operators of the trainee’s crew to countersign, until one does', async () => {

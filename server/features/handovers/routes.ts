@@ -69,8 +69,8 @@ export function handoverRoutes(handovers: HandoverService): Router {
   });
 
   router.post('/handover-items/:id/acknowledge', crewMember, async (req, res) => {
-    await handovers.acknowledge(req.user!, parseId(req.params.id));
-    res.status(201).json({ ok: true });
+    const { already } = await handovers.acknowledge(req.user!, parseId(req.params.id));
+    res.status(already ? 200 : 201).json({ ok: true, already });
   });
 
   router.post('/handover-items/:id/queries', crewMember, async (req, res) => {

@@ -133,7 +133,7 @@ export function makeHandoverService(sequelize: Sequelize, notices: Notices) {
       if (!updated) {
         const stored = await Handover.findByPk(id, { transaction });
         if (stored?.status !== 'draft') throw new Conflict('This handover was submitted meanwhile: add an amendment instead of editing it');
-        throw new HttpError(409, 'NOTES_CONFLICT', 'Someone else saved these notes first. Your text is kept below theirs; merge the two and save again.', {
+        throw new HttpError(409, 'NOTES_CONFLICT', 'Someone else saved these notes first. Your text stays in the editor and theirs is shown with it; merge the two and save again.', {
           storedVersion: String(stored.notesVersion),
         });
       }
@@ -263,12 +263,14 @@ export function makeHandoverService(sequelize: Sequelize, notices: Notices) {
     // crew incoming), so an acceptance landing in between cannot slip an acknowledgement in. The
     // lookup runs beside it, for the room to notify and for the reason when nothing was inserted.
     const [h, inserted] = await Promise.all([handoverOfItem(itemId), actor.crewId !== null ? insertAcknowledgement(actor, itemId) : Promise.resolve(0)]);
+    if (inserted === -1) return { already: true };
     if (!inserted) {
       if (!mayAcknowledge(asActor(actor), h)) throw new Forbidden('Only the incoming crew acknowledges handover items');
       throw new Conflict(h.status === 'draft' ? 'The handover is not submitted yet' : 'The handover is already accepted');
     }
     // The insert committed on its own (one statement), so it is told at once.
     publishCommitted(sequelize, { entity: 'handover', id: h.id, unitId: h.unitId });
+    return { already: false };
   }
 
   async function insertAcknowledgement(actor: Actor, itemId: number): Promise<number> {
@@ -284,7 +286,8 @@ export function makeHandoverService(sequelize: Sequelize, notices: Notices) {
       return Number(affected);
     } catch (error) {
       // The primary key (item, person, version) is the check: one acknowledgement each per version.
-      if (error instanceof UniqueConstraintError) throw new Conflict('You have acknowledged this item already');
+      // Acknowledging again what one has acknowledged (a double click) changes nothing and is no error.
+      if (error instanceof UniqueConstraintError) return -1;
       throw error;
     }
   }
@@ -317,6 +320,8 @@ export function makeHandoverService(sequelize: Sequelize, notices: Notices) {
     if (!query) throw new NotFound('That question');
     const h = await handoverOfItem(query.itemId);
     if (!mayWriteHandover(asActor(actor), h)) throw new Forbidden('The outgoing crew’s operators and shift lead answer questions on its handover');
+    // The same person sending the same answer twice (a double click) finds it done.
+    if (query.answeredAt && query.answeredBy === actor.id && query.answer === text) return;
     await unitOfWork(sequelize, async (transaction) => {
       const [updated] = await HandoverQuery.update({ answer: text, answeredBy: actor.id, answeredAt: new Date() }, { where: { id: queryId, answeredAt: null }, transaction });
       if (!updated) throw new Conflict('This question is answered already');

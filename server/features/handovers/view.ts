@@ -64,8 +64,9 @@ export async function viewHandover(id: number) {
     const earlier = itemAcks.filter((a) => a.itemVersion < item.version && !current.some((c) => c.userId === a.userId));
     const missing = incomingCrew.filter((p) => !current.some((a) => a.userId === p.id)).map((p) => p.name);
     const itemQueries = queries.filter((q) => q.itemId === item.id);
-    if (missing.length) waiting.push(`“${item.title.slice(0, 40)}” awaits ${missing.join(', ')}`);
-    if (itemQueries.some((q) => !q.answeredAt)) waiting.push(`“${item.title.slice(0, 40)}” has an open question`);
+    const short = item.title.length > 60 ? `${item.title.slice(0, 59).trimEnd()}…` : item.title;
+    if (missing.length) waiting.push(`“${short}” awaits ${missing.join(', ')}`);
+    if (itemQueries.some((q) => !q.answeredAt)) waiting.push(`“${short}” has an open question`);
     return {
       id: item.id,
       kind: item.kind,

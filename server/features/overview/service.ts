@@ -9,7 +9,7 @@ import { stationLocalLabel } from '../../../shared/shift-time';
 import { User } from '../users/model';
 import { shiftNow } from './shift-now';
 import { currentHandovers, latestRounds, openConditions, openFlags, type CurrentHandovers } from './unit-state';
-import { handoverItemsFor, reviewCommentsFor, standingOrdersFor, trainingEntriesFor, traineeRoundsFor, type ReviewCommentsFor } from './waiting';
+import { handoverItemsFor, handoverQuestionsFor, handoversToAcceptFor, reviewCommentsFor, standingOrdersFor, trainingEntriesFor, traineeRoundsFor, type ReviewCommentsFor } from './waiting';
 
 const CREW_ROLES = ['trainee', 'operator', 'shift_lead'];
 const roleOrder: Record<string, number> = { shift_lead: 0, operator: 1, trainee: 2 };
@@ -89,6 +89,8 @@ export function makeOverviewService(sequelize: Sequelize, deps: { reviewComments
       units,
       waiting: {
         handoverItems: handoverItemsFor(viewer, handovers, unitName),
+        handoverQuestions: handoverQuestionsFor(viewer, handovers, unitName),
+        handoversToAccept: handoversToAcceptFor(viewer, handovers, unitName, crewMembers),
         traineeRounds: traineeRounds.map((r) => ({
           id: r.id,
           unitId: r.unitId,
@@ -118,10 +120,11 @@ function handoverState(
   const h = current.handovers.find((x) => x.unitId === unitId);
   const at = changeAt.toISOString();
   if (!h) return { state: 'none', id: null, changeAt: at };
-  if (h.status !== 'submitted') return { state: h.status, id: h.id, changeAt: h.handoverAt.toISOString() };
+  if (h.status === 'draft') return { state: 'draft', id: h.id, changeAt: h.handoverAt.toISOString() };
   const items = current.items.filter((i) => i.handoverId === h.id);
   const incoming = crewMembers(h.incomingCrewId);
   const outstanding = items.reduce((n, item) => n + incoming.filter((p) => !current.acks.some((a) => a.itemId === item.id && a.userId === p.id)).length, 0);
+  if (h.status === 'accepted') return { state: 'accepted', id: h.id, changeAt: h.handoverAt.toISOString(), acknowledgementsOutstanding: outstanding };
   const questions = current.openQuestions.filter((q) => items.some((i) => i.id === q.itemId)).length;
   return { state: 'submitted', id: h.id, changeAt: h.handoverAt.toISOString(), acknowledgementsOutstanding: outstanding, openQuestions: questions };
 }

@@ -109,14 +109,23 @@ export async function currentHandovers(shifts: { unitId: number; shiftStart: Dat
   const handovers = shifts.length
     ? await Handover.findAll({ where: { [Op.or]: shifts.map((s) => ({ unitId: s.unitId, shiftStart: s.shiftStart })) }, attributes: { exclude: ['notesHtml', 'condenserSnapshot'] } })
     : [];
-  const submittedIds = handovers.filter((h) => h.status === 'submitted').map((h) => h.id);
-  const items = submittedIds.length
-    ? await HandoverItem.findAll({ where: { handoverId: submittedIds, removedAt: null }, attributes: ['id', 'handoverId', 'title', 'priority', 'version'], order: [['id', 'ASC']] })
-    : [];
+  // Items still to acknowledge: every item of a submitted handover, and of an accepted one those
+  // amended after the turnover (the incoming crew must read the correction too).
+  const handedOver = handovers.filter((h) => h.status !== 'draft');
+  const acceptedAt = new Map(handedOver.filter((h) => h.acceptedAt).map((h) => [h.id, h.acceptedAt!.getTime()]));
+  const items = (
+    handedOver.length
+      ? await HandoverItem.findAll({
+          where: { handoverId: handedOver.map((h) => h.id), removedAt: null },
+          attributes: ['id', 'handoverId', 'title', 'priority', 'version', 'amendedAt'],
+          order: [['id', 'ASC']],
+        })
+      : []
+  ).filter((i) => !acceptedAt.has(i.handoverId) || (i.amendedAt !== null && i.amendedAt.getTime() > acceptedAt.get(i.handoverId)!));
   const itemIds = items.map((i) => i.id);
   const [allAcks, openQuestions] = await Promise.all([
     itemIds.length ? HandoverAck.findAll({ where: { itemId: itemIds }, attributes: ['itemId', 'userId', 'itemVersion'] }) : [],
-    itemIds.length ? HandoverQuery.findAll({ where: { itemId: itemIds, answeredAt: null }, attributes: ['id', 'itemId'] }) : [],
+    itemIds.length ? HandoverQuery.findAll({ where: { itemId: itemIds, answeredAt: null }, attributes: ['id', 'itemId', 'question'] }) : [],
   ]);
   // Only an acknowledgement of the item as it stands counts: an amended item waits again.
   const versionOf = new Map(items.map((i) => [i.id, i.version]));

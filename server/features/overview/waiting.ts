@@ -18,10 +18,13 @@ const RECENT_COMMENTS_MS = 7 * 86_400_000;
 
 export type ReviewCommentsFor = (viewer: Express.User, limit: number) => Promise<ReviewCommentView[]>;
 
-/** Handover items of submitted handovers where the viewer's crew comes in and the viewer has not acknowledged. */
+/**
+ * Handover items the viewer's incoming crew must acknowledge and the viewer has not (at the item's
+ * current version): a submitted handover's items, and an accepted one's amended after the turnover.
+ */
 export function handoverItemsFor(viewer: Express.User, current: CurrentHandovers, unitName: (unitId: number) => string): WaitingOnYou['handoverItems'] {
   if (viewer.crewId === null || !CREW_ROLES.includes(viewer.role)) return [];
-  const mine = new Map(current.handovers.filter((h) => h.status === 'submitted' && h.incomingCrewId === viewer.crewId).map((h) => [h.id, h]));
+  const mine = new Map(current.handovers.filter((h) => h.status !== 'draft' && h.incomingCrewId === viewer.crewId).map((h) => [h.id, h]));
   const acked = new Set(current.acks.filter((a) => a.userId === viewer.id).map((a) => a.itemId));
   return current.items
     .filter((i) => mine.has(i.handoverId) && !acked.has(i.id))
@@ -29,6 +32,38 @@ export function handoverItemsFor(viewer: Express.User, current: CurrentHandovers
       const unitId = mine.get(i.handoverId)!.unitId;
       return { itemId: i.id, handoverId: i.handoverId, unitId, unitName: unitName(unitId), title: i.title, priority: i.priority };
     });
+}
+
+/** Open questions on the viewer's crew's handover, for the outgoing operators and lead who answer them. */
+export function handoverQuestionsFor(viewer: Express.User, current: CurrentHandovers, unitName: (unitId: number) => string): WaitingOnYou['handoverQuestions'] {
+  if (viewer.crewId === null || !['operator', 'shift_lead'].includes(viewer.role)) return [];
+  const mine = new Map(current.handovers.filter((h) => h.status === 'submitted' && h.outgoingCrewId === viewer.crewId).map((h) => [h.id, h]));
+  const itemOf = new Map(current.items.map((i) => [i.id, i]));
+  return current.openQuestions
+    .filter((q) => mine.has(itemOf.get(q.itemId)?.handoverId ?? 0))
+    .map((q) => {
+      const item = itemOf.get(q.itemId)!;
+      const unitId = mine.get(item.handoverId)!.unitId;
+      return { queryId: q.id, unitId, unitName: unitName(unitId), itemTitle: item.title, question: q.question };
+    });
+}
+
+/** Submitted handovers the viewer (the incoming shift lead) can accept now: every item acknowledged, no question open. */
+export function handoversToAcceptFor(
+  viewer: Express.User,
+  current: CurrentHandovers,
+  unitName: (unitId: number) => string,
+  crewMembers: (crewId: number | null) => { id: number }[],
+): WaitingOnYou['handoversToAccept'] {
+  if (viewer.crewId === null || viewer.role !== 'shift_lead') return [];
+  return current.handovers
+    .filter((h) => h.status === 'submitted' && h.incomingCrewId === viewer.crewId)
+    .filter((h) => {
+      const items = current.items.filter((i) => i.handoverId === h.id);
+      const allAcknowledged = items.every((i) => crewMembers(h.incomingCrewId).every((p) => current.acks.some((a) => a.itemId === i.id && a.userId === p.id)));
+      return allAcknowledged && !current.openQuestions.some((q) => items.some((i) => i.id === q.itemId));
+    })
+    .map((h) => ({ handoverId: h.id, unitId: h.unitId, unitName: unitName(h.unitId) }));
 }
 
 /**

@@ -7,7 +7,7 @@ import { useSignOut } from '../../features/session/api/sign-out';
 import { Notice } from '../../components/ui/notice';
 import { applyTheme, initialTheme, type Theme } from '../../lib/theme';
 import { navigationFor } from '../navigation';
-import { useLiveUpdates } from '../use-live-updates';
+import { useConnected, useLiveUpdates } from '../use-live-updates';
 import { PendingOrdersPrompt } from '../../features/orders/components/pending-orders-prompt';
 
 export function AppShell() {
@@ -21,6 +21,7 @@ export function AppShell() {
   const withUnit = (to: string) => (unit && to !== '/account/password' && !to.startsWith('/admin') ? { pathname: to, search: `?unit=${unit}` } : to);
   const [theme, setTheme] = useState<Theme>(initialTheme);
   useLiveUpdates(Boolean(me && !me.mustChangePassword));
+  const connected = useConnected(Boolean(me && !me.mustChangePassword));
 
   if (isPending) return <p className="p-8 text-muted">Loading…</p>;
   if (error) return <div className="p-8"><Notice kind="error">{error.message}</Notice></div>;
@@ -40,7 +41,7 @@ export function AppShell() {
 
   return (
     <div className="min-h-screen">
-      <header className="border-b border-line bg-panel">
+      <header className="border-b border-line bg-panel print:hidden">
         <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-4 px-4 py-3">
           <span className="text-xl font-bold tracking-wide">Hotwell</span>
           <nav aria-label="Main" className="flex flex-wrap gap-1">
@@ -75,7 +76,14 @@ export function AppShell() {
           </div>
         </div>
       </header>
-      <PendingOrdersPrompt enabled={!me.mustChangePassword} />
+      {connected ? null : (
+        <p role="status" className="border-b-2 border-watch bg-panel px-4 py-2 text-center font-bold print:hidden" data-testid="offline">
+          ▲ Not connected to the server — this page is not being updated and may be out of date; changes are not saved until the connection is back.
+        </p>
+      )}
+      <div className="print:hidden">
+        <PendingOrdersPrompt enabled={!me.mustChangePassword} />
+      </div>
       <main className="mx-auto max-w-6xl px-4 py-6">
         <Outlet />
       </main>

@@ -1,5 +1,5 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { useState } from 'react';
+import { useRef, useState } from 'react';
 import { invalidateForChange } from '../../../app/live-keys';
 import type { CondenserSnapshot } from '../../../../shared/shift-condenser';
 import { api } from '../../../lib/api-client';
@@ -114,13 +114,27 @@ function send(unitId: number, a: HandoverAction) {
   }
 }
 
-/** Every change on the board; the person who made it sees it at once, the others through the live event. */
+/**
+ * Every change on the board; the person who made it sees it at once, the others through the live
+ * event. One at a time per control: a second click while the first is on its way is dropped, so a
+ * double click neither sends twice nor shows the second one's "already done" as an error.
+ */
 export function useHandoverAction(unitId: number) {
   const queryClient = useQueryClient();
-  return useMutation({
+  const busy = useRef(false);
+  const mutation = useMutation({
     mutationFn: (a: HandoverAction) => send(unitId, a),
-    onSettled: () => invalidateForChange(queryClient, { entity: 'handover', id: 0, unitId }),
+    onSettled: () => {
+      busy.current = false;
+      invalidateForChange(queryClient, { entity: 'handover', id: 0, unitId });
+    },
   });
+  const mutate: typeof mutation.mutate = (action, options) => {
+    if (busy.current) return;
+    busy.current = true;
+    mutation.mutate(action, options);
+  };
+  return { ...mutation, mutate };
 }
 
 export function useUploadAttachment(unitId: number) {

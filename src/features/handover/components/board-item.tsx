@@ -36,6 +36,8 @@ export function BoardItemCard({ board, item, meId, may, stationTime }: Props) {
   const [answers, setAnswers] = useState<Record<number, string>>({});
   const [editing, setEditing] = useState(false);
   const [fileReason, setFileReason] = useState('');
+  const [amendKey, newAmendKey] = useClientKey();
+  const [amendment, setAmendment] = useState({ text: '', reason: '' });
   const status = board.handover.status;
   const draft = status === 'draft';
   const mine = item.acknowledgedBy.some((a) => a.userId === meId);
@@ -51,7 +53,9 @@ export function BoardItemCard({ board, item, meId, may, stationTime }: Props) {
         <span className="text-xs font-bold">{priorityLook[item.priority]}</span>
         {item.reference ? <span className="reading text-xs">ref {item.reference}</span> : null}
         <span className="text-xs text-muted">{item.automatic ? 'attached by itself' : `added by ${item.addedBy ?? 'someone'}`}</span>
-        {item.version > 1 && !draft ? <span className="text-xs font-bold text-watch">▲ amended — acknowledge again</span> : null}
+        {item.amendedAt && !draft ? (
+          <span className="text-xs font-bold text-watch">{item.awaiting.length ? '▲ amended — to be acknowledged again' : '✎ amended'}</span>
+        ) : null}
       </header>
       <h3 className="font-bold">{item.title}</h3>
       {item.live ? (
@@ -99,6 +103,37 @@ export function BoardItemCard({ board, item, meId, may, stationTime }: Props) {
             </Button>
           </div>
         )
+      ) : null}
+
+      {may.write && !draft ? (
+        <form
+          aria-label={`Amend: ${item.title}`}
+          className="mt-2 flex flex-wrap items-end gap-2 text-sm"
+          onSubmit={(e) => {
+            e.preventDefault();
+            action.mutate(
+              { kind: 'amend', id: board.handover.id, body: { itemId: item.id, ...amendment, clientKey: amendKey } },
+              {
+                onSuccess: () => {
+                  setAmendment({ text: '', reason: '' });
+                  newAmendKey();
+                },
+              },
+            );
+          }}
+        >
+          <label className="flex flex-col">
+            Correction to this item
+            <input className={field} value={amendment.text} onChange={(e) => setAmendment({ ...amendment, text: e.target.value })} />
+          </label>
+          <label className="flex flex-col">
+            Why
+            <input className={field} value={amendment.reason} onChange={(e) => setAmendment({ ...amendment, reason: e.target.value })} />
+          </label>
+          <Button type="submit" tone="plain" className="px-3 py-1" disabled={action.isPending}>
+            Amend this item
+          </Button>
+        </form>
       ) : null}
 
       {may.write && item.attachments.length < 10 ? (

@@ -143,7 +143,7 @@ function NotesEditor({ board, stationTime }: Omit<Props, 'editable'>) {
           <p className="font-bold">⛔ {conflict}</p>
           <p className="mt-1">Their text, as saved:</p>
           <div className="order-body border-l-4 border-line pl-2" data-testid="their-notes" dangerouslySetInnerHTML={{ __html: h.notesHtml }} />
-          <p className="mt-1">Your text stays in the editor above.</p>
+          <p className="mt-1">Your text stays in the editor above; merge what you need from theirs.</p>
           <Button
             className="mt-1"
             onClick={() => {

@@ -63,8 +63,7 @@ export function HandoverPage() {
         procedures require.
       </aside>
       {current.error ? <Notice kind="error">{current.error.message}</Notice> : null}
-      {actionError ? <Notice kind="error">{actionError}</Notice> : null}
-      {change ? <WindowNote change={change} stationTime={stationTime} /> : null}
+      {change && h?.status !== 'accepted' ? <WindowNote change={change} stationTime={stationTime} /> : null}
       {current.data && !board ? (
         current.data.mayStart ? (
           <div className="flex flex-col items-start gap-2 rounded-lg border border-line bg-panel p-3">
@@ -72,6 +71,7 @@ export function HandoverPage() {
             <Button disabled={action.isPending} onClick={() => action.mutate({ kind: 'start' })}>
               Start this shift’s handover
             </Button>
+            {actionError ? <Notice kind="error">{actionError}</Notice> : null}
           </div>
         ) : (
           <Notice kind="info">The outgoing crew has not started this shift’s handover yet.</Notice>
@@ -110,6 +110,7 @@ export function HandoverPage() {
               <Button className="self-start" disabled={action.isPending} onClick={() => action.mutate({ kind: 'submit', id: h.id })}>
                 Submit the handover
               </Button>
+              {actionError ? <Notice kind="error">{actionError}</Notice> : null}
             </>
           ) : null}
           {may.write && h.status !== 'draft' ? (
@@ -129,12 +130,13 @@ export function HandoverPage() {
                 );
               }}
             >
-              <h3 className="font-bold">Amend (the handover is read-only once submitted)</h3>
+              <h3 className="font-bold">Amend the handover as a whole (the handover is read-only once submitted; amend an item on the item)</h3>
               <input aria-label="Amendment" placeholder="What to add or correct" className="rounded-md border border-line bg-field px-2 py-1" value={amend.text} onChange={(e) => setAmend({ ...amend, text: e.target.value })} />
               <input aria-label="Reason" placeholder="Why" className="rounded-md border border-line bg-field px-2 py-1" value={amend.reason} onChange={(e) => setAmend({ ...amend, reason: e.target.value })} />
               <Button type="submit" tone="plain" className="self-start px-3 py-1" disabled={action.isPending}>
                 Add amendment
               </Button>
+              {actionError ? <Notice kind="error">{actionError}</Notice> : null}
             </form>
           ) : null}
           {board.amendments
@@ -150,6 +152,7 @@ export function HandoverPage() {
               <Button className="self-start" disabled={board.waiting.length > 0 || action.isPending} onClick={() => action.mutate({ kind: 'accept', id: h.id })}>
                 Accept the handover
               </Button>
+              {actionError ? <Notice kind="error">{actionError}</Notice> : null}
             </div>
           ) : null}
         </>

@@ -29,7 +29,7 @@ export function RoundSection({ unitId, round, timeZone, intervalMinutes, sinceFe
         </p>
       ) : null}
       <p className="text-sm">
-        <Link className="font-bold underline" to={`/rounds/${round.id}`}>
+        <Link className="font-bold underline" to={`/rounds/${round.id}?unit=${unitId}`}>
           {stationTime(round.takenAt, timeZone)}
         </Link>{' '}
         by {round.recordedBy}

@@ -19,7 +19,9 @@ function handoverWords(h: OverviewHandover): string {
     case 'submitted':
       return `⇢ Submitted — ${h.acknowledgementsOutstanding} acknowledgement${h.acknowledgementsOutstanding === 1 ? '' : 's'} outstanding${h.openQuestions ? `, ${h.openQuestions} open question${h.openQuestions === 1 ? '' : 's'}` : ''}`;
     case 'accepted':
-      return '✔ Accepted — turnover done';
+      return h.acknowledgementsOutstanding
+        ? `✔ Accepted — amended since: ${h.acknowledgementsOutstanding} acknowledgement${h.acknowledgementsOutstanding === 1 ? '' : 's'} outstanding`
+        : '✔ Accepted — turnover done';
   }
 }
 

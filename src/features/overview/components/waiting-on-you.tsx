@@ -18,7 +18,7 @@ function Group({ title, count, children }: { title: string; count: number; child
 
 /** What the signed-in person still has to do, first on the page. */
 export function WaitingOnYou({ waiting, zoneOf }: { waiting: Waiting; zoneOf: (unitId: number | null) => string | null }) {
-  const total = waiting.handoverItems.length + waiting.traineeRounds.length + waiting.trainingEntries.length + waiting.standingOrders.length + waiting.reviewComments.length;
+  const total = waiting.handoverItems.length + waiting.handoverQuestions.length + waiting.handoversToAccept.length + waiting.traineeRounds.length + waiting.trainingEntries.length + waiting.standingOrders.length + waiting.reviewComments.length;
   return (
     <section aria-label="Waiting on you" className={`flex flex-col gap-3 rounded-lg border-2 bg-panel p-4 ${total ? 'border-watch' : 'border-line'}`}>
       <h2 className="text-lg font-bold">{total ? `▲ Waiting on you (${total})` : '● Nothing is waiting on you'}</h2>
@@ -32,10 +32,28 @@ export function WaitingOnYou({ waiting, zoneOf }: { waiting: Waiting; zoneOf: (u
           </li>
         ))}
       </Group>
+      <Group title="Handover questions to answer" count={waiting.handoverQuestions.length}>
+        {waiting.handoverQuestions.map((q) => (
+          <li key={q.queryId}>
+            <Link className="underline" to={`/handover?unit=${q.unitId}`}>
+              {q.unitName}: “{q.question}” on “{q.itemTitle}”
+            </Link>
+          </li>
+        ))}
+      </Group>
+      <Group title="Handovers ready for you to accept" count={waiting.handoversToAccept.length}>
+        {waiting.handoversToAccept.map((h) => (
+          <li key={h.handoverId}>
+            <Link className="underline" to={`/handover?unit=${h.unitId}`}>
+              {h.unitName}: every item acknowledged, no question open
+            </Link>
+          </li>
+        ))}
+      </Group>
       <Group title="Trainee rounds to countersign" count={waiting.traineeRounds.length}>
         {waiting.traineeRounds.map((r) => (
           <li key={r.id}>
-            <Link className="underline" to={`/rounds/${r.id}`}>
+            <Link className="underline" to={`/rounds/${r.id}?unit=${r.unitId}`}>
               {r.unitName}: round taken {stationTime(r.takenAt, r.timeZone)} by {r.recordedBy}
             </Link>
           </li>

@@ -16,7 +16,8 @@ import { formatStationTime } from '../../../../shared/station-time';
 import { ApiError } from '../../../lib/api-client';
 import type { DisplayPreferences } from '../../../../shared/display';
 import { useMe } from '../../session/api/get-me';
-import { useAmendReading, useReading, type ReadingDetail } from '../api/readings';
+import { useAmendReading, useCountersign, useReading, type ReadingDetail } from '../api/readings';
+import { useSelectedUnit } from '../../../components/readings/unit-picker';
 import { useWatchUnit } from '../../../app/use-live-updates';
 
 const prefsOf = (detail: ReadingDetail): DisplayPreferences => ({
@@ -105,6 +106,8 @@ export function ReadingPage() {
   useWatchUnit(reading.data?.reading.unitId ?? null);
   const [amending, setAmending] = useState(false);
   const zone = useUnitZone(reading.data?.reading.unitId);
+  const { units } = useSelectedUnit();
+  const countersign = useCountersign();
   if (reading.error) return <Notice kind="error">{reading.error.message}</Notice>;
   if (reading.isPending || !zone) return <p className="text-muted">Loading…</p>;
   const detail = reading.data;
@@ -117,7 +120,7 @@ export function ReadingPage() {
         ← Rounds
       </Link>
       <h1 className="text-2xl font-bold">
-        Round of {stamp(detail.reading.takenAt)} <StatusBadge status={detail.current.worstStatus} />
+        {units.find((u) => u.id === detail.reading.unitId)?.name ?? 'Unit'} — round of {stamp(detail.reading.takenAt)} <StatusBadge status={detail.current.worstStatus} />
       </h1>
       <ZoneNote zone={zone} />
       <CautionNote />
@@ -127,7 +130,15 @@ export function ReadingPage() {
             Trainee round, countersigned by {detail.countersign.by} at {stamp(detail.countersign.at)}.
           </Notice>
         ) : (
-          <Notice kind="info">Trainee round, awaiting an operator’s countersign.</Notice>
+          <div className="flex flex-col items-start gap-2">
+            <Notice kind="info">Trainee round, awaiting an operator’s countersign.</Notice>
+            {me && ['operator', 'shift_lead'].includes(me.role) && me.id !== detail.reading.recordedById ? (
+              <Button disabled={countersign.isPending} onClick={() => countersign.mutate(detail.reading.id)}>
+                Countersign this round
+              </Button>
+            ) : null}
+            {countersign.error ? <Notice kind="error">{countersign.error.message}</Notice> : null}
+          </div>
         )
       ) : null}
       <Version title={`As recorded by ${detail.reading.recordedBy} at ${stamp(detail.reading.recordedAt)}`} superseded={detail.amendments.length > 0} results={detail.reading.results} prefs={prefs} />
