@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { can } from '../../../../shared/policies/permissions';
 import { useForm, useWatch } from 'react-hook-form';
 import { Link, useParams } from 'react-router';
 import type { Evaluation } from '../../../../shared/calc/evaluate';
@@ -110,7 +111,7 @@ export function ReadingPage() {
   const detail = reading.data;
   const stamp = (iso: string) => formatStationTime(iso, zone.timeZone);
   const prefs = prefsOf(detail);
-  const mayAmend = me && ['operator', 'shift_lead', 'admin'].includes(me.role);
+  const mayAmend = me && can(me.role, 'reading.amend');
   return (
     <section className="flex flex-col gap-4">
       <Link to={`/rounds?unit=${detail.reading.unitId}`} className="text-accent underline">
