@@ -89,7 +89,7 @@ export function sessionRoutes({ users, csrf, signInLimits, anonymousTokenLimit, 
 
   router.post('/me/password', signedInEvenIfPasswordPending, async (req, res) => {
     const input = parseInput(changePasswordSchema, req.body);
-    await users.changeOwnPassword(req.user!.id, input);
+    await users.changeOwnPassword(req.user!.id, input, req.sessionID);
     res.json({ user: await getPublicUser(req.user!.id) });
   });
 
