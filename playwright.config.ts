@@ -37,7 +37,6 @@ export default defineConfig({
       PORT: String(port),
       SESSION_SECRET: 'e2e-only-secret',
       NODE_ENV: 'production',
-      SIGN_IN_RATE_LIMIT: '1000',
       SMTP_URL: process.env.SMTP_URL ?? '',
     },
   },

@@ -1,6 +1,6 @@
 import { expect, test } from '@playwright/test';
 import { toStationInputValue } from '../shared/station-time';
-import { signIn } from './support';
+import { signIn, signInReadingOrders } from './support';
 
 test('keyboard-only entries, one late, appear live in a second browser; the lead signs the review', async ({ browser }) => {
   const writerContext = await browser.newContext();
@@ -61,4 +61,32 @@ test('a time-limited condition shows its countdown and deadline', async ({ page 
   await expect(condition).toContainText('time left');
   await expect(condition.getByTestId(/countdown-/)).toHaveText(/^\d+ d \d+ h \d\d min$/);
   await expect(condition).toContainText('Europe/Berlin');
+});
+
+test('a trainee’s entry is marked as a trainee’s; its writer and the lead of the crew on shift may amend it, another operator may not', async ({ browser }) => {
+  const text = `Basin level checked at the tower, ${Date.now()}`;
+  const open = async (email: string) => {
+    const context = await browser.newContext();
+    const page = await context.newPage();
+    await signInReadingOrders(page, email);
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Shift log' }).click();
+    return { page, context, entry: page.getByRole('listitem').filter({ hasText: text }) };
+  };
+  const trainee = await open('trainee.a@fernhollow.example');
+  await trainee.page.getByLabel('Entry text').fill(text);
+  await trainee.page.getByLabel('Entry text').press('Enter');
+  await expect(trainee.entry).toContainText('trainee’s entry');
+  await expect(trainee.entry.getByRole('button', { name: 'Amend' })).toBeVisible();
+
+  // Crew A is on shift in the demo: another of its operators did not write it; its lead answers for the shift's log.
+  const operator = await open('field.a@fernhollow.example');
+  await expect(operator.entry).toContainText('trainee’s entry');
+  await expect(operator.entry.getByRole('button', { name: 'Amend' })).toHaveCount(0);
+  const lead = await open('lead.a@fernhollow.example');
+  await lead.entry.getByRole('button', { name: 'Amend' }).click();
+  await lead.page.getByLabel('Corrected text').fill(`${text}; level normal`);
+  await lead.page.getByLabel('Reason for the amendment').fill('Added what was seen');
+  await lead.page.getByRole('button', { name: 'Save amendment' }).click();
+  await expect(lead.entry).toContainText('Amended by Bram Okonkwo-Reyes');
+  for (const who of [trainee, operator, lead]) await who.context.close();
 });

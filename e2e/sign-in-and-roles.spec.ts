@@ -4,12 +4,13 @@ import { DEMO_PASSWORD, signIn, signOut } from './support';
 const everyone = ['Overview', 'Handover', 'Shift log', 'Standing orders', 'Rounds', 'Flags', 'Trends', 'Condenser check', 'Logbook history', 'Training', 'Plant setup', 'My password'];
 const adminOnly = ['People', 'Shifts', 'Audit trail'];
 
+// Imports write rounds: operators and shift leads only, administrators not.
 const roles = [
-  { email: 'trainee.a@fernhollow.example', label: 'Trainee', admin: false },
-  { email: 'operator.a@fernhollow.example', label: 'Operator', admin: false },
-  { email: 'lead.a@fernhollow.example', label: 'Shift lead', admin: false },
-  { email: 'trainer@fernhollow.example', label: 'Trainer', admin: false },
-  { email: 'admin@fernhollow.example', label: 'Administrator', admin: true },
+  { email: 'trainee.a@fernhollow.example', label: 'Trainee', admin: false, imports: false },
+  { email: 'operator.a@fernhollow.example', label: 'Operator', admin: false, imports: true },
+  { email: 'lead.a@fernhollow.example', label: 'Shift lead', admin: false, imports: true },
+  { email: 'trainer@fernhollow.example', label: 'Trainer', admin: false, imports: false },
+  { email: 'admin@fernhollow.example', label: 'Administrator', admin: true, imports: false },
 ];
 
 for (const role of roles) {
@@ -22,6 +23,7 @@ for (const role of roles) {
       if (role.admin) await expect(nav.getByRole('link', { name: item })).toBeVisible();
       else await expect(nav.getByRole('link', { name: item })).toHaveCount(0);
     }
+    await expect(nav.getByRole('link', { name: 'Import' })).toHaveCount(role.imports ? 1 : 0);
     await signOut(page);
   });
 }
@@ -29,6 +31,26 @@ for (const role of roles) {
 test('a wrong password shows the generic message on the form', async ({ page }) => {
   await signIn(page, 'operator.a@fernhollow.example', 'not the password');
   await expect(page.getByRole('alert')).toContainText('do not match an active account');
+});
+
+test('five failed sign-ins lock the e-mail address for a minute, and the form says so', async ({ page }) => {
+  const email = `nobody.${Date.now()}@fernhollow.example`;
+  for (let i = 0; i < 5; i++) {
+    await signIn(page, email, `guess number ${i}`);
+    await expect(page.getByRole('alert')).toContainText('do not match an active account');
+  }
+  await signIn(page, email, 'one more guess');
+  await expect(page.getByRole('alert')).toContainText('try again in 1 minute');
+});
+
+test('an administrator reads the shift log but writes and amends nothing in it', async ({ page }) => {
+  await signIn(page, 'admin@fernhollow.example');
+  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Shift log' }).click();
+  await expect(page.getByRole('list', { name: 'Log entries' }).getByRole('listitem').first()).toBeVisible();
+  await expect(page.getByLabel('Entry text')).toHaveCount(0);
+  await expect(page.getByRole('button', { name: 'Amend' })).toHaveCount(0);
+  await page.goto('/import');
+  await expect(page.getByText('This page is not available to your role.')).toBeVisible();
 });
 
 test('an empty form shows a message beside each field', async ({ page }) => {
@@ -79,6 +101,9 @@ test('an admin adds a person, who then signs in and must change the password', a
   await page.getByLabel('New password').fill('short');
   await page.getByRole('button', { name: 'Change password' }).click();
   await expect(page.getByText('Use at least 12 characters')).toBeVisible();
+  await page.getByLabel('New password').fill('password1234');
+  await page.getByRole('button', { name: 'Change password' }).click();
+  await expect(page.getByText('Too easy to guess')).toBeVisible();
   await page.getByLabel('New password').fill('my own long passphrase');
   await page.getByRole('button', { name: 'Change password' }).click();
   await expect(page.getByRole('heading', { name: 'Overview' })).toBeVisible();

@@ -2,10 +2,11 @@
 import express, { type RequestHandler } from 'express';
 import session from 'express-session';
 import helmet from 'helmet';
-import { csrfSync } from 'csrf-sync';
 import path from 'node:path';
 import type { Sequelize } from 'sequelize';
-import type { AppConfig } from './config';
+import { DEFAULT_ANONYMOUS_TOKEN_LIMIT, type AppConfig } from './config';
+import { createCsrf } from './lib/csrf';
+import { defaultSignInLimits, makeSignInLimits } from './features/session/sign-in-limits';
 import { configurePassport } from './lib/auth';
 import { createSessionStore } from './lib/session-store';
 import { NotFound, errorMiddleware } from './lib/errors';
@@ -66,7 +67,7 @@ export type BuiltApp = {
 
 export function createApp(
   sequelize: Sequelize,
-  config: Pick<AppConfig, 'sessionSecret' | 'production' | 'behindHttpsProxy' | 'signInRateLimit' | 'smtpUrl' | 'publicUrl'>,
+  config: Pick<AppConfig, 'sessionSecret' | 'production' | 'behindHttpsProxy' | 'smtpUrl' | 'publicUrl'> & Partial<Pick<AppConfig, 'signInLimits' | 'anonymousTokenLimit'>>,
   deps: { storage?: Storage } = {},
 ): BuiltApp {
   const app = express();
@@ -83,6 +84,11 @@ export function createApp(
       strictTransportSecurity: config.behindHttpsProxy,
     }),
   );
+  // Answers about people and plant state are never for a shared cache or the browser's history.
+  app.use('/api', (_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
   app.use(express.json({ limit: '1mb' }));
 
   const store = createSessionStore(sequelize);
@@ -104,10 +110,7 @@ export function createApp(
   app.use(passport.initialize());
   app.use(passport.session());
 
-  const csrf = csrfSync({
-    getTokenFromRequest: (req) => req.get('x-csrf-token'),
-    errorConfig: { statusCode: 403, code: 'EBADCSRFTOKEN', message: 'Invalid CSRF token' },
-  });
+  const csrf = createCsrf({ secret: config.sessionSecret, secureCookies: config.behindHttpsProxy });
   app.use('/api', csrf.csrfSynchronisedProtection);
 
   const users = makeUserService(sequelize);
@@ -117,7 +120,16 @@ export function createApp(
   app.get('/api/health', (_req, res) => {
     res.json({ ok: true });
   });
-  app.use('/api', sessionRoutes(users, csrf, config.signInRateLimit, (sessionId) => realtime.disconnect({ sessionId })));
+  app.use(
+    '/api',
+    sessionRoutes({
+      users,
+      csrf,
+      signInLimits: makeSignInLimits(sequelize, config.signInLimits ?? defaultSignInLimits),
+      anonymousTokenLimit: config.anonymousTokenLimit ?? DEFAULT_ANONYMOUS_TOKEN_LIMIT,
+      onSignedOut: (sessionId) => realtime.disconnect({ sessionId }),
+    }),
+  );
   app.use('/api/admin/users', adminUserRoutes(users));
   app.use('/api/admin/audit-events', adminAuditRoutes());
   app.use('/api/plant', plantRoutes(sequelize, makeVersionService(sequelize)));

@@ -5,6 +5,7 @@ import { Strategy as LocalStrategy } from 'passport-local';
 import type { Request, RequestHandler } from 'express';
 import { takeSessionPerson } from './session-store';
 import type { Role } from '../../shared/roles';
+import { rolesFor, type Action } from '../../shared/policies/permissions';
 import { User } from '../features/users/model';
 import { Forbidden, Unauthorized } from './errors';
 
@@ -94,4 +95,6 @@ export function authorize(allowed?: readonly Role[], options: PolicyOptions = {}
 }
 
 export const signedIn = authorize();
-export const adminOnly = authorize(['admin']);
+
+/** The roles the shared permission table gives this action (shared/policies/permissions.ts). */
+export const allow = (action: Action, options: PolicyOptions = {}): RequestHandler => authorize(rolesFor(action), options);

@@ -3,7 +3,7 @@
 // one retried after a deadlock, tells nobody anything.
 import type { Sequelize, Transaction } from 'sequelize';
 import type { LiveEvent } from '../../shared/live-events';
-import type { RealtimeHub } from './realtime';
+import type { RealtimeHub, SocketsOf } from './realtime';
 
 // Keyed by the database connection, so services need nothing but their transaction to publish;
 // a process that builds several apps on one connection (tests) reaches every hub.
@@ -45,8 +45,11 @@ export function publishCommitted(sequelize: Sequelize, event: LiveEvent): void {
   send(sequelize, event);
 }
 
-/** After the commit, closes the live connections of a person (deactivated) or of one session (signed out). */
-export function endSocketsOf(transaction: Transaction, who: { userId?: number; sessionId?: string }): void {
+/**
+ * After the commit, closes the live connections of a person (deactivated; or all but one session's,
+ * after a password change) or of one session (signed out).
+ */
+export function endSocketsOf(transaction: Transaction, who: SocketsOf): void {
   const sequelize = (transaction as Transaction & { sequelize: Sequelize }).sequelize;
   transaction.afterCommit(() => {
     for (const hub of hubs.get(sequelize) ?? []) hub.disconnect(who);
@@ -54,6 +57,6 @@ export function endSocketsOf(transaction: Transaction, who: { userId?: number; s
 }
 
 /** The same, for a change that is not a database write (signing out destroys a session row on its own). */
-export function endSocketsNow(sequelize: Sequelize, who: { userId?: number; sessionId?: string }): void {
+export function endSocketsNow(sequelize: Sequelize, who: SocketsOf): void {
   for (const hub of hubs.get(sequelize) ?? []) hub.disconnect(who);
 }

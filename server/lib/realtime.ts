@@ -6,11 +6,14 @@ import passport from 'passport';
 import { Server, type Socket } from 'socket.io';
 import type { BoardPresence, LiveEvent } from '../../shared/live-events';
 
+/** Whose live connections: a person's (optionally all but one session's), or one session's. */
+export type SocketsOf = { userId?: number; exceptSessionId?: string; sessionId?: string };
+
 export type RealtimeHub = {
   /** To the unit's watchers, one person, or everyone signed in — whichever the event names. */
   send(event: LiveEvent): void;
   /** Ends the live connections of a person, or of one session. */
-  disconnect(who: { userId?: number; sessionId?: string }): void;
+  disconnect(who: SocketsOf): void;
   attach(http: HttpServer, sessionMiddleware: RequestHandler): Server;
 };
 
@@ -79,7 +82,8 @@ export function createRealtimeHub(): RealtimeHub {
     disconnect(who) {
       if (!io) return;
       for (const socket of io.sockets.sockets.values()) {
-        if ((who.userId !== undefined && socket.data.userId === who.userId) || (who.sessionId !== undefined && socket.data.sessionId === who.sessionId)) {
+        const personMatches = who.userId !== undefined && socket.data.userId === who.userId && socket.data.sessionId !== who.exceptSessionId;
+        if (personMatches || (who.sessionId !== undefined && socket.data.sessionId === who.sessionId)) {
           socket.disconnect(true);
         }
       }

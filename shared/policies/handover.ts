@@ -1,12 +1,13 @@
 // Who may do what on a handover, given the person's role and crew and the handover's crews. The
 // server enforces these in the handover service; the board asks the same functions what to offer.
 import type { Role } from '../roles';
+import { rolesFor } from './permissions';
 
 export type HandoverActor = { id: number; role: Role; crewId: number | null };
 export type HandoverCrews = { outgoingCrewId: number | null; incomingCrewId: number | null };
 
 /** Roles that work shifts; trainers and administrators read handovers but are not on a crew's side. */
-export const shiftRoles: readonly Role[] = ['trainee', 'operator', 'shift_lead'];
+export const shiftRoles: readonly Role[] = rolesFor('handover.take-part');
 
 export type HandoverSide = 'outgoing' | 'incoming' | 'other';
 

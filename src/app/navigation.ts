@@ -1,25 +1,27 @@
 import type { Role } from '../../shared/roles';
+import { can, type Action } from '../../shared/policies/permissions';
 
-export type NavItem = { to: string; label: string; roles: readonly Role[] | 'all' };
+/** `action`: the permission the page is for (shared/policies/permissions.ts); none = everyone signed in. */
+export type NavItem = { to: string; label: string; action?: Action };
 
-/** What each role finds in the navigation. The server enforces the same rules on every route. */
+/** What each role finds in the navigation: the same table the server authorises every route from. */
 export const navigation: NavItem[] = [
-  { to: '/', label: 'Overview', roles: 'all' },
-  { to: '/handover', label: 'Handover', roles: 'all' },
-  { to: '/log', label: 'Shift log', roles: 'all' },
-  { to: '/orders', label: 'Standing orders', roles: 'all' },
-  { to: '/rounds', label: 'Rounds', roles: 'all' },
-  { to: '/flags', label: 'Flags', roles: 'all' },
-  { to: '/trends', label: 'Trends', roles: 'all' },
-  { to: '/condenser-check', label: 'Condenser check', roles: 'all' },
-  { to: '/logbook', label: 'Logbook history', roles: 'all' },
-  { to: '/training', label: 'Training', roles: 'all' },
-  { to: '/import', label: 'Import', roles: ['operator', 'shift_lead', 'admin'] },
-  { to: '/plant', label: 'Plant setup', roles: 'all' },
-  { to: '/admin/people', label: 'People', roles: ['admin'] },
-  { to: '/admin/shifts', label: 'Shifts', roles: ['admin'] },
-  { to: '/admin/audit', label: 'Audit trail', roles: ['admin'] },
-  { to: '/account/password', label: 'My password', roles: 'all' },
+  { to: '/', label: 'Overview' },
+  { to: '/handover', label: 'Handover' },
+  { to: '/log', label: 'Shift log' },
+  { to: '/orders', label: 'Standing orders' },
+  { to: '/rounds', label: 'Rounds' },
+  { to: '/flags', label: 'Flags' },
+  { to: '/trends', label: 'Trends' },
+  { to: '/condenser-check', label: 'Condenser check' },
+  { to: '/logbook', label: 'Logbook history' },
+  { to: '/training', label: 'Training' },
+  { to: '/import', label: 'Import', action: 'import.run' },
+  { to: '/plant', label: 'Plant setup' },
+  { to: '/admin/people', label: 'People', action: 'people.manage' },
+  { to: '/admin/shifts', label: 'Shifts', action: 'shifts.manage' },
+  { to: '/admin/audit', label: 'Audit trail', action: 'audit.read' },
+  { to: '/account/password', label: 'My password' },
 ];
 
-export const navigationFor = (role: Role) => navigation.filter((item) => item.roles === 'all' || item.roles.includes(role));
+export const navigationFor = (role: Role) => navigation.filter((item) => !item.action || can(role, item.action));

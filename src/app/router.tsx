@@ -30,7 +30,11 @@ export function createAppRouter(queryClient: QueryClient) {
         { path: 'rounds/:id', lazy: async () => ({ Component: (await import('../features/rounds/routes/reading-page')).ReadingPage }) },
         { path: 'flags', lazy: async () => ({ Component: (await import('../features/flags/routes/flags-page')).FlagsPage }) },
         { path: 'trends', lazy: async () => ({ Component: (await import('../features/trends/routes/trends-page')).TrendsPage }) },
-        { path: 'import', lazy: async () => ({ Component: (await import('../features/imports/routes/import-page')).ImportPage }) },
+        {
+          path: 'import',
+          element: <RequireRole action="import.run" />,
+          children: [{ index: true, lazy: async () => ({ Component: (await import('../features/imports/routes/import-page')).ImportPage }) }],
+        },
         { path: 'logbook', lazy: async () => ({ Component: (await import('../features/logbook/routes/logbook-page')).LogbookPage }) },
         {
           path: 'logbook/units/:unitId/shifts/:shiftStart',
@@ -45,11 +49,22 @@ export function createAppRouter(queryClient: QueryClient) {
         },
         {
           path: 'admin',
-          element: <RequireRole roles={['admin']} />,
           children: [
-            { path: 'people', lazy: async () => ({ Component: (await import('../features/admin-users/routes/users-page')).UsersPage }) },
-            { path: 'shifts', lazy: async () => ({ Component: (await import('../features/shifts/routes/shifts-page')).ShiftsPage }) },
-            { path: 'audit', lazy: async () => ({ Component: (await import('../features/audit/routes/audit-page')).AuditPage }) },
+            {
+              path: 'people',
+              element: <RequireRole action="people.manage" />,
+              children: [{ index: true, lazy: async () => ({ Component: (await import('../features/admin-users/routes/users-page')).UsersPage }) }],
+            },
+            {
+              path: 'shifts',
+              element: <RequireRole action="shifts.manage" />,
+              children: [{ index: true, lazy: async () => ({ Component: (await import('../features/shifts/routes/shifts-page')).ShiftsPage }) }],
+            },
+            {
+              path: 'audit',
+              element: <RequireRole action="audit.read" />,
+              children: [{ index: true, lazy: async () => ({ Component: (await import('../features/audit/routes/audit-page')).AuditPage }) }],
+            },
           ],
         },
         { path: '*', element: <NotFoundPage /> },

@@ -21,7 +21,7 @@ beforeAll(async () => {
   s3 = await startFakeS3();
   built = createApp(
     db(),
-    { sessionSecret: SECRET, production: false, behindHttpsProxy: false, signInRateLimit: 10_000 },
+    { sessionSecret: SECRET, production: false, behindHttpsProxy: false },
     { storage: s3Storage({ endpoint: s3.endpoint, bucket: 'hotwell-test', accessKeyId: 'local', secretAccessKey: 'local' }) },
   );
   const { unit, crews } = await makeStation(2);

@@ -155,7 +155,10 @@ describe('demo scenario: rounds follow the crew rotation', () => {
       expect(people.get(e.authorId)!.crewId, e.text).toBe(crewAt(e.eventAt));
       expect(e.shiftStart.getTime()).toBe(shiftAt(e.eventAt).getTime());
       expect(e.eventAt.getTime()).toBeLessThanOrEqual(Date.now());
+      // The trainee's report is marked as a trainee's; nobody else's entry is.
+      expect(e.writtenAsTrainee, e.text).toBe(people.get(e.authorId)!.role === 'trainee');
     }
+    expect(entries.some((e) => e.writtenAsTrainee)).toBe(true);
     const reviews = await LogReview.findAll({ where: { unitId: unitIds } });
     expect(reviews.length).toBeGreaterThan(0);
     for (const v of reviews) {

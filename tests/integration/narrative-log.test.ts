@@ -78,13 +78,14 @@ describe('append-only log', () => {
 
   it('keeps the original beside an amendment with who and why', async () => {
     const created = await post(operator, `/api/units/${unitId}/log`, entry({ text: 'Started 1-CWP-C' }));
-    const res = await post(lead, `/api/log/${created.body.id}/amendments`, { reason: 'Wrong pump tag', text: 'Started 1-CWP-A' });
+    // Its author corrects it (who else may is in role-rules.test.ts).
+    const res = await post(operator, `/api/log/${created.body.id}/amendments`, { reason: 'Wrong pump tag', text: 'Started 1-CWP-A' });
     expect(res.status).toBe(201);
     const list = await operator.get(`/api/units/${unitId}/log?limit=20`).expect(200);
     const shown = list.body.entries.find((e: { id: number }) => e.id === created.body.id);
     expect(shown.text).toBe('Started 1-CWP-C');
     expect(shown.amendments[0]).toMatchObject({ reason: 'Wrong pump tag', text: 'Started 1-CWP-A' });
-    const noReason = await post(lead, `/api/log/${created.body.id}/amendments`, { reason: '', text: 'x' });
+    const noReason = await post(operator, `/api/log/${created.body.id}/amendments`, { reason: '', text: 'x' });
     expect(noReason.status).toBe(400);
     const trainee = await signedInAgent(built, (await makeUser('trainee')).email);
     await post(trainee, `/api/log/${created.body.id}/amendments`, { reason: 'not mine to fix', text: 'x' }).expect(403);

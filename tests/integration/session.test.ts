@@ -85,18 +85,7 @@ describe('POST /api/session (sign-in)', () => {
   });
 });
 
-describe('sign-in rate limit', () => {
-  it('answers 429 once the limit of attempts is reached', async () => {
-    const limited = buildApp({ signInRateLimit: 3 });
-    const agent = await anonymousAgent(limited);
-    const statuses: number[] = [];
-    for (let i = 0; i < 4; i++) {
-      const res = await agent.post('/api/session').set('X-CSRF-Token', agent.csrf).send({ email: 'x@test.example', password: 'wrong one' });
-      statuses.push(res.status);
-    }
-    expect(statuses).toEqual([401, 401, 401, 429]);
-  });
-});
+// How many failed sign-ins are allowed, per account and per address: sign-in-limits.test.ts.
 
 describe('DELETE /api/session (sign-out)', () => {
   const built = buildApp();

@@ -49,6 +49,7 @@ export async function seedDemoLog(sequelize: Sequelize, { stationId, unitId, oth
           shiftStart: roster.shiftAt(eventAt),
           late: false,
           authorId: author.id,
+          writtenAsTrainee: author.role === 'trainee',
           text,
           equipmentId: extra.equipmentId ?? null,
           readingSetId: null,

@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { Op } from 'sequelize';
-import { adminOnly } from '../../lib/auth';
+import { allow } from '../../lib/auth';
 import { parseInput } from '../../lib/validate';
 import { User } from '../users/model';
 import { AuditEvent } from './model';
@@ -16,7 +16,7 @@ const auditQuery = z.object({
 /** The audit trail, newest first, paged by id. Administrators only. */
 export function adminAuditRoutes(): Router {
   const router = Router();
-  router.use(adminOnly);
+  router.use(allow('audit.read'));
   router.get('/', async (req, res) => {
     const q = parseInput(auditQuery, req.query);
     const where: Record<string | symbol, unknown> = {};

@@ -1,13 +1,13 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { closeConditionSchema, newConditionSchema } from '../../../shared/schemas/log';
-import { authorize, signedIn } from '../../lib/auth';
+import { allow, signedIn } from '../../lib/auth';
 import { parseId, parseInput } from '../../lib/validate';
 import { settingsForUnit } from '../stations/settings';
 import { Condition } from './model';
 import { presentConditions, type ConditionService } from './service';
 
-const mayHandle = authorize(['operator', 'shift_lead', 'admin']);
+const mayHandle = allow('condition.manage');
 const listQuery = z.object({ state: z.enum(['open', 'closed', 'all']).default('open') });
 
 export function conditionRoutes(conditions: ConditionService): Router {

@@ -10,6 +10,7 @@ import { unitOfWork } from '../../lib/unit-of-work';
 import { settingsForUnit } from '../stations/settings';
 import { User } from '../users/model';
 import type { LogService } from '../log/service';
+import type { LogActor } from '../../../shared/policies/log';
 import { Condition } from './model';
 
 export async function presentConditions(conditions: Condition[], timeZone: string, now = new Date()) {
@@ -61,7 +62,7 @@ export function makeConditionService(sequelize: Sequelize, log: LogService) {
     });
   }
 
-  async function close(actor: { id: number; role: string }, id: number, input: { text: string; position: string; version: number }) {
+  async function close(actor: LogActor, id: number, input: { text: string; position: string; version: number }) {
     const found = await Condition.findByPk(id);
     if (!found) throw new NotFound('That condition');
     const { settings } = await settingsForUnit(found.unitId);

@@ -1,11 +1,11 @@
 import { Router } from 'express';
 import { assignFlagSchema, clearFlagSchema, flagQuerySchema, raiseFlagSchema } from '../../../shared/schemas/flags';
-import { authorize, signedIn } from '../../lib/auth';
+import { allow, signedIn } from '../../lib/auth';
 import { parseId, parseInput } from '../../lib/validate';
 import { listFlags, type FlagService } from './service';
 
 // The shift lead owns abnormal readings: raising, assigning and clearing flags.
-const leadsFlags = authorize(['shift_lead', 'admin']);
+const leadsFlags = allow('flag.manage');
 
 export function flagRoutes(flags: FlagService): Router {
   const router = Router();

@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import multer from 'multer';
 import { attachmentReasonSchema } from '../../../shared/schemas/handovers';
-import { authorize, signedIn } from '../../lib/auth';
+import { allow, signedIn } from '../../lib/auth';
 import { parseId, parseInput } from '../../lib/validate';
 import { MAX_ATTACHMENT_BYTES, type AttachmentService } from './attachment-service';
 
@@ -10,7 +10,7 @@ const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: MAX
 export function attachmentRoutes(attachments: AttachmentService): Router {
   const router = Router();
 
-  router.post('/handover-items/:id/attachments', authorize(['operator', 'shift_lead']), upload.single('file'), async (req, res) => {
+  router.post('/handover-items/:id/attachments', allow('handover.attach'), upload.single('file'), async (req, res) => {
     const { reason } = parseInput(attachmentReasonSchema, { reason: typeof req.body?.reason === 'string' && req.body.reason.trim() ? req.body.reason : undefined });
     const attachment = await attachments.add(req.user!, parseId(req.params.id), req.file, reason);
     res.status(201).json({ id: attachment.id, mime: attachment.mime, fileName: attachment.fileName, amendmentId: attachment.amendmentId });

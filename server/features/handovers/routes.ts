@@ -1,12 +1,12 @@
 import { Router } from 'express';
 import { answerSchema, editHandoverItemSchema, handoverAmendmentSchema, newHandoverItemSchema, questionSchema, saveNotesSchema } from '../../../shared/schemas/handovers';
-import { authorize, signedIn } from '../../lib/auth';
+import { allow, signedIn } from '../../lib/auth';
 import { parseId, parseInput } from '../../lib/validate';
 import type { HandoverService } from './service';
 import { viewHandover } from './view';
 
 // Crew members act on handovers; the service checks outgoing/incoming crew and role per action.
-const crewMember = authorize(['trainee', 'operator', 'shift_lead']);
+const crewMember = allow('handover.take-part');
 
 export function handoverRoutes(handovers: HandoverService): Router {
   const router = Router();

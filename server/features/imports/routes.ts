@@ -1,7 +1,7 @@
 import { Router, type RequestHandler } from 'express';
 import multer from 'multer';
 import { importMappingSchema } from '../../../shared/schemas/imports';
-import { authorize } from '../../lib/auth';
+import { allow } from '../../lib/auth';
 import { ValidationError } from '../../lib/errors';
 import { parseId, parseInput } from '../../lib/validate';
 import { requireUnit } from '../plant/versions';
@@ -9,7 +9,7 @@ import { MAX_IMPORT_BYTES, parseCsv } from './parse-csv';
 import { analyseImport, rememberedMappings, type ImportService } from './service';
 
 const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: MAX_IMPORT_BYTES, files: 1, fields: 5, fieldSize: 64 * 1024 } });
-const mayImport = authorize(['operator', 'shift_lead', 'admin']);
+const mayImport = allow('import.run');
 // Authorize before reading a byte of the upload.
 const withFile: RequestHandler[] = [mayImport, upload.single('file')];
 

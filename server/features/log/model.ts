@@ -11,6 +11,8 @@ export class LogEntry extends Model<InferAttributes<LogEntry>, InferCreationAttr
   declare shiftStart: Date;
   declare late: boolean;
   declare authorId: number;
+  /** Written by a trainee (their role when writing it). */
+  declare writtenAsTrainee: CreationOptional<boolean>;
   declare text: string;
   declare equipmentId: number | null;
   declare readingSetId: number | null;
@@ -50,6 +52,7 @@ export function initLogModels(sequelize: Sequelize) {
       shiftStart: DataTypes.DATE(3),
       late: DataTypes.BOOLEAN,
       authorId: DataTypes.INTEGER.UNSIGNED,
+      writtenAsTrainee: { type: DataTypes.BOOLEAN, defaultValue: false },
       text: DataTypes.TEXT,
       equipmentId: DataTypes.INTEGER.UNSIGNED,
       readingSetId: DataTypes.BIGINT.UNSIGNED,

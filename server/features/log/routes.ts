@@ -1,13 +1,11 @@
 import { Router } from 'express';
 import { amendLogEntrySchema, logQuerySchema, newLogEntrySchema, signReviewSchema } from '../../../shared/schemas/log';
 import { recentShiftStarts, stationLocalLabel } from '../../../shared/shift-time';
-import { authorize, signedIn } from '../../lib/auth';
+import { allow, signedIn } from '../../lib/auth';
 import { parseId, parseInput } from '../../lib/validate';
 import { settingsForUnit } from '../stations/settings';
 import { listEntries, reviewsFor, type LogService } from './service';
 
-const mayWrite = authorize(['trainee', 'operator', 'shift_lead', 'admin']);
-const mayReview = authorize(['shift_lead']);
 
 export function logRoutes(log: LogService): Router {
   const router = Router();
@@ -15,15 +13,15 @@ export function logRoutes(log: LogService): Router {
   router.get('/units/:unitId/log', signedIn, async (req, res) => {
     const unitId = parseId(req.params.unitId, 'unitId');
     await settingsForUnit(unitId);
-    res.json({ entries: await listEntries(unitId, parseInput(logQuerySchema, req.query)) });
+    res.json({ entries: await listEntries(unitId, parseInput(logQuerySchema, req.query), req.user!) });
   });
 
-  router.post('/units/:unitId/log', mayWrite, async (req, res) => {
+  router.post('/units/:unitId/log', allow('log.write'), async (req, res) => {
     const entry = await log.addEntry(req.user!, parseId(req.params.unitId, 'unitId'), parseInput(newLogEntrySchema, req.body));
     res.status(201).json({ id: entry.id, late: entry.late, enteredAt: entry.enteredAt.toISOString(), shiftStart: entry.shiftStart.toISOString() });
   });
 
-  router.post('/log/:id/amendments', mayWrite, async (req, res) => {
+  router.post('/log/:id/amendments', allow('log.amend'), async (req, res) => {
     const amendment = await log.amend(req.user!, parseId(req.params.id), parseInput(amendLogEntrySchema, req.body));
     res.status(201).json({ id: amendment.id });
   });
@@ -40,7 +38,7 @@ export function logRoutes(log: LogService): Router {
     });
   });
 
-  router.post('/units/:unitId/log/reviews', mayReview, async (req, res) => {
+  router.post('/units/:unitId/log/reviews', allow('log.review'), async (req, res) => {
     const input = parseInput(signReviewSchema, req.body);
     const review = await log.signReview(req.user!, parseId(req.params.unitId, 'unitId'), input.position, input.shiftStart);
     res.status(201).json({ id: review.id, reviewedAt: review.reviewedAt.toISOString() });

@@ -7,17 +7,28 @@ import { Conflict, Forbidden, NotFound, ValidationError } from '../../lib/errors
 import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
 import { recordAudit } from '../../lib/audit';
-import { Equipment } from '../plant/model';
+import { mayAmendLogEntry, whyNotAmendLogEntry, type LogActor } from '../../../shared/policies/log';
+import { Equipment, PlantUnit } from '../plant/model';
 import { ReadingSet } from '../readings/model';
 import { Flag } from '../flags/model';
 import { User } from '../users/model';
-import { requireKnown, settingsForUnit } from '../stations/settings';
+import { crewsOnShifts } from '../shifts/crews';
+import { requireKnown, settingsForUnit, stationShiftSetup } from '../stations/settings';
 import { LogAmendment, LogEntry, LogReview } from './model';
 
 const FUTURE_TOLERANCE_MS = 2 * 60 * 1000;
 const OLDEST_LATE_ENTRY_MS = 31 * 86_400_000;
 
-type Actor = { id: number; role: string };
+type Actor = LogActor;
+
+/** The crew that worked each of these shifts at the station (one-off swaps first, then the rotation), by shift start. */
+async function crewsOfShifts(stationId: number, shiftStarts: Date[]): Promise<Map<number, number | null>> {
+  const starts = [...new Set(shiftStarts.map((s) => s.getTime()))].map((t) => new Date(t));
+  if (starts.length === 0) return new Map();
+  const { settings, rotation } = await stationShiftSetup(stationId);
+  const crews = await crewsOnShifts(starts.map((shiftStart) => ({ stationId, shiftStart, rotation, changesPerDay: settings.shiftChangeTimes.length })));
+  return new Map(starts.map((s, i) => [s.getTime(), crews[i] ?? null]));
+}
 
 async function checkLinks(unitId: number, input: NewLogEntry) {
   const fields: Record<string, string> = {};
@@ -62,6 +73,7 @@ export function makeLogService(sequelize: Sequelize) {
       shiftStart: shiftStartFor(eventAt, settings.timeZone, settings.shiftChangeTimes),
       late: enteredAt.getTime() - eventAt.getTime() > settings.lateEntryMinutes * 60_000,
       authorId: actor.id,
+      writtenAsTrainee: actor.role === 'trainee',
       text: input.text,
       equipmentId: input.equipmentId ?? null,
       readingSetId: input.readingSetId ?? null,
@@ -76,7 +88,9 @@ export function makeLogService(sequelize: Sequelize) {
   async function amend(actor: Actor, entryId: number, input: { reason: string; text: string }) {
     const entry = await LogEntry.findByPk(entryId);
     if (!entry) throw new NotFound('That log entry');
-    if (actor.role === 'trainee' && entry.authorId !== actor.id) throw new Forbidden('A trainee may amend only their own entries');
+    const unit = await PlantUnit.findByPk(entry.unitId, { attributes: ['id', 'stationId'] });
+    const crewOnShift = unit ? ((await crewsOfShifts(unit.stationId, [entry.shiftStart])).get(entry.shiftStart.getTime()) ?? null) : null;
+    if (!mayAmendLogEntry(actor, { authorId: entry.authorId, crewOnShift })) throw new Forbidden(whyNotAmendLogEntry(actor));
     return unitOfWork(sequelize, async (transaction) => {
       const created = await LogAmendment.create({ entryId, authorId: actor.id, amendedAt: new Date(), reason: input.reason, text: input.text }, { transaction });
       await recordAudit({ actorId: actor.id, action: 'log.amend', entity: 'log_entry', entityId: entryId, after: { reason: input.reason } }, transaction);
@@ -109,8 +123,8 @@ export type LogService = ReturnType<typeof makeLogService>;
 
 type LogQuery = { position?: string; category?: string; authorId?: number; shiftStart?: string; limit: number; before?: number };
 
-/** Entries newest event first, each with its amendments and whether it came after the review. */
-export async function listEntries(unitId: number, q: LogQuery) {
+/** Entries newest event first, each with its amendments, whether it came after the review and whether the viewer may amend it. */
+export async function listEntries(unitId: number, q: LogQuery, viewer: LogActor) {
   const where: Record<string | symbol, unknown> = { unitId };
   if (q.position) where.position = q.position;
   if (q.category) where.category = q.category;
@@ -125,6 +139,8 @@ export async function listEntries(unitId: number, q: LogQuery) {
   const people = new Map(
     (await User.findAll({ where: { id: [...new Set([...entries.map((e) => e.authorId), ...amendments.map((a) => a.authorId), ...reviews.map((r) => r.reviewedBy)])] }, attributes: ['id', 'name'] })).map((u) => [u.id, u.name]),
   );
+  const unit = await PlantUnit.findByPk(unitId, { attributes: ['id', 'stationId'] });
+  const crews = unit ? await crewsOfShifts(unit.stationId, shifts) : new Map<number, number | null>();
   const reviewOf = (e: LogEntry) => reviews.find((r) => r.position === e.position && r.shiftStart.getTime() === e.shiftStart.getTime());
   return entries.map((e) => {
     const review = reviewOf(e);
@@ -138,6 +154,8 @@ export async function listEntries(unitId: number, q: LogQuery) {
       late: e.late,
       author: people.get(e.authorId) ?? `#${e.authorId}`,
       authorId: e.authorId,
+      writtenAsTrainee: e.writtenAsTrainee,
+      mayAmend: mayAmendLogEntry(viewer, { authorId: e.authorId, crewOnShift: crews.get(e.shiftStart.getTime()) ?? null }),
       text: e.text,
       equipmentId: e.equipmentId,
       readingSetId: e.readingSetId,

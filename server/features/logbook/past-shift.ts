@@ -39,7 +39,7 @@ export async function pastShift(sequelize: Sequelize, viewer: Express.User, unit
 
   const alive = (startColumn: string, endColumn: string) => ({ [startColumn]: { [Op.lt]: end }, [Op.or]: [{ [endColumn]: null }, { [endColumn]: { [Op.gte]: start } }] });
   const [entries, reviews, readingRows, flagRows, conditionRows, orderRows, received, given, crew] = await Promise.all([
-    listEntries(unitId, { shiftStart: start.toISOString(), limit: 2000 }),
+    listEntries(unitId, { shiftStart: start.toISOString(), limit: 2000 }, viewer),
     reviewsFor(unitId, [start]),
     ReadingSet.findAll({ where: { unitId, takenAt: { [Op.gte]: start, [Op.lt]: end } }, attributes: ['id'], order: [['takenAt', 'ASC']] }),
     Flag.findAll({ where: { unitId, ...alive('raisedAt', 'clearedAt') }, order: [['raisedAt', 'ASC']] }),

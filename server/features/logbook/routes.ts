@@ -2,7 +2,7 @@ import { Router } from 'express';
 import Papa from 'papaparse';
 import type { Sequelize } from 'sequelize';
 import { documentKindLabels, logbookSearchSchema, reviewCommentSchema, type LogbookSearch } from '../../../shared/schemas/logbook';
-import { authorize, signedIn } from '../../lib/auth';
+import { allow, signedIn } from '../../lib/auth';
 import { parseId, parseInput } from '../../lib/validate';
 import { Station } from '../plant/model';
 import { settingsForStation, settingsForUnit } from '../stations/settings';
@@ -10,7 +10,7 @@ import { searchLogbook } from './search';
 import { pastShift } from './past-shift';
 import type { ReviewCommentService } from './review-comments';
 
-const mayComment = authorize(['trainer', 'admin']);
+const mayComment = allow('review.comment');
 const CSV_ROWS = 5000;
 
 /** Date filters are station-local days: the unit's station, or the first station. */

@@ -4,14 +4,12 @@
 import { Op, literal } from 'sequelize';
 import type { ReviewCommentView } from '../../../shared/schemas/logbook';
 import type { WaitingOnYou } from '../../../shared/schemas/overview';
+import { can } from '../../../shared/policies/permissions';
 import { ReadingSet } from '../readings/model';
 import { pendingFor } from '../standing-orders/service';
 import { countersignQueue } from '../training/service';
 import type { CurrentHandovers } from './unit-state';
 
-const CREW_ROLES: readonly string[] = ['trainee', 'operator', 'shift_lead'];
-/** The roles the rounds and training routes let countersign. */
-const COUNTERSIGNERS: readonly string[] = ['operator', 'shift_lead'];
 const LIST_LIMIT = 10;
 /** Review comments have no "read" mark; the front page shows the recent ones and the logbook keeps them all. */
 const RECENT_COMMENTS_MS = 7 * 86_400_000;
@@ -23,7 +21,7 @@ export type ReviewCommentsFor = (viewer: Express.User, limit: number) => Promise
  * current version): a submitted handover's items, and an accepted one's amended after the turnover.
  */
 export function handoverItemsFor(viewer: Express.User, current: CurrentHandovers, unitName: (unitId: number) => string): WaitingOnYou['handoverItems'] {
-  if (viewer.crewId === null || !CREW_ROLES.includes(viewer.role)) return [];
+  if (viewer.crewId === null || !can(viewer.role, 'handover.take-part')) return [];
   const mine = new Map(current.handovers.filter((h) => h.status !== 'draft' && h.incomingCrewId === viewer.crewId).map((h) => [h.id, h]));
   const acked = new Set(current.acks.filter((a) => a.userId === viewer.id).map((a) => a.itemId));
   return current.items
@@ -36,7 +34,7 @@ export function handoverItemsFor(viewer: Express.User, current: CurrentHandovers
 
 /** Open questions on the viewer's crew's handover, for the outgoing operators and lead who answer them. */
 export function handoverQuestionsFor(viewer: Express.User, current: CurrentHandovers, unitName: (unitId: number) => string): WaitingOnYou['handoverQuestions'] {
-  if (viewer.crewId === null || !['operator', 'shift_lead'].includes(viewer.role)) return [];
+  if (viewer.crewId === null || !can(viewer.role, 'handover.attach')) return [];
   const mine = new Map(current.handovers.filter((h) => h.status === 'submitted' && h.outgoingCrewId === viewer.crewId).map((h) => [h.id, h]));
   const itemOf = new Map(current.items.map((i) => [i.id, i]));
   return current.openQuestions
@@ -71,7 +69,7 @@ export function handoversToAcceptFor(
  * own crew's trainees when they belong to a crew, since those are the rounds they walked beside.
  */
 export async function traineeRoundsFor(viewer: Express.User) {
-  if (!COUNTERSIGNERS.includes(viewer.role)) return [];
+  if (!can(viewer.role, 'reading.countersign')) return [];
   const recordedBy: Record<symbol, unknown> = { [Op.ne]: viewer.id };
   if (viewer.crewId !== null) recordedBy[Op.in] = literal(`(SELECT id FROM users WHERE crew_id = ${Number(viewer.crewId)})`);
   return ReadingSet.findAll({
@@ -83,7 +81,7 @@ export async function traineeRoundsFor(viewer: Express.User) {
 }
 
 export async function trainingEntriesFor(viewer: Express.User): Promise<WaitingOnYou['trainingEntries']> {
-  if (!COUNTERSIGNERS.includes(viewer.role)) return [];
+  if (!can(viewer.role, 'training.countersign')) return [];
   const queue = await countersignQueue(viewer);
   return queue.slice(0, LIST_LIMIT).map((e) => ({ id: e.id, trainee: e.trainee, taskTitle: e.taskTitle, performedOn: e.performedOn, level: e.level }));
 }

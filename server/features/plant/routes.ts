@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { newDesignVersionSchema, newLimitVersionSchema } from '../../../shared/schemas/plant';
-import { adminOnly, signedIn } from '../../lib/auth';
+import { allow, signedIn } from '../../lib/auth';
 import { recordAudit } from '../../lib/audit';
 import { publish } from '../../lib/live';
 import { ValidationError } from '../../lib/errors';
@@ -67,19 +67,19 @@ export function plantRoutes(sequelize: Sequelize, versions: VersionService): Rou
     });
   });
 
-  router.post('/units/:unitId/design-versions', adminOnly, async (req, res) => {
+  router.post('/units/:unitId/design-versions', allow('plant.manage'), async (req, res) => {
     const input = parseInput(newDesignVersionSchema, req.body);
     const created = await versions.addDesignVersion(req.user!.id, parseId(req.params.unitId, 'unitId'), input.design as never, input.note);
     res.status(201).json({ versionId: created.id });
   });
 
-  router.post('/units/:unitId/limit-versions', adminOnly, async (req, res) => {
+  router.post('/units/:unitId/limit-versions', allow('plant.manage'), async (req, res) => {
     const input = parseInput(newLimitVersionSchema, req.body);
     const created = await versions.addLimitVersion(req.user!.id, parseId(req.params.unitId, 'unitId'), input.limits, input.note);
     res.status(201).json({ versionId: created.id });
   });
 
-  router.post('/units/:unitId/equipment', adminOnly, async (req, res) => {
+  router.post('/units/:unitId/equipment', allow('plant.manage'), async (req, res) => {
     const unitId = parseId(req.params.unitId, 'unitId');
     await requireUnit(unitId);
     const input = parseInput(equipmentSchema, req.body);

@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { amendReadingSchema, recordReadingSchema } from '../../../shared/schemas/readings';
-import { authorize, signedIn } from '../../lib/auth';
+import { allow, signedIn } from '../../lib/auth';
 import { parseId, parseInput } from '../../lib/validate';
 import { requireUnit } from '../plant/versions';
 import { getReading, listReadings, type ReadingService } from './service';
@@ -11,10 +11,10 @@ const listQuery = z.object({
   limit: z.coerce.number().int().min(1).max(200).default(50),
 });
 
-// Trainees record rounds (marked for countersign); trainers review but do not record.
-const mayRecord = authorize(['trainee', 'operator', 'shift_lead', 'admin']);
-const mayCorrect = authorize(['operator', 'shift_lead', 'admin']);
-const mayCountersign = authorize(['operator', 'shift_lead']);
+// Trainees record rounds (marked for countersign); trainers review and administrators set up, neither records.
+const mayRecord = allow('reading.record');
+const mayCorrect = allow('reading.amend');
+const mayCountersign = allow('reading.countersign');
 
 export function readingRoutes(readings: ReadingService): Router {
   const router = Router();

@@ -3,11 +3,23 @@ import passport from 'passport';
 import { rateLimit } from 'express-rate-limit';
 import { changePasswordSchema, signInSchema } from '../../../shared/schemas/auth';
 import { SIGN_IN_FAILED, authorize } from '../../lib/auth';
+import { hasSignedInSession } from '../../lib/csrf';
 import { HttpError } from '../../lib/errors';
 import { parseInput } from '../../lib/validate';
 import { getPublicUser, type UserService } from '../users/service';
+import { isRefusal, type SignInLimiter } from './sign-in-limits';
 
 type Csrf = { generateToken: (req: Request, overwrite?: boolean) => string };
+type Deps = {
+  users: UserService;
+  csrf: Csrf;
+  signInLimits: SignInLimiter;
+  /** Sign-in forms (CSRF tokens) handed out per minute per address before sign-in. */
+  anonymousTokenLimit: number;
+  onSignedOut?: (sessionId: string) => void;
+};
+
+const addressOf = (req: Request) => req.ip ?? req.socket.remoteAddress ?? 'unknown';
 
 function authenticate(req: Request, res: Response): Promise<Express.User | false> {
   return new Promise((resolve, reject) => {
@@ -22,27 +34,35 @@ function logIn(req: Request, user: Express.User): Promise<void> {
   return new Promise((resolve, reject) => req.logIn(user, (error) => (error ? reject(error) : resolve())));
 }
 
-export function sessionRoutes(users: UserService, csrf: Csrf, signInLimit: number, onSignedOut: (sessionId: string) => void = () => {}): Router {
+export function sessionRoutes({ users, csrf, signInLimits, anonymousTokenLimit, onSignedOut = () => {} }: Deps): Router {
   const router = Router();
 
-  const signInLimiter: RequestHandler = rateLimit({
-    windowMs: 15 * 60 * 1000,
-    limit: signInLimit,
+  // Handing out a token stores nothing now, but a flood of them still costs CPU: a ceiling per address.
+  const tokenLimiter: RequestHandler = rateLimit({
+    windowMs: 60 * 1000,
+    limit: anonymousTokenLimit,
+    skip: hasSignedInSession,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
     handler: (_req, res) => {
-      res.status(429).json({ error: { code: 'RATE_LIMITED', message: 'Too many sign-in attempts; wait 15 minutes and try again' } });
+      res.status(429).json({ error: { code: 'RATE_LIMITED', message: 'Too many sign-in forms opened from this computer; wait a minute and try again' } });
     },
   });
 
-  router.get('/session/csrf', (req, res) => {
+  router.get('/session/csrf', tokenLimiter, (req, res) => {
     res.json({ csrfToken: csrf.generateToken(req) });
   });
 
-  router.post('/session', signInLimiter, async (req, res) => {
-    parseInput(signInSchema, req.body);
+  router.post('/session', async (req, res) => {
+    const input = parseInput(signInSchema, req.body);
+    const attempt = await signInLimits.begin(input.email, addressOf(req));
+    if (isRefusal(attempt)) {
+      res.setHeader('Retry-After', String(attempt.retryAfterSeconds));
+      throw new HttpError(429, 'SIGN_IN_LOCKED', attempt.message);
+    }
     const user = await authenticate(req, res);
     if (!user) throw new HttpError(401, 'SIGN_IN_FAILED', SIGN_IN_FAILED);
+    await attempt.succeeded();
     await logIn(req, user);
     res.json({ user: await getPublicUser(user.id), csrfToken: csrf.generateToken(req, true) });
   });
@@ -69,7 +89,7 @@ export function sessionRoutes(users: UserService, csrf: Csrf, signInLimit: numbe
 
   router.post('/me/password', signedInEvenIfPasswordPending, async (req, res) => {
     const input = parseInput(changePasswordSchema, req.body);
-    await users.changeOwnPassword(req.user!.id, input);
+    await users.changeOwnPassword(req.user!.id, input, req.sessionID);
     res.json({ user: await getPublicUser(req.user!.id) });
   });
 

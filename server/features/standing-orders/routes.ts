@@ -1,14 +1,14 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { orderQuerySchema, standingOrderSchema } from '../../../shared/schemas/log';
-import { authorize, signedIn } from '../../lib/auth';
+import { allow, signedIn } from '../../lib/auth';
 import { NotFound } from '../../lib/errors';
 import { parseId, parseInput } from '../../lib/validate';
 import { Station } from '../plant/model';
 import { StandingOrder } from './model';
 import { listOrders, pendingFor, presentOrder, type StandingOrderService } from './service';
 
-const mayIssue = authorize(['shift_lead', 'admin']);
+const mayIssue = allow('order.issue');
 const stationQuery = z.object({ stationId: z.coerce.number().int().positive().optional() });
 
 async function stationOf(raw: unknown) {
@@ -32,7 +32,7 @@ export function standingOrderRoutes(orders: StandingOrderService): Router {
     if (!order) throw new NotFound('That standing order');
     res.json({ order: await presentOrder(order, true) });
   });
-  router.post('/standing-orders/:id/acknowledge', signedIn, async (req, res) => {
+  router.post('/standing-orders/:id/acknowledge', allow('order.acknowledge'), async (req, res) => {
     const ack = await orders.acknowledge(req.user!, parseId(req.params.id));
     res.status(201).json({ acknowledgedAt: ack.acknowledgedAt.toISOString() });
   });

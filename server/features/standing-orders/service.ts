@@ -5,12 +5,13 @@ import { recordAudit } from '../../lib/audit';
 import { Conflict, Forbidden, NotFound, ValidationError } from '../../lib/errors';
 import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
+import { rolesFor } from '../../../shared/policies/permissions';
 import { Crew } from '../plant/model';
 import { User } from '../users/model';
 import { shiftChangeAt } from '../shifts/crews';
 import { StandingOrder, StandingOrderAck } from './model';
 
-const inScopeRoles = ['trainee', 'operator', 'shift_lead'] as const;
+const inScopeRoles = rolesFor('order.acknowledge');
 
 export function orderInForce(order: StandingOrder, now = new Date()) {
   return order.effectiveFrom <= now && (!order.effectiveTo || order.effectiveTo > now);

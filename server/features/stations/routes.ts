@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { stationSettingsSchema } from '../../../shared/schemas/log';
-import { adminOnly, signedIn } from '../../lib/auth';
+import { allow, signedIn } from '../../lib/auth';
 import { parseId, parseInput } from '../../lib/validate';
 import { settingsForStation } from './settings';
 import { requireStation, type StationService } from './service';
@@ -14,7 +14,7 @@ export function stationRoutes(stations: StationService): Router {
     res.json({ settings: await settingsForStation(stationId) });
   });
 
-  router.put('/stations/:stationId/settings', adminOnly, async (req, res) => {
+  router.put('/stations/:stationId/settings', allow('station.settings'), async (req, res) => {
     const stationId = parseId(req.params.stationId, 'stationId');
     const settings = parseInput(stationSettingsSchema, req.body);
     res.json({ settings: await stations.saveSettings(req.user!, stationId, settings) });

@@ -8,20 +8,20 @@ import {
   taskChangeSchema,
   trainingAmendmentSchema,
 } from '../../../shared/schemas/training';
-import { authorize, signedIn } from '../../lib/auth';
+import { allow, signedIn } from '../../lib/auth';
 import { Forbidden, NotFound } from '../../lib/errors';
 import { parseId, parseInput } from '../../lib/validate';
+import { mayReadTrainingOf } from '../../../shared/policies/training';
 import { Crew } from '../plant/model';
 import { QualificationTask } from './model';
 import { countersignQueue, crewQualifications, currentTasks, presentTask, progressOf, trainerQueue, type TrainingService } from './service';
 
-const catalogueEditors = authorize(['trainer', 'admin']);
-const trainees = authorize(['trainee']);
-const countersigners = authorize(['operator', 'shift_lead']);
-const trainers = authorize(['trainer']);
-const reviewers = authorize(['trainer', 'admin']);
-const crewViewers = authorize(['operator', 'shift_lead', 'trainer', 'admin']);
-const PROGRESS_READERS = ['trainer', 'admin', 'shift_lead'];
+const catalogueEditors = allow('training.catalogue');
+const trainees = allow('training.practice');
+const countersigners = allow('training.countersign');
+const trainers = allow('training.decide');
+const reviewers = allow('training.review-queue');
+const crewViewers = allow('training.crews');
 
 export function trainingRoutes(training: TrainingService): Router {
   const router = Router();
@@ -71,7 +71,7 @@ export function trainingRoutes(training: TrainingService): Router {
     res.status(201).json({ id: decision.id, decision: decision.decision });
   });
 
-  router.post('/training/amendments', signedIn, async (req, res) => {
+  router.post('/training/amendments', allow('training.amend'), async (req, res) => {
     const amendment = await training.amend(req.user!, parseInput(trainingAmendmentSchema, req.body));
     res.status(201).json({ id: amendment.id });
   });
@@ -82,7 +82,7 @@ export function trainingRoutes(training: TrainingService): Router {
 
   router.get('/training/trainees/:id', signedIn, async (req, res) => {
     const id = parseId(req.params.id);
-    if (id !== req.user!.id && !PROGRESS_READERS.includes(req.user!.role)) throw new Forbidden('Trainees see their own training records only');
+    if (!mayReadTrainingOf(req.user!, id)) throw new Forbidden('Trainees see their own training records only');
     res.json(await progressOf(id));
   });
 

@@ -3,6 +3,8 @@
 // later correction is an amendment with a reason and a name, written to the audit trail too.
 import { Op, type Sequelize, type Transaction } from 'sequelize';
 import type { NewTrainingEntry, QualificationTaskInput, TaskStatus } from '../../../shared/schemas/training';
+import { mayAmendTraining } from '../../../shared/policies/training';
+import { can } from '../../../shared/policies/permissions';
 import { recordAudit } from '../../lib/audit';
 import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
@@ -110,7 +112,7 @@ export function makeTrainingService(sequelize: Sequelize) {
     if (input.handoverItemId && !(await HandoverItem.findByPk(input.handoverItemId, { attributes: ['id'] }))) fields.handoverItemId = 'No such handover item';
     if (input.supervisorId) {
       const supervisor = await User.findByPk(input.supervisorId);
-      if (!supervisor || !supervisor.active || !['operator', 'shift_lead'].includes(supervisor.role)) fields.supervisorId = 'Choose an operator or shift lead';
+      if (!supervisor || !supervisor.active || !can(supervisor.role, 'training.countersign')) fields.supervisorId = 'Choose an operator or shift lead';
     }
     if (Object.keys(fields).length) throw new ValidationError(fields);
     return unitOfWork(sequelize, async (transaction) => {
@@ -187,13 +189,12 @@ export function makeTrainingService(sequelize: Sequelize) {
   }
 
   async function amend(actor: Actor, input: { target: 'entry' | 'decision'; targetId: number; reason: string; text: string }) {
-    const reviewer = ['trainer', 'admin'].includes(actor.role);
     if (input.target === 'entry') {
       const entry = await TrainingEntry.findByPk(input.targetId);
       if (!entry) throw new NotFound('That training entry');
-      if (!reviewer && entry.traineeId !== actor.id) throw new Forbidden('Only the trainee who wrote it or a trainer amends a training entry');
+      if (!mayAmendTraining(actor, { kind: 'entry', traineeId: entry.traineeId })) throw new Forbidden('Only the trainee who wrote it or a trainer amends a training entry');
     } else {
-      if (!reviewer) throw new Forbidden('Only a trainer amends a sign-off');
+      if (!mayAmendTraining(actor, { kind: 'decision' })) throw new Forbidden('Only a trainer amends a sign-off');
       if (!(await TrainingDecision.findByPk(input.targetId))) throw new NotFound('That decision');
     }
     return unitOfWork(sequelize, async (transaction) => {

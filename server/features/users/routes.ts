@@ -1,13 +1,13 @@
 import { Router } from 'express';
 import { createUserSchema, updateUserSchema, userVersionSchema } from '../../../shared/schemas/auth';
-import { adminOnly } from '../../lib/auth';
+import { allow } from '../../lib/auth';
 import { parseId, parseInput } from '../../lib/validate';
 import { listUsers, type UserService } from './service';
 
 /** People management: administrators only. */
 export function adminUserRoutes(users: UserService): Router {
   const router = Router();
-  router.use(adminOnly);
+  router.use(allow('people.manage'));
 
   router.get('/', async (_req, res) => {
     res.json({ users: await listUsers() });

@@ -1,11 +1,12 @@
 import type { Sequelize } from 'sequelize';
-import { UniqueConstraintError } from 'sequelize';
+import { Op, UniqueConstraintError } from 'sequelize';
 import argon2 from 'argon2';
 import type { ChangePasswordInput, CreateUserInput, PublicUser, UpdateUserInput } from '../../../shared/schemas/auth';
 import { recordAudit } from '../../lib/audit';
 import { endSocketsOf, publish } from '../../lib/live';
 import { hashPassword } from '../../lib/auth';
-import { Conflict, Forbidden, NotFound, ValidationError } from '../../lib/errors';
+import { Conflict, Forbidden, NotFound, ValidationError, type FieldErrors } from '../../lib/errors';
+import { passwordProblem } from '../../lib/password-policy';
 import { Crew } from '../plant/model';
 import { SessionRow } from '../session/model';
 import { User } from './model';
@@ -59,6 +60,8 @@ async function assertCrewExists(crewId: number | null | undefined) {
 
 export function makeUserService(sequelize: Sequelize) {
   async function create(actorId: number, input: CreateUserInput): Promise<PublicUser> {
+    const problem = passwordProblem(input.temporaryPassword, input);
+    if (problem) throw new ValidationError({ temporaryPassword: problem });
     await assertCrewExists(input.crewId);
     const passwordHash = await hashPassword(input.temporaryPassword);
     try {
@@ -140,18 +143,29 @@ export function makeUserService(sequelize: Sequelize) {
     );
   }
 
-  async function changeOwnPassword(userId: number, input: ChangePasswordInput) {
+  /**
+   * Changes the person's own password. Whoever knew the old one may be signed in elsewhere: every
+   * other session of theirs ends with the same commit, and its live connections with it; the
+   * session the change was made in (`keepSessionId`) carries on.
+   */
+  async function changeOwnPassword(userId: number, input: ChangePasswordInput, keepSessionId: string) {
     const user = await User.findByPk(userId);
     if (!user) throw new NotFound('Your account');
+    const fields: FieldErrors = {};
     const ok = await argon2.verify(user.passwordHash, input.currentPassword).catch(() => false);
-    if (!ok) throw new ValidationError({ currentPassword: 'This is not your current password' });
+    if (!ok) fields.currentPassword = 'This is not your current password';
+    const problem = passwordProblem(input.newPassword, user);
+    if (problem) fields.newPassword = problem;
+    if (Object.keys(fields).length) throw new ValidationError(fields);
     const passwordHash = await hashPassword(input.newPassword);
     await sequelize.transaction(async (transaction) => {
       await user.update({ passwordHash, mustChangePassword: false, version: user.version + 1 }, { transaction });
+      const ended = await SessionRow.destroy({ where: { userId, sid: { [Op.ne]: keepSessionId } }, transaction });
       await recordAudit(
-        { actorId: userId, action: 'user.password_change', entity: 'user', entityId: userId, after: { mustChangePassword: false } },
+        { actorId: userId, action: 'user.password_change', entity: 'user', entityId: userId, after: { mustChangePassword: false, otherSessionsEnded: ended } },
         transaction,
       );
+      endSocketsOf(transaction, { userId, exceptSessionId: keepSessionId });
       publish(transaction, { entity: 'people', id: userId });
     });
   }

@@ -2,6 +2,7 @@
 import request from 'supertest';
 import type { Sequelize } from 'sequelize';
 import { createApp, type BuiltApp } from '../../../server/app';
+import { defaultSignInLimits, type SignInLimits } from '../../../server/features/session/sign-in-limits';
 import { createSequelize } from '../../../server/db/sequelize';
 import { initModels } from '../../../server/db/models';
 import { hashPassword } from '../../../server/lib/auth';
@@ -26,12 +27,17 @@ export function db(): Sequelize {
 export const SECRET = 'integration-test-secret';
 const opened: BuiltApp[] = [];
 
-export function buildApp(options: { signInRateLimit?: number; smtpUrl?: string } = {}): BuiltApp {
+/**
+ * The app as configured for a test. Every test file signs in from the same address, so its ceiling
+ * of failures is lifted unless a test sets one; the per-account lock-out keeps its shipped settings.
+ */
+export function buildApp(options: { signInLimits?: Partial<SignInLimits>; anonymousTokenLimit?: number; smtpUrl?: string } = {}): BuiltApp {
   const built = createApp(db(), {
     sessionSecret: SECRET,
     production: false,
     behindHttpsProxy: false,
-    signInRateLimit: options.signInRateLimit ?? 10_000,
+    signInLimits: { ...defaultSignInLimits, addressFailures: 10_000, ...options.signInLimits },
+    anonymousTokenLimit: options.anonymousTokenLimit ?? 10_000,
     smtpUrl: options.smtpUrl,
     publicUrl: 'http://127.0.0.1:5180',
   });

@@ -60,7 +60,7 @@ export function CreateUserForm({ crews }: { crews: CrewSummary[] }) {
         label="Temporary password"
         type="text"
         autoComplete="off"
-        hint="At least 12 characters; give it to the person directly."
+        hint="At least 12 characters, hard to guess, not the person’s name or e-mail; give it to the person directly."
         error={errors.temporaryPassword?.message}
         {...form.register('temporaryPassword')}
       />

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { can } from '../../../../shared/policies/permissions';
 import { checkCatalog, checkKeys } from '../../../../shared/calc/check-catalog';
 import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-picker';
 import { CautionNote, Notice } from '../../../components/ui/notice';
@@ -24,7 +25,7 @@ export function FlagsPage() {
   useWatchUnit(unitId);
   const [filters, setFilters] = useState<FlagFilters>({ status: 'open' });
   const flags = useFlags(unitId, filters);
-  const mayLead = me?.role === 'shift_lead' || me?.role === 'admin';
+  const mayLead = Boolean(me && can(me.role, 'flag.manage'));
   const set = (patch: Partial<FlagFilters>) => setFilters((f) => ({ ...f, ...patch }));
   // A station day runs from its midnight to the next (23 or 25 hours on clock-change days).
   const dayStart = (date: string, addDays = 0) => (date && unit ? stationDayStart(date, unit.timeZone, addDays)?.toISOString() : undefined);

@@ -13,6 +13,10 @@ export type LogEntryView = {
   late: boolean;
   author: string;
   authorId: number;
+  /** Written by a trainee. */
+  writtenAsTrainee: boolean;
+  /** Whether the person viewing may amend it (the server's answer: author, or the lead of the crew on that shift). */
+  mayAmend: boolean;
   text: string;
   equipmentId: number | null;
   conditionId: number | null;

@@ -31,7 +31,7 @@ function AmendInline({ entry, onDone }: { entry: LogEntryView; onDone: () => voi
   );
 }
 
-export function EntryList({ entries, settings, mayAmend }: { entries: LogEntryView[]; settings: StationSettings; mayAmend: boolean }) {
+export function EntryList({ entries, settings }: { entries: LogEntryView[]; settings: StationSettings }) {
   const [amending, setAmending] = useState<number | null>(null);
   const label = (list: { key: string; label: string }[], key: string) => list.find((i) => i.key === key)?.label ?? key;
   const local = (iso: string) => formatStationTime(iso, settings.timeZone);
@@ -47,6 +47,11 @@ export function EntryList({ entries, settings, mayAmend }: { entries: LogEntryVi
               <span className="text-muted">
                 {label(settings.positions, e.position)} · {label(settings.categories, e.category)} · {e.author}
               </span>
+              {e.writtenAsTrainee ? (
+                <span className="rounded-full border border-line px-2 text-xs font-bold" data-testid="trainee-entry">
+                  ✎ trainee’s entry
+                </span>
+              ) : null}
               {e.late ? (
                 <span className="rounded-full border-2 border-watch px-2 text-xs font-bold text-watch" title={`Entered ${local(e.enteredAt)}`}>
                   ▲ late entry, written {local(e.enteredAt)}
@@ -65,7 +70,7 @@ export function EntryList({ entries, settings, mayAmend }: { entries: LogEntryVi
                 </p>
               </div>
             ))}
-            {mayAmend && amending !== e.id ? (
+            {e.mayAmend && amending !== e.id ? (
               <button type="button" className="mt-1 text-sm underline" onClick={() => setAmending(e.id)}>
                 Amend
               </button>

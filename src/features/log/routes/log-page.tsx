@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { can } from '../../../../shared/policies/permissions';
 import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-picker';
 import { Notice } from '../../../components/ui/notice';
 import { ZoneNote } from '../../../components/station-time/zone-note';
@@ -23,7 +24,7 @@ export function LogPage() {
   const [filters, setFilters] = useState<LogFilters>({});
   const log = useLog(unitId, filters);
   const review = useSignReview(unitId ?? 0);
-  const mayWrite = me && me.role !== 'trainer';
+  const mayWrite = me && can(me.role, 'log.write');
   const reviewShift = filters.shiftStart ?? shifts.data?.shifts[1]?.start ?? shifts.data?.shifts[0]?.start;
   const reviewPosition = filters.position ?? activePosition;
   const signed = shifts.data?.reviews.find((r) => r.shiftStart === reviewShift && r.position === reviewPosition);
@@ -81,7 +82,7 @@ export function LogPage() {
               />
             </fieldset>
             {log.error ? <Notice kind="error">{log.error.message}</Notice> : null}
-            {log.data ? <EntryList entries={log.data} settings={settings} mayAmend={Boolean(me && me.role !== 'trainer')} /> : null}
+            {log.data ? <EntryList entries={log.data} settings={settings} /> : null}
           </div>
           <div className="flex flex-col gap-4">
             <section aria-label="End-of-shift review" className="rounded-lg border border-line bg-panel p-3 text-sm">
@@ -94,7 +95,7 @@ export function LogPage() {
                 <p className="font-bold text-normal" data-testid="review-signed">
                   ✔ Reviewed by {signed.by}
                 </p>
-              ) : me?.role === 'shift_lead' && reviewShift ? (
+              ) : me && can(me.role, 'log.review') && reviewShift ? (
                 <button
                   type="button"
                   className="mt-1 rounded-md bg-accent px-3 py-1 font-bold text-on-accent"
@@ -107,7 +108,7 @@ export function LogPage() {
               )}
               {review.error ? <p role="alert" className="text-alarm">⚠ {review.error.message}</p> : null}
             </section>
-            <ConditionsPanel unitId={unitId} position={activePosition} mayHandle={Boolean(me && ['operator', 'shift_lead', 'admin'].includes(me.role))} />
+            <ConditionsPanel unitId={unitId} position={activePosition} mayHandle={Boolean(me && can(me.role, 'condition.manage'))} />
           </div>
         </div>
       ) : null}

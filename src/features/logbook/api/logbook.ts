@@ -79,6 +79,7 @@ export type PastShift = {
     enteredAt: string;
     late: boolean;
     author: string;
+    writtenAsTrainee: boolean;
     text: string;
     amendments: { id: number; author: string; amendedAt: string; reason: string; text: string }[];
   }[];

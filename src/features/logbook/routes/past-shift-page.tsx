@@ -1,4 +1,5 @@
 import { useEffect } from 'react';
+import { can } from '../../../../shared/policies/permissions';
 import { Link, useLocation, useParams } from 'react-router';
 import type { CheckKey } from '../../../../shared/calc/check-catalog';
 import type { Status } from '../../../../shared/calc/limits';
@@ -93,7 +94,7 @@ export function PastShiftPage() {
   const shift = usePastShift(unitId, shiftStart);
   const { data: me } = useMe();
   const location = useLocation();
-  const mayComment = me?.role === 'trainer' || me?.role === 'admin';
+  const mayComment = Boolean(me && can(me.role, 'review.comment'));
   // Scroll to the record a search result or comment link points at, once it is on the page.
   useEffect(() => {
     if (shift.data && location.hash) document.getElementById(location.hash.slice(1))?.scrollIntoView({ block: 'center' });
@@ -106,7 +107,7 @@ export function PastShiftPage() {
   const docs = new Map(s.documents.map((d) => [`${d.kind}:${d.refId}`, d.id]));
   const doc = (kind: string, id: number) => docs.get(`${kind}:${id}`);
   const common = { comments: s.comments, mayComment, timeZone: s.shift.timeZone };
-  const isTrainee = me?.role === 'trainee';
+  const isTrainee = Boolean(me && can(me.role, 'training.practice'));
   const practice = isTrainee ? (itemId: number) => <PracticeLink unitId={s.unit.id} shiftStart={s.shift.start} what={{ handoverItemId: itemId }} /> : null;
   return (
     <section className="flex flex-col gap-5">
@@ -137,6 +138,7 @@ export function PastShiftPage() {
           <ReviewedRecord key={e.id} label={`Log entry ${stamp(e.eventAt)}`} documentId={doc('log_entry', e.id)} {...common}>
             <p className="text-sm text-muted">
               {stamp(e.eventAt)} · {e.position.replace(/_/g, ' ')} · {e.category.replace(/_/g, ' ')} · {e.author}
+              {e.writtenAsTrainee ? ' (trainee’s entry)' : ''}
               {e.late ? ` · late entry (written ${stamp(e.enteredAt)})` : ''}
             </p>
             <p className={e.amendments.length ? 'line-through decoration-1' : ''}>{e.text}</p>

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { can } from '../../../../shared/policies/permissions';
 import { useSelectedUnit } from '../../../components/readings/unit-picker';
 import { Notice } from '../../../components/ui/notice';
 import { useStationZone } from '../../../components/station-time/use-station-zone';
@@ -33,7 +34,7 @@ export function OrdersPage() {
   // The list is the first station's (the server's choice when none is named), so its zone applies.
   const zone = useStationZone(null);
   const stamp = (iso: string) => (zone ? formatStationTime(iso, zone.timeZone) : '…');
-  const mayIssue = me?.role === 'shift_lead' || me?.role === 'admin';
+  const mayIssue = Boolean(me && can(me.role, 'order.issue'));
   return (
     <section className="flex flex-col gap-4">
       <h1 className="text-2xl font-bold">Standing orders</h1>

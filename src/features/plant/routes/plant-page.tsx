@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { can } from '../../../../shared/policies/permissions';
 import { formatStationTime } from '../../../../shared/station-time';
 import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-picker';
 import { Notice } from '../../../components/ui/notice';
@@ -73,7 +74,7 @@ export function PlantPage() {
   const { unitId, unit } = useSelectedUnit();
   useWatchUnit(unitId);
   const setup = useUnitSetup(unitId);
-  const editable = me?.role === 'admin';
+  const editable = Boolean(me && can(me.role, 'plant.manage'));
   return (
     <section className="flex flex-col gap-4">
       <div className="flex flex-wrap items-end gap-4">

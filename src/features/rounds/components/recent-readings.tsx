@@ -1,4 +1,5 @@
 import { Link } from 'react-router';
+import { can } from '../../../../shared/policies/permissions';
 import { formatStationTime } from '../../../../shared/station-time';
 import { pressureUnitLabels, type PressureUnit } from '../../../../shared/units';
 import { StatusBadge } from '../../../components/ui/status-badge';
@@ -9,7 +10,7 @@ import { useCountersign, type ReadingSummary } from '../api/readings';
 export function RecentReadings({ readings, timeZone }: { readings: ReadingSummary[]; timeZone: string }) {
   const { data: me } = useMe();
   const countersign = useCountersign();
-  const maySign = me?.role === 'operator' || me?.role === 'shift_lead';
+  const maySign = Boolean(me && can(me.role, 'reading.countersign'));
   if (!readings.length) return <Notice kind="info">No rounds recorded for this unit yet.</Notice>;
   return (
     <div className="overflow-x-auto rounded-lg border border-line bg-panel p-3">

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { can } from '../../../../shared/policies/permissions';
 import { useForm, useWatch } from 'react-hook-form';
 import { Link, useParams } from 'react-router';
 import type { Evaluation } from '../../../../shared/calc/evaluate';
@@ -113,7 +114,7 @@ export function ReadingPage() {
   const detail = reading.data;
   const stamp = (iso: string) => formatStationTime(iso, zone.timeZone);
   const prefs = prefsOf(detail);
-  const mayAmend = me && ['operator', 'shift_lead', 'admin'].includes(me.role);
+  const mayAmend = me && can(me.role, 'reading.amend');
   return (
     <section className="flex flex-col gap-4">
       <Link to={`/rounds?unit=${detail.reading.unitId}`} className="text-accent underline">
@@ -132,7 +133,7 @@ export function ReadingPage() {
         ) : (
           <div className="flex flex-col items-start gap-2">
             <Notice kind="info">Trainee round, awaiting an operator’s countersign.</Notice>
-            {me && ['operator', 'shift_lead'].includes(me.role) && me.id !== detail.reading.recordedById ? (
+            {me && can(me.role, 'reading.countersign') && me.id !== detail.reading.recordedById ? (
               <Button disabled={countersign.isPending} onClick={() => countersign.mutate(detail.reading.id)}>
                 Countersign this round
               </Button>

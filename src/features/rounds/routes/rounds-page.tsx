@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { can } from '../../../../shared/policies/permissions';
 import { useForm, useWatch } from 'react-hook-form';
 import { Link } from 'react-router';
 import { CautionNote, Notice } from '../../../components/ui/notice';
@@ -46,7 +47,7 @@ export function RoundsPage() {
   const [serverErrors, setServerErrors] = useState<FormErrors>({});
   const [saveError, setSaveError] = useState<string | null>(null);
   const [takenAtError, setTakenAtError] = useState<string | undefined>();
-  const mayRecord = me && me.role !== 'trainer';
+  const mayRecord = me && can(me.role, 'reading.record');
 
   const save = () => {
     setSaveError(null);

@@ -38,7 +38,7 @@ export function ChangePasswordPage() {
       ) : null}
       <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4 rounded-lg border border-line bg-panel p-6">
         {errors.root?.message ? <Notice kind="error">{errors.root.message}</Notice> : null}
-        {change.isSuccess ? <Notice kind="success">Your password is changed.</Notice> : null}
+        {change.isSuccess ? <Notice kind="success">Your password is changed. Any other browser signed in as you has been signed out.</Notice> : null}
         <TextField
           label="Current password"
           type="password"
@@ -50,7 +50,7 @@ export function ChangePasswordPage() {
           label="New password"
           type="password"
           autoComplete="new-password"
-          hint="At least 12 characters."
+          hint="At least 12 characters, hard to guess: three or four unrelated words work well. Not a common password, not your name or e-mail. Changing it signs you out everywhere else."
           error={errors.newPassword?.message}
           {...form.register('newPassword')}
         />

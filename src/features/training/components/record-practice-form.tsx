@@ -1,4 +1,6 @@
 import { useForm } from 'react-hook-form';
+import { can } from '../../../../shared/policies/permissions';
+import type { Role } from '../../../../shared/roles';
 import { Link, useSearchParams } from 'react-router';
 import { formatStationTime, stationToday } from '../../../../shared/station-time';
 import { trainingLevelLabels, trainingLevels, type NewTrainingEntry } from '../../../../shared/schemas/training';
@@ -103,7 +105,7 @@ function PracticeForm({ timeZone }: { timeZone: string }) {
       <SelectField label="Supervising operator" hint="Optional: only they (or a shift lead) can then countersign." error={errors.supervisorId?.message} {...form.register('supervisorId')}>
         <option value="">Any operator</option>
         {people.data
-          ?.filter((p) => p.role === 'operator' || p.role === 'shift_lead')
+          ?.filter((p) => can(p.role as Role, 'training.countersign'))
           .map((p) => (
             <option key={p.id} value={p.id}>
               {p.name}

@@ -1,4 +1,6 @@
 import { Link, useParams } from 'react-router';
+import { can } from '../../../../shared/policies/permissions';
+import { mayAmendTraining } from '../../../../shared/policies/training';
 import { Notice } from '../../../components/ui/notice';
 import { ZoneNote } from '../../../components/station-time/zone-note';
 import { useMe } from '../../session/api/get-me';
@@ -26,10 +28,10 @@ export function TraineePage() {
       <p>
         {p.left} {p.left === 1 ? 'task' : 'tasks'} left. Sign-offs are final; a correction is an amendment with a reason.
       </p>
-      <ProgressMatrix progress={p} mayDecide={me?.role === 'trainer'} />
+      <ProgressMatrix progress={p} mayDecide={Boolean(me && can(me.role, 'training.decide'))} />
       <section aria-label="Training entries" className="flex flex-col gap-2">
         <h2 className="text-lg font-bold">Training entries</h2>
-        <EntryList entries={p.entries} mayAmend={me?.role === 'trainer' || me?.role === 'admin'} />
+        <EntryList entries={p.entries} mayAmend={Boolean(me && mayAmendTraining(me, { kind: 'entry', traineeId: p.trainee.id }))} />
       </section>
     </section>
   );

@@ -1,4 +1,6 @@
 import { useState } from 'react';
+import { can, type Action } from '../../../../shared/policies/permissions';
+import type { Role } from '../../../../shared/roles';
 import { Notice } from '../../../components/ui/notice';
 import { ZoneNote } from '../../../components/station-time/zone-note';
 import { useMe } from '../../session/api/get-me';
@@ -16,12 +18,15 @@ import { useTrainingZone } from '../lib/use-training-zone';
 type Tab = 'mine' | 'countersign' | 'queue' | 'crews' | 'catalogue';
 const tabLabels: Record<Tab, string> = { mine: 'My qualification record', countersign: 'Countersign', queue: 'Trainer’s queue', crews: 'Crew qualifications', catalogue: 'Catalogue' };
 
-function tabsFor(role: string): Tab[] {
-  if (role === 'trainee') return ['mine', 'catalogue'];
-  if (role === 'operator') return ['countersign', 'crews', 'catalogue'];
-  if (role === 'shift_lead') return ['countersign', 'crews', 'catalogue'];
-  return ['queue', 'crews', 'catalogue']; // trainer, admin
-}
+/** Each tab is there for whoever holds its permission; the catalogue is for everyone. */
+const tabPermission: Record<Tab, Action | null> = {
+  mine: 'training.practice',
+  countersign: 'training.countersign',
+  queue: 'training.review-queue',
+  crews: 'training.crews',
+  catalogue: null,
+};
+const tabsFor = (role: Role): Tab[] => (Object.keys(tabPermission) as Tab[]).filter((tab) => tabPermission[tab] === null || can(role, tabPermission[tab]));
 
 function MyRecord() {
   const progress = useMyProgress(true);
@@ -50,7 +55,7 @@ export function TrainingPage() {
   const zone = useTrainingZone();
   const tab = chosen && tabs.includes(chosen) ? chosen : tabs[0];
   if (!me || !tab) return null;
-  const mayEdit = me.role === 'trainer' || me.role === 'admin';
+  const mayEdit = can(me.role, 'training.catalogue');
   return (
     <section className="flex flex-col gap-4">
       <div>
