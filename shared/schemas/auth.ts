@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './messages';
 import { roles } from '../roles';
 
 // Generous but bounded: a 100 kB "password" is rejected before it reaches the hasher.

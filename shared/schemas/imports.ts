@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './messages';
 import { absolutePressureUnitKeys, flowUnitKeys, pressureUnitKeys, temperatureUnitKeys } from './reading-set';
 
 /** The readings an imported column can feed, with the units each may be in. */

@@ -1,5 +1,6 @@
 // The contract for one round's readings: raw values with the units the operator used.
 import { z } from 'zod';
+import './messages';
 import { absolutePressureUnits, flowUnits, temperatureUnits, vacuumUnits } from '../units';
 
 const keys = <T extends object>(o: T) => Object.keys(o) as [Extract<keyof T, string>, ...Extract<keyof T, string>[]];

@@ -117,10 +117,11 @@ async function agentFor(route: RouteEntry): Promise<() => Promise<Agent>> {
   return async () => agents.shift_lead;
 }
 
-const knownKeys = () => [...new Set(Object.values(samples).flatMap(function keysOf(v: unknown): string[] {
+function keysOf(v: unknown): string[] {
   if (!v || typeof v !== 'object') return [];
-  return Array.isArray(v) ? v.flatMap(keysOf) : Object.entries(v).flatMap(([k, inner]) => [k, ...keysOf(inner)]);
-}))];
+  return Array.isArray(v) ? v.flatMap((x) => keysOf(x)) : Object.entries(v).flatMap(([k, inner]) => [k, ...keysOf(inner)]);
+}
+const knownKeys = () => [...new Set(Object.values(samples).flatMap((v) => keysOf(v)))];
 
 describe('every write route, generated hostile bodies', () => {
   it('has write routes to test', () => {

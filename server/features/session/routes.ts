@@ -40,7 +40,8 @@ export function sessionRoutes(users: UserService, csrf: Csrf, signInLimit: numbe
   });
 
   router.post('/session', signInLimiter, async (req, res) => {
-    parseInput(signInSchema, req.body);
+    // passport reads the body, so it must read the parsed one (the e-mail trimmed of spaces).
+    req.body = parseInput(signInSchema, req.body);
     const user = await authenticate(req, res);
     if (!user) throw new HttpError(401, 'SIGN_IN_FAILED', SIGN_IN_FAILED);
     await logIn(req, user);
