@@ -169,7 +169,8 @@ export const fieldLabels: Record<string, string> = {
 
 const limitBandKeys = new Set(['lowAlarm', 'lowWatch', 'highWatch', 'highAlarm']);
 const capital = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
-const checkLabel = (key: string) => (key in checkCatalog ? checkCatalog[key as CheckKey].label : undefined);
+// Own keys only: a field named `constructor` or `hasOwnProperty` in hostile input is no label.
+const checkLabel = (key: string) => (Object.hasOwn(checkCatalog, key) ? checkCatalog[key as CheckKey].label : undefined);
 
 /**
  * The label a person sees for a field path (`a.b.0.c` or an array of segments); '' for the whole
@@ -180,10 +181,10 @@ export function fieldLabel(path: string | readonly PropertyKey[]): string {
   if (!segments.length) return '';
   const last = segments.at(-1)!;
   const parent = segments.at(-2);
-  const named = (s: string) => fieldLabels[s] ?? checkLabel(s);
+  const named = (s: string) => (Object.hasOwn(fieldLabels, s) ? fieldLabels[s] : checkLabel(s));
   if (last === 'value' && parent) return fieldLabel(segments.slice(0, -1));
   if (last === 'unit' && parent && parent !== 'columns') return `${fieldLabel(segments.slice(0, -1))} unit`;
-  if (limitBandKeys.has(last) && parent && checkLabel(parent)) return `${checkLabel(parent)}, ${fieldLabels[last]}`;
+  if (limitBandKeys.has(last) && parent && checkLabel(parent)) return `${checkLabel(parent)}, ${named(last)}`;
   if (last === 'column' && parent && segments.at(-3) === 'columns') return `Column for ${named(parent) ?? 'this reading'}`;
   return capital(named(last) ?? 'This field');
 }

@@ -131,3 +131,15 @@ describe('shared schema messages', () => {
     });
   });
 });
+
+describe('field labels', () => {
+  it('reads paths from their meaningful end and never returns an internal name', () => {
+    expect(fieldLabel('pressure.value')).toBe('Condenser pressure');
+    expect(fieldLabel('tower.stationPressure.unit')).toBe('Station pressure unit');
+    expect(fieldLabel('limits.ttd.highWatch')).toBe('Terminal temperature difference (TTD), high watch');
+    expect(fieldLabel('design.backpressureCorrection.2.0')).toBe('Backpressure correction curve');
+    expect(fieldLabel('_')).toBe('');
+    // Names that exist on every object are not labels (hostile input uses them as field names).
+    for (const name of ['hasOwnProperty', 'constructor', '__proto__', 'toString', 'someUnknownKey']) expect(fieldLabel(name)).toBe('This field');
+  });
+});
