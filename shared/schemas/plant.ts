@@ -18,7 +18,7 @@ export const unitDesignSchema = z.object({
   surfaceAreaM2: positive('surface area'),
   tubeOdMm: positive('tube OD').max(60),
   tubeGaugeBwg: z.number().int().refine((g) => (tubeGauges as readonly number[]).includes(g), `Gauge must be one of ${tubeGauges.join(', ')} BWG`),
-  tubeMaterial: z.enum(tubeMaterials as [string, ...string[]], { message: `Choose one of: ${tubeMaterials.join(', ')}` }),
+  tubeMaterial: z.enum(tubeMaterials as [string, ...string[]]),
   tubeCount: z.number().int().positive('Enter the tube count'),
   passes: z.number().int().min(1).max(4),
   designCwFlowKgS: positive('design CW flow'),

@@ -11,7 +11,7 @@ const number = z
   .number({ error: (issue) => `${fieldLabel(issue.path ?? [])} ${issue.input === undefined || issue.input === null ? 'is missing' : 'must be a number'}` })
   .finite();
 const quantity = <const U extends [string, ...string[]]>(units: U) =>
-  z.object({ value: number, unit: z.enum(units, { message: `Choose one of: ${units.join(', ')}` }) });
+  z.object({ value: number, unit: z.enum(units) });
 
 export const pressureUnitKeys = [...keys(absolutePressureUnits), ...keys(vacuumUnits)] as [string, ...string[]];
 export const absolutePressureUnitKeys = keys(absolutePressureUnits);
