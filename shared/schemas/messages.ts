@@ -66,6 +66,11 @@ export function plainMessage(issue: Issue): string {
   const own = (issue as { schema?: z.ZodType }).schema;
   const title = own ? z.globalRegistry.get(own)?.title : undefined;
   const label = title ?? (fieldLabel(path) || 'The form');
+  // A box left empty is missing, whatever check it then fails (a format, a minimum, a choice).
+  if (issue.input === '' && issue.code !== 'custom') return `${label} is missing`;
+  // A record picked from a list (crewId, ownerId…) that was not picked arrives as 0.
+  const name = String(path.at(-1) ?? '');
+  if (issue.code === 'too_small' && issue.origin === 'number' && /Id$/.test(name)) return `${label}: choose one`;
   switch (issue.code) {
     case 'invalid_type':
       return typeMessage(label, issue.expected, issue.input);

@@ -125,6 +125,7 @@ describe('shared schema messages', () => {
     });
     expect(messages(handovers.questionSchema, {})).toEqual({ question: 'Question is missing' });
     expect(messages(log.newLogEntrySchema, { position: 'control_room', category: 'operation' })).toEqual({ text: 'Entry text is missing' });
+    expect(messages(handovers.crewSwapSchema, { shiftStart: '', crewId: 0, reason: 'Training day' })).toEqual({ shiftStart: 'Shift starting is missing', crewId: 'Crew: choose one' });
     expect(messages(handovers.crewRotationSchema, { anchorShiftStart: 'tomorrow', crewIds: [] })).toEqual({
       anchorShiftStart: 'First shift of the rotation must be a date and time',
       crewIds: 'Crews: choose at least one',
