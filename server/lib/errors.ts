@@ -94,6 +94,12 @@ export const errorMiddleware: ErrorRequestHandler = (error, _req, res, _next) =>
     res.status(403).json({ error: { code: 'CSRF', message: 'The form expired; reload the page and try again' } });
     return;
   }
+  // Any other refusal of the request as sent (an unknown character set or content encoding, a
+  // body cut off in transit): the client's fault, said as such, never a server failure.
+  if (typeof parserError.status === 'number' && parserError.status >= 400 && parserError.status < 500) {
+    res.status(parserError.status).json({ error: { code: 'BAD_REQUEST', message: 'The request could not be read as sent; reload the page and try again' } });
+    return;
+  }
   console.error(error);
   res.status(500).json({ error: { code: 'INTERNAL', message: 'Something went wrong on the server; nothing was saved' } });
 };
