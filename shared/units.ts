@@ -63,17 +63,17 @@ export function pressureReadingToPa(
   requireFinite(field, value);
   if (!isVacuumUnit(unit)) {
     const pa = absolutePressureToPa(value, unit, field);
-    if (pa <= 0) throw new CalcInputError(field, `absolute pressure must be above zero (got ${value} ${pressureUnitLabels[unit]})`);
+    if (pa <= 0) throw new CalcInputError(field, `must be above zero absolute (got ${value} ${pressureUnitLabels[unit]})`);
     return { pa, assumedStandardBarometer: false };
   }
-  if (value < 0) throw new CalcInputError(field, `a vacuum reading cannot be negative (got ${value} ${pressureUnitLabels[unit]})`);
+  if (value < 0) throw new CalcInputError(field, `cannot be a negative vacuum (got ${value} ${pressureUnitLabels[unit]})`);
   const barometerPa = barometer
     ? absolutePressureToPa(barometer.value, barometer.unit, 'barometer')
     : STANDARD_ATMOSPHERE_PA;
   if (barometer && barometerPa <= 0) throw new CalcInputError('barometer', 'must be above zero');
   const vacuumPa = value * absolutePressureUnits[vacuumUnits[unit].absolute].pa;
   if (vacuumPa >= barometerPa) {
-    throw new CalcInputError(field, `vacuum (${value} ${pressureUnitLabels[unit]}) cannot equal or exceed the barometer`);
+    throw new CalcInputError(field, `cannot be a vacuum equal to or beyond the barometer (got ${value} ${pressureUnitLabels[unit]})`);
   }
   return { pa: barometerPa - vacuumPa, assumedStandardBarometer: !barometer };
 }

@@ -7,7 +7,7 @@ export function convertReadingSet(input: Parameters<typeof readingSetToSi>[0]) {
   try {
     return readingSetToSi(input);
   } catch (error) {
-    if (error instanceof CalcInputError) throw new ValidationError({ [error.field]: error.detail });
+    if (error instanceof CalcInputError) throw new ValidationError({ [error.field]: error.sentence });
     throw error;
   }
 }

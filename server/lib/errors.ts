@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler } from 'express';
 import { UniqueConstraintError } from 'sequelize';
 import { ZodError } from 'zod';
+import { fieldLabel } from '../../shared/schemas/field-labels';
 
 export type FieldErrors = Record<string, string>;
 
@@ -15,9 +16,16 @@ export class HttpError extends Error {
   }
 }
 export class ValidationError extends HttpError {
-  constructor(fields: FieldErrors, message = 'Some fields need attention') {
+  constructor(fields: FieldErrors, message = summaryOf(fields)) {
     super(400, 'VALIDATION', message, fields);
   }
+}
+
+/** One line for the top of a form: the fields to look at, by the labels a person sees. */
+export function summaryOf(fields: FieldErrors): string {
+  const labels = [...new Set(Object.keys(fields).map(fieldLabel).filter(Boolean))];
+  if (!labels.length) return fields._ ?? 'Some fields need attention';
+  return `Some fields need attention: ${labels.join(', ')}`;
 }
 export class Unauthorized extends HttpError {
   constructor(message = 'Sign in to continue') {
@@ -54,7 +62,8 @@ type BodyParserError = Error & { type?: string; status?: number };
 
 export const errorMiddleware: ErrorRequestHandler = (error, _req, res, _next) => {
   if (error instanceof ZodError) {
-    res.status(400).json({ error: { code: 'VALIDATION', message: 'Some fields need attention', fields: fieldErrorsFromZod(error) } });
+    const fields = fieldErrorsFromZod(error);
+    res.status(400).json({ error: { code: 'VALIDATION', message: summaryOf(fields), fields } });
     return;
   }
   if (error instanceof HttpError) {
@@ -67,13 +76,9 @@ export const errorMiddleware: ErrorRequestHandler = (error, _req, res, _next) =>
     res.status(409).json({ error: { code: 'DUPLICATE', message: 'This was saved already (by someone else, or by an earlier click); reload to see it' } });
     return;
   }
-  if ((error as Error).name === 'MulterError') {
-    const code = (error as { code?: string }).code;
-    if (code === 'LIMIT_FILE_SIZE') {
-      res.status(413).json({ error: { code: 'TOO_LARGE', message: 'The file is larger than 10 MB; split it and import the parts', fields: { file: 'Larger than 10 MB' } } });
-    } else {
-      res.status(400).json({ error: { code: 'VALIDATION', message: 'The upload was not understood', fields: { file: (error as Error).message } } });
-    }
+  // A path whose %-encoding is broken (the router cannot decode its ids).
+  if (error instanceof URIError) {
+    res.status(400).json({ error: { code: 'BAD_ADDRESS', message: 'This address is damaged (a broken %-code); go back and follow the link again' } });
     return;
   }
   const parserError = error as BodyParserError;
@@ -87,6 +92,12 @@ export const errorMiddleware: ErrorRequestHandler = (error, _req, res, _next) =>
   }
   if ((error as { code?: string }).code === 'EBADCSRFTOKEN' || parserError.status === 403) {
     res.status(403).json({ error: { code: 'CSRF', message: 'The form expired; reload the page and try again' } });
+    return;
+  }
+  // Any other refusal of the request as sent (an unknown character set or content encoding, a
+  // body cut off in transit): the client's fault, said as such, never a server failure.
+  if (typeof parserError.status === 'number' && parserError.status >= 400 && parserError.status < 500) {
+    res.status(parserError.status).json({ error: { code: 'BAD_REQUEST', message: 'The request could not be read as sent; reload the page and try again' } });
     return;
   }
   console.error(error);

@@ -110,7 +110,7 @@ export function evaluateReadingSet(reading: ReadingSetSi, design: CondenserDesig
     } catch (error) {
       values[key] = null;
       if (error instanceof Missing) reasons[key] = error.message;
-      else if (error instanceof CalcInputError) reasons[key] = `${error.field}: ${error.detail}`;
+      else if (error instanceof CalcInputError) reasons[key] = error.sentence;
       else throw error;
       return null;
     }

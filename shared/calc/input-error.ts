@@ -1,3 +1,5 @@
+import { fieldLabel } from '../schemas/field-labels';
+
 /** Thrown for physically impossible or non-numeric input; names the field so a form can show it. */
 export class CalcInputError extends Error {
   constructor(
@@ -6,6 +8,14 @@ export class CalcInputError extends Error {
   ) {
     super(`${field}: ${detail}`);
     this.name = 'CalcInputError';
+  }
+
+  /** What a person reads: the field by its label, then the detail ("Hotwell temperature is below absolute zero (…)"). */
+  get sentence(): string {
+    const label = fieldLabel(this.field);
+    // Fields named in words already ("CW flow", "tube gauge") are their own label.
+    const words = label === 'This field' ? this.field.charAt(0).toUpperCase() + this.field.slice(1) : label;
+    return `${words} ${this.detail}`;
   }
 }
 

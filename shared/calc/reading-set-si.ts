@@ -27,7 +27,7 @@ export function readingSetToSi(input: ReadingSetInput): ReadingSetSi {
   );
   const cwInletK = toK(input.cwInletTemperature, 'cwInletTemperature.value')!;
   if (cwInletK < 273.15 || cwInletK > 373.15) {
-    throw new CalcInputError('cwInletTemperature.value', 'cooling water must be liquid (0–100 °C)');
+    throw new CalcInputError('cwInletTemperature.value', 'must be between 0 and 100 °C (cooling water is liquid)');
   }
   // Volume flows of CW become mass flows at the inlet water's density.
   const density = waterDensity(cwInletK, 'cwInletTemperature.value');

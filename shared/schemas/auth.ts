@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './messages';
 import { roles } from '../roles';
 
 // Generous but bounded: a 100 kB "password" is rejected before it reaches the hasher.
@@ -26,7 +27,7 @@ export const changePasswordSchema = z
   });
 export type ChangePasswordInput = z.infer<typeof changePasswordSchema>;
 
-export const roleSchema = z.enum(roles, { message: `Choose one of: ${roles.join(', ')}` });
+export const roleSchema = z.enum(roles);
 
 export const createUserSchema = z.object({
   name: z.string().trim().min(2, 'Enter the full name').max(120),

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './messages';
 import { checkKeySchema } from './readings';
 
 const text = (what: string) => z.string().trim().min(3, `Write the ${what} (at least 3 characters)`).max(2000);

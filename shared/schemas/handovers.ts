@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './messages';
 
 export const handoverItemKinds = ['equipment', 'abnormal_reading', 'condition', 'log_entry', 'standing_order', 'work_in_progress', 'chemistry', 'follow_up'] as const;
 
@@ -36,7 +37,7 @@ export const editHandoverItemSchema = z.object({
 export const handoverAmendmentSchema = z.object({
   itemId: z.number().int().positive().nullable().optional(),
   reason: z.string().trim().min(5, 'Say why (at least 5 characters)').max(1000),
-  text: z.string().trim().min(1, 'Write the amendment').max(4000),
+  text: z.string().trim().min(1, 'Write the amendment').max(4000).meta({ title: 'Amendment' }),
   clientKey: clientKeySchema,
 });
 

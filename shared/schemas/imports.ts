@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './messages';
 import { absolutePressureUnitKeys, flowUnitKeys, pressureUnitKeys, temperatureUnitKeys } from './reading-set';
 
 /** The readings an imported column can feed, with the units each may be in. */
@@ -34,7 +35,7 @@ export const importMappingSchema = z
     for (const [field, spec] of Object.entries(mapping.columns)) {
       const allowed = importFields[field as ImportField].units as readonly string[];
       if (spec && !allowed.includes(spec.unit)) {
-        ctx.addIssue({ code: 'custom', path: ['columns', field, 'unit'], message: `Unit must be one of ${allowed.join(', ')}` });
+        ctx.addIssue({ code: 'custom', path: ['columns', field, 'unit'], message: `${importFields[field as ImportField].label}: choose one of the units offered for it` });
       }
     }
   });

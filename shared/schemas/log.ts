@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './messages';
 import { isValidTimeZone } from '../station-time';
 
 const key = z.string().regex(/^[a-z][a-z0-9_]{1,39}$/, 'Lower-case letters, digits and _');
@@ -48,12 +49,12 @@ export const stationSettingsSchema = z
 export type StationSettings = z.infer<typeof stationSettingsSchema>;
 
 const text = z.string().trim().min(1, 'Write the entry').max(4000, 'At most 4 000 characters');
-const isoTime = z.iso.datetime({ offset: true, message: 'Give the time as an ISO 8601 date-time' });
+const isoTime = z.iso.datetime({ offset: true });
 
 export const newLogEntrySchema = z.object({
   position: key,
   category: key,
-  text,
+  text: text.meta({ title: 'Entry text' }),
   eventAt: isoTime.optional(),
   equipmentId: z.number().int().positive().nullable().optional(),
   readingSetId: z.number().int().positive().nullable().optional(),
@@ -64,7 +65,7 @@ export type NewLogEntry = z.infer<typeof newLogEntrySchema>;
 
 export const amendLogEntrySchema = z.object({
   reason: z.string().trim().min(5, 'Say why (at least 5 characters)').max(1000),
-  text,
+  text: text.meta({ title: 'Corrected text' }),
 });
 
 export const logQuerySchema = z.object({
@@ -106,7 +107,7 @@ export const newConditionSchema = z
   .refine((c) => c.limitHours !== undefined || c.limitAt !== undefined, { path: ['limitHours'], message: 'Give the time allowed or the deadline' });
 
 export const closeConditionSchema = z.object({
-  text: z.string().trim().min(3, 'Write the closing entry').max(4000),
+  text: z.string().trim().min(3, 'Write the closing entry').max(4000).meta({ title: 'Closing entry' }),
   position: key,
   version: z.number().int().nonnegative(),
 });

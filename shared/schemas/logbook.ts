@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './messages';
 
 export const documentKindLabels = {
   log_entry: 'Log entry',

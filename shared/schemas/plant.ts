@@ -1,5 +1,7 @@
 // Plant setup contracts: a unit's design data and its limit set, both in SI.
 import { z } from 'zod';
+import './messages';
+import { fieldLabel } from './field-labels';
 import { checkKeys, type CheckKey } from '../calc/check-catalog';
 import { tubeGauges, tubeMaterials } from '../calc/hei';
 
@@ -16,7 +18,7 @@ export const unitDesignSchema = z.object({
   surfaceAreaM2: positive('surface area'),
   tubeOdMm: positive('tube OD').max(60),
   tubeGaugeBwg: z.number().int().refine((g) => (tubeGauges as readonly number[]).includes(g), `Gauge must be one of ${tubeGauges.join(', ')} BWG`),
-  tubeMaterial: z.enum(tubeMaterials as [string, ...string[]], { message: `Choose one of: ${tubeMaterials.join(', ')}` }),
+  tubeMaterial: z.enum(tubeMaterials as [string, ...string[]]),
   tubeCount: z.number().int().positive('Enter the tube count'),
   passes: z.number().int().min(1).max(4),
   designCwFlowKgS: positive('design CW flow'),
@@ -34,7 +36,12 @@ export const unitDesignSchema = z.object({
 });
 export type UnitDesign = z.infer<typeof unitDesignSchema> & { tubeMaterial: import('../calc/hei').TubeMaterial };
 
-const limit = z.number().finite().nullable().optional();
+// A limit is a number or absent. null is refused: it is what a box holding "1O" became in JSON, and
+// taking it as "no limit" silently deleted that limit.
+const limit = z
+  .number({ error: (issue) => `${fieldLabel(issue.path ?? [])} must be a number; leave the box empty for no limit` })
+  .finite()
+  .optional();
 export const limitBandSchema = z
   .object({ lowAlarm: limit, lowWatch: limit, highWatch: limit, highAlarm: limit })
   .refine((b) => b.lowAlarm == null || b.lowWatch == null || b.lowAlarm <= b.lowWatch, { message: 'Low alarm must be at or below low watch', path: ['lowAlarm'] })

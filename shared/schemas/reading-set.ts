@@ -1,12 +1,17 @@
 // The contract for one round's readings: raw values with the units the operator used.
 import { z } from 'zod';
+import './messages';
+import { fieldLabel } from './field-labels';
 import { absolutePressureUnits, flowUnits, temperatureUnits, vacuumUnits } from '../units';
 
 const keys = <T extends object>(o: T) => Object.keys(o) as [Extract<keyof T, string>, ...Extract<keyof T, string>[]];
 
-const number = z.number({ message: 'Enter a number' }).finite('Enter a finite number');
+// One number schema for every reading, so its message names the reading from where it sits.
+const number = z
+  .number({ error: (issue) => `${fieldLabel(issue.path ?? [])} ${issue.input === undefined || issue.input === null ? 'is missing' : 'must be a number'}` })
+  .finite();
 const quantity = <const U extends [string, ...string[]]>(units: U) =>
-  z.object({ value: number, unit: z.enum(units, { message: `Choose one of: ${units.join(', ')}` }) });
+  z.object({ value: number, unit: z.enum(units) });
 
 export const pressureUnitKeys = [...keys(absolutePressureUnits), ...keys(vacuumUnits)] as [string, ...string[]];
 export const absolutePressureUnitKeys = keys(absolutePressureUnits);

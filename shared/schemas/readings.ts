@@ -1,10 +1,11 @@
 import { z } from 'zod';
+import './messages';
 import { checkKeys, type CheckKey } from '../calc/check-catalog';
 import { readingSetInputSchema } from './reading-set';
 
 /** A round as recorded: the readings plus when they were taken (defaults to now on the server). */
 export const recordReadingSchema = readingSetInputSchema.omit({ unitId: true }).extend({
-  takenAt: z.iso.datetime({ offset: true, message: 'Give the time as an ISO 8601 date-time' }).optional(),
+  takenAt: z.iso.datetime({ offset: true }).optional(),
 });
 export type RecordReadingInput = z.infer<typeof recordReadingSchema>;
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './messages';
 
 export const trainingLevels = ['observed', 'supervised', 'alone'] as const;
 export type TrainingLevel = (typeof trainingLevels)[number];
@@ -37,7 +38,7 @@ export const taskChangeSchema = qualificationTaskSchema.extend({
 export const retireTaskSchema = z.object({ changeNote: z.string().trim().min(3, 'Say why the task is retired').max(500) });
 
 const isoDate = z.iso.date({ message: 'Give the date as YYYY-MM-DD' });
-const isoTime = z.iso.datetime({ offset: true, message: 'Give the time as an ISO 8601 date-time' });
+const isoTime = z.iso.datetime({ offset: true });
 
 export const newTrainingEntrySchema = z.object({
   taskKey: z.string().trim().min(1, 'Choose a task'),
@@ -65,7 +66,7 @@ export const trainingAmendmentSchema = z.object({
   target: z.enum(['entry', 'decision']),
   targetId: z.number().int().positive(),
   reason: z.string().trim().min(5, 'Say why (at least 5 characters)').max(1000),
-  text: z.string().trim().min(1, 'Write the correction').max(2000),
+  text: z.string().trim().min(1, 'Write the correction').max(2000).meta({ title: 'Correction' }),
 });
 
 /** Where a task stands for one trainee. */

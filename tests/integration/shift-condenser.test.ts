@@ -48,7 +48,7 @@ describe('GET /api/units/:unitId/shift-condenser', () => {
     for (const [shiftStart, message] of [
       ['2025-11-03T05:17:00Z', /not the start of a shift/],
       ['2025-11-03T06:00:00Z', /not the start of a shift/], // 07:00 in Berlin (CET, UTC+1)
-      ['yesterday', /ISO 8601/],
+      ['yesterday', /Shift starting must be a date and time/],
       ['2099-01-01T05:00:00Z', /not started yet/],
     ] as const) {
       const res = await agents.trainer.get(`/api/units/${unitId}/shift-condenser`).query({ shiftStart });

@@ -1,16 +1,16 @@
 import { Router } from 'express';
-import multer from 'multer';
 import { attachmentReasonSchema } from '../../../shared/schemas/handovers';
 import { allow, signedIn } from '../../lib/auth';
+import { singleFileUpload } from '../../lib/upload';
 import { parseId, parseInput } from '../../lib/validate';
 import { MAX_ATTACHMENT_BYTES, type AttachmentService } from './attachment-service';
 
-const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: MAX_ATTACHMENT_BYTES, files: 1, fields: 5 } });
+const upload = singleFileUpload({ fileSize: MAX_ATTACHMENT_BYTES }, 'The file is larger than 10 MB');
 
 export function attachmentRoutes(attachments: AttachmentService): Router {
   const router = Router();
 
-  router.post('/handover-items/:id/attachments', allow('handover.attach'), upload.single('file'), async (req, res) => {
+  router.post('/handover-items/:id/attachments', allow('handover.attach'), upload, async (req, res) => {
     const { reason } = parseInput(attachmentReasonSchema, { reason: typeof req.body?.reason === 'string' && req.body.reason.trim() ? req.body.reason : undefined });
     const attachment = await attachments.add(req.user!, parseId(req.params.id), req.file, reason);
     res.status(201).json({ id: attachment.id, mime: attachment.mime, fileName: attachment.fileName, amendmentId: attachment.amendmentId });

@@ -1,17 +1,17 @@
 import { Router, type RequestHandler } from 'express';
-import multer from 'multer';
 import { importMappingSchema } from '../../../shared/schemas/imports';
 import { allow } from '../../lib/auth';
 import { ValidationError } from '../../lib/errors';
+import { singleFileUpload } from '../../lib/upload';
 import { parseId, parseInput } from '../../lib/validate';
 import { requireUnit } from '../plant/versions';
 import { MAX_IMPORT_BYTES, parseCsv } from './parse-csv';
 import { analyseImport, rememberedMappings, type ImportService } from './service';
 
-const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: MAX_IMPORT_BYTES, files: 1, fields: 5, fieldSize: 64 * 1024 } });
+const upload = singleFileUpload({ fileSize: MAX_IMPORT_BYTES, fieldSize: 64 * 1024 }, 'The file is larger than 10 MB; split it and import the parts');
 const mayImport = allow('import.run');
 // Authorize before reading a byte of the upload.
-const withFile: RequestHandler[] = [mayImport, upload.single('file')];
+const withFile: RequestHandler[] = [mayImport, upload];
 
 function fileOf(req: Express.Request): Buffer {
   if (!req.file) throw new ValidationError({ file: 'Choose a CSV file' });

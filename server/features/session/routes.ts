@@ -54,7 +54,9 @@ export function sessionRoutes({ users, csrf, signInLimits, anonymousTokenLimit, 
   });
 
   router.post('/session', async (req, res) => {
+    // passport reads the body, so it must read the parsed one (the e-mail trimmed of spaces).
     const input = parseInput(signInSchema, req.body);
+    req.body = input;
     const attempt = await signInLimits.begin(input.email, addressOf(req));
     if (isRefusal(attempt)) {
       res.setHeader('Retry-After', String(attempt.retryAfterSeconds));

@@ -28,7 +28,7 @@ export function useLiveEvaluation(unitId: number | null, values: ReadingFormValu
     } catch (error) {
       if (error instanceof CalcInputError) {
         const field = fieldForPath[error.field];
-        return { input: null, evaluation: null, errors: (field ? { [field]: error.detail } : {}) as FormErrors };
+        return { input: null, evaluation: null, errors: (field ? { [field]: error.sentence } : {}) as FormErrors };
       }
       throw error;
     }

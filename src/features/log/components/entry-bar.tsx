@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import type { StationSettings } from '../../../../shared/schemas/log';
 import { ApiError } from '../../../lib/api-client';
+import { FormErrorSummary } from '../../../components/ui/form-error-summary';
 import { StationTimeInput, readStationTime, useStationTimeField } from '../../../components/station-time/station-time-input';
 import { useAddEntry, useEquipment } from '../api/log';
 
@@ -15,11 +16,15 @@ export function EntryBar({ unitId, settings, position }: { unitId: number; setti
   const eventAt = useStationTimeField();
   const [equipmentId, setEquipmentId] = useState('');
   const [carry, setCarry] = useState(false);
+  // An empty entry is said so beside the box, not silently ignored.
+  const [missing, setMissing] = useState(false);
   const fields = add.error instanceof ApiError ? add.error.fields : {};
+  const textError = missing ? 'Entry text is missing: write what happened' : fields.text;
   const tag = equipment.data?.find((e) => String(e.id) === equipmentId)?.tag;
 
   const submit = () => {
     const typed = readStationTime(eventAt, settings.timeZone);
+    setMissing(!text.trim());
     if (!text.trim() || !typed.ok) return;
     add.mutate(
       {
@@ -52,16 +57,26 @@ export function EntryBar({ unitId, settings, position }: { unitId: number; setti
       <div className="flex flex-wrap gap-2">
         <input
           aria-label="Entry text"
-          className={`${field} min-w-0 flex-1 text-lg`}
+          aria-invalid={Boolean(textError)}
+          aria-describedby={textError ? 'entry-text-error' : undefined}
+          className={`${field} min-w-0 flex-1 text-lg aria-[invalid=true]:border-alarm`}
           placeholder="What happened? Enter saves."
           value={text}
-          onChange={(e) => setText(e.target.value)}
+          onChange={(e) => {
+            setText(e.target.value);
+            if (e.target.value.trim()) setMissing(false);
+          }}
           maxLength={4000}
         />
         <button type="submit" className="rounded-md bg-accent px-4 py-1 font-bold text-on-accent" disabled={add.isPending}>
           Log it
         </button>
       </div>
+      {textError ? (
+        <p id="entry-text-error" role="alert" className="text-sm font-bold text-alarm">
+          ⚠ {textError}
+        </p>
+      ) : null}
       <div className="flex flex-wrap items-start gap-2 text-sm">
         <label className="flex flex-col">
           Category
@@ -104,11 +119,7 @@ export function EntryBar({ unitId, settings, position }: { unitId: number; setti
           </button>
         ))}
       </div>
-      {add.error ? (
-        <p role="alert" className="font-bold text-alarm">
-          ⚠ {Object.keys(fields).length ? Object.entries(fields).map(([k, v]) => `${k}: ${v}`).join('; ') : add.error.message}
-        </p>
-      ) : null}
+      <FormErrorSummary error={add.error} placed={['text', 'eventAt']} />
       {add.data?.late ? <p className="text-sm font-bold text-watch">▲ Saved as a late entry (made well after the event).</p> : null}
     </form>
   );

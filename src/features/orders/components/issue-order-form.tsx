@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { RichTextEditor } from '../../../components/ui/rich-text-editor';
 import { Notice } from '../../../components/ui/notice';
+import { FormErrorSummary } from '../../../components/ui/form-error-summary';
 import { ApiError } from '../../../lib/api-client';
 import { useCrews } from '../../../components/plant/crews';
 import { StationTimeInput, readStationTime, useStationTimeField } from '../../../components/station-time/station-time-input';
@@ -53,13 +54,15 @@ export function IssueOrderForm({ positions, timeZone }: { positions: { key: stri
       }}
     >
       <h2 className="font-bold">Issue a standing order</h2>
-      {issue.error ? <Notice kind="error">{Object.keys(fields).length ? Object.entries(fields).map(([k, v]) => `${k}: ${v}`).join('; ') : issue.error.message}</Notice> : null}
+      <FormErrorSummary error={issue.error} placed={['title', 'bodyHtml', 'effectiveFrom', 'effectiveTo']} />
       {issue.isSuccess ? <Notice kind="success">Issued. Everyone in scope is asked to acknowledge it at their next sign-in.</Notice> : null}
       <label className="flex flex-col text-sm">
         Title
-        <input className={field} value={title} onChange={(e) => setTitle(e.target.value)} />
+        <input className={field} value={title} onChange={(e) => setTitle(e.target.value)} aria-invalid={Boolean(fields.title)} />
+        {fields.title ? <span role="alert" className="font-bold text-alarm">⚠ {fields.title}</span> : null}
       </label>
       <RichTextEditor label="Order text" onChange={setBody} />
+      {fields.bodyHtml ? <span role="alert" className="text-sm font-bold text-alarm">⚠ {fields.bodyHtml}</span> : null}
       <div className="flex flex-wrap gap-3 text-sm">
         <StationTimeInput label="In force from (empty = now)" field={from} timeZone={timeZone} error={fields.effectiveFrom} />
         <StationTimeInput label="Until (empty = until withdrawn)" field={to} timeZone={timeZone} error={fields.effectiveTo} />

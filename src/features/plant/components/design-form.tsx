@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import { tubeGauges, tubeMaterials } from '../../../../shared/calc/hei';
+import { parseTypedNumber, roundForEntry } from '../../../../shared/entry-units';
 import type { UnitDesign } from '../../../../shared/schemas/plant';
 import { Notice } from '../../../components/ui/notice';
 import { ApiError } from '../../../lib/api-client';
@@ -7,8 +8,9 @@ import { useChangeSetup } from '../api/setup';
 import { SaveVersion } from './save-version';
 
 // Each box: its label, unit, and the conversion between what is typed and SI.
-type Spec = { key: keyof UnitDesign; label: string; unit: string; toSi?: (v: number) => number; fromSi?: (v: number) => number; optional?: boolean };
-const C = { toSi: (v: number) => v + 273.15, fromSi: (v: number) => v - 273.15 };
+// `offset`: the conversion adds it, so the round trip's float noise is relative to it (see roundForEntry).
+type Spec = { key: keyof UnitDesign; label: string; unit: string; toSi?: (v: number) => number; fromSi?: (v: number) => number; offset?: number; optional?: boolean };
+const C = { toSi: (v: number) => v + 273.15, fromSi: (v: number) => v - 273.15, offset: 273.15 };
 const kPa = { toSi: (v: number) => v * 1000, fromSi: (v: number) => v / 1000 };
 const MW = { toSi: (v: number) => v * 1e6, fromSi: (v: number) => v / 1e6 };
 const specs: Spec[] = [
@@ -32,34 +34,42 @@ const toText = (design: UnitDesign) =>
   Object.fromEntries(
     specs.map((s) => {
       const v = design[s.key] as number | null | undefined;
-      return [s.key, v == null ? '' : String(Number((s.fromSi ? s.fromSi(v) : v).toFixed(6)))];
+      return [s.key, v == null ? '' : String(roundForEntry(s.fromSi ? s.fromSi(v) : v, s.offset))];
     }),
   ) as Record<string, string>;
 
 export function DesignForm({ unitId, design, editable }: { unitId: number; design: UnitDesign; editable: boolean }) {
   const change = useChangeSetup(unitId);
   const [text, setText] = useState(() => toText(design));
-  const [curve, setCurve] = useState(() => design.backpressureCorrection.map(([p, mw]) => [String(p / 1000), String(mw)]));
+  const [curve, setCurve] = useState(() => design.backpressureCorrection.map(([p, mw]) => [String(roundForEntry(p / 1000)), String(roundForEntry(mw))]));
   const [material, setMaterial] = useState<string>(design.tubeMaterial);
   const [gauge, setGauge] = useState(design.tubeGaugeBwg);
   const [currency, setCurrency] = useState(design.currency ?? '');
   const [note, setNote] = useState('');
-  const fields = change.error instanceof ApiError ? change.error.fields : {};
+  // Boxes that do not hold a number, found before anything is sent; the server's messages otherwise.
+  const [typingErrors, setTypingErrors] = useState<Record<string, string>>({});
+  const fields = { ...(change.error instanceof ApiError ? change.error.fields : {}), ...typingErrors };
 
   const save = () => {
     const values: Record<string, unknown> = {};
+    const errors: Record<string, string> = {};
     for (const s of specs) {
-      const raw = text[s.key]?.trim() ?? '';
-      const n = raw === '' ? null : Number(raw);
-      values[s.key] = n === null ? (s.optional ? null : Number.NaN) : s.toSi ? s.toSi(n) : n;
+      const typed = parseTypedNumber(text[s.key] ?? '');
+      if (typed.empty) {
+        if (s.optional) values[s.key] = null;
+        else errors[`design.${s.key}`] = `${s.label} is missing`;
+      } else if ('error' in typed) errors[`design.${s.key}`] = typed.error;
+      else values[s.key] = s.toSi ? s.toSi(typed.value) : typed.value;
     }
-    const design = {
-      ...values,
-      tubeMaterial: material,
-      tubeGaugeBwg: gauge,
-      currency: currency || null,
-      backpressureCorrection: curve.map(([p, mw]) => [Number(p) * 1000, Number(mw)] as [number, number]),
-    } as unknown as UnitDesign;
+    const points: [number, number][] = [];
+    curve.forEach(([p, mw], i) => {
+      const [bp, loss] = [parseTypedNumber(p ?? ''), parseTypedNumber(mw ?? '')];
+      if ('value' in bp && 'value' in loss) points.push([bp.value * 1000, loss.value]);
+      else errors['design.backpressureCorrection'] ??= `Curve row ${i + 1}: give the backpressure and the MW as numbers`;
+    });
+    setTypingErrors(errors);
+    if (Object.keys(errors).length) return;
+    const design = { ...values, tubeMaterial: material, tubeGaugeBwg: gauge, currency: currency || null, backpressureCorrection: points } as unknown as UnitDesign;
     change.mutate({ kind: 'design', design, note }, { onSuccess: () => setNote('') });
   };
 
@@ -73,7 +83,11 @@ export function DesignForm({ unitId, design, editable }: { unitId: number; desig
       }}
     >
       <h2 className="font-bold">Design data</h2>
-      {change.error ? <Notice kind="error">{change.error.message}</Notice> : null}
+      {Object.keys(typingErrors).length ? (
+        <Notice kind="error">Nothing was saved: the marked boxes need a number.</Notice>
+      ) : change.error ? (
+        <Notice kind="error">{change.error.message}</Notice>
+      ) : null}
       {change.isSuccess ? <Notice kind="success">Saved as a new version; readings from now on are judged by it.</Notice> : null}
       <fieldset disabled={!editable} className="grid gap-3 sm:grid-cols-2">
         {specs.map((s) => (
@@ -81,7 +95,8 @@ export function DesignForm({ unitId, design, editable }: { unitId: number; desig
             {s.label}
             <span className="flex items-center gap-2">
               <input
-                className="reading w-full rounded-md border border-line bg-field px-2 py-1"
+                className="reading w-full rounded-md border border-line bg-field px-2 py-1 aria-[invalid=true]:border-alarm"
+                aria-invalid={Boolean(fields[`design.${s.key}`])}
                 inputMode="decimal"
                 value={text[s.key] ?? ''}
                 onChange={(e) => setText({ ...text, [s.key]: e.target.value })}

@@ -1,43 +1,29 @@
 import { useState } from 'react';
 import { checkCatalog, checkKeys, type CheckKey } from '../../../../shared/calc/check-catalog';
-import type { LimitBand, LimitSet } from '../../../../shared/calc/limits';
+import type { LimitSet } from '../../../../shared/calc/limits';
 import { convertForDisplay, defaultDisplayPreferences } from '../../../../shared/display';
 import { Notice } from '../../../components/ui/notice';
 import { ApiError } from '../../../lib/api-client';
 import { useChangeSetup } from '../api/setup';
+import { bandKeys, bandLabels, limitField, limitSetFromText, limitTextFrom, type LimitText } from '../lib/limit-entry';
 import { SaveVersion } from './save-version';
 
-const bandKeys = ['lowAlarm', 'lowWatch', 'highWatch', 'highAlarm'] as const;
 const prefs = { ...defaultDisplayPreferences, currency: 'money' };
-
-// Display ↔ SI for one parameter: every quantity here is linear, d = k·v + c.
-function scale(key: CheckKey) {
-  const q = checkCatalog[key].quantity;
-  const c = convertForDisplay(0, q, prefs).value;
-  const k = convertForDisplay(1, q, prefs).value - c;
-  return { unit: convertForDisplay(1, q, prefs).unit, toDisplay: (v: number) => Number((k * v + c).toFixed(6)), toSi: (d: number) => (d - c) / k };
-}
+const unitOf = (key: CheckKey) => convertForDisplay(1, checkCatalog[key].quantity, prefs).unit;
 
 export function LimitsForm({ unitId, limits, editable }: { unitId: number; limits: LimitSet; editable: boolean }) {
   const change = useChangeSetup(unitId);
-  const [text, setText] = useState(() =>
-    Object.fromEntries(
-      checkKeys.map((key) => [key, Object.fromEntries(bandKeys.map((b) => [b, limits[key]?.[b] == null ? '' : String(scale(key).toDisplay(limits[key]![b]!))]))]),
-    ) as Record<CheckKey, Record<(typeof bandKeys)[number], string>>,
-  );
+  const [text, setText] = useState<LimitText>(() => limitTextFrom(limits, prefs));
   const [note, setNote] = useState('');
-  const fields = change.error instanceof ApiError ? change.error.fields : {};
+  // Boxes that do not hold a number, found before anything is sent; the server's messages otherwise.
+  const [typingErrors, setTypingErrors] = useState<Record<string, string>>({});
+  const fields = { ...(change.error instanceof ApiError ? change.error.fields : {}), ...typingErrors };
+  const boxErrors = Object.keys(fields).filter((f) => f.startsWith('limits.')).length;
 
   const save = () => {
-    const next: LimitSet = {};
-    for (const key of checkKeys) {
-      const band: LimitBand = {};
-      for (const b of bandKeys) {
-        const raw = text[key][b].trim();
-        if (raw !== '') band[b] = scale(key).toSi(Number(raw));
-      }
-      if (Object.keys(band).length) next[key] = band;
-    }
+    const { limits: next, errors } = limitSetFromText(text, prefs);
+    setTypingErrors(errors);
+    if (Object.keys(errors).length) return;
     change.mutate({ kind: 'limits', limits: next, note }, { onSuccess: () => setNote('') });
   };
 
@@ -51,7 +37,11 @@ export function LimitsForm({ unitId, limits, editable }: { unitId: number; limit
       }}
     >
       <h2 className="font-bold">Limits (watch and alarm)</h2>
-      {change.error ? <Notice kind="error">{change.error.message}</Notice> : null}
+      {boxErrors ? (
+        <Notice kind="error">{`Nothing was saved: ${boxErrors === 1 ? 'one box needs' : `${boxErrors} boxes need`} a number (marked below), or leave a box empty for no limit.`}</Notice>
+      ) : change.error ? (
+        <Notice kind="error">{change.error.message}</Notice>
+      ) : null}
       {change.isSuccess ? <Notice kind="success">Saved as a new version; earlier readings keep the limits of their time.</Notice> : null}
       <div className="overflow-x-auto">
         <table className="w-full text-left text-sm">
@@ -68,23 +58,34 @@ export function LimitsForm({ unitId, limits, editable }: { unitId: number; limit
           <tbody>
             {checkKeys.map((key) => (
               <tr key={key} className="border-t border-line">
-                <td className="pr-2">
-                  {checkCatalog[key].label}
-                  {bandKeys.map((b) => (fields[`limits.${key}.${b}`] ? <span key={b} role="alert" className="block text-alarm">⚠ {fields[`limits.${key}.${b}`]}</span> : null))}
-                </td>
-                {bandKeys.map((b) => (
-                  <td key={b} className="pr-1">
-                    <input
-                      aria-label={`${checkCatalog[key].label} ${b}`}
-                      disabled={!editable}
-                      inputMode="decimal"
-                      className="reading w-20 rounded-md border border-line bg-field px-1 py-0.5"
-                      value={text[key][b]}
-                      onChange={(e) => setText({ ...text, [key]: { ...text[key], [b]: e.target.value } })}
-                    />
-                  </td>
-                ))}
-                <td className="text-muted">{scale(key).unit}</td>
+                <td className="pr-2">{checkCatalog[key].label}</td>
+                {bandKeys.map((b) => {
+                  const error = fields[limitField(key, b)];
+                  const errorId = `limit-error-${key}-${b}`;
+                  return (
+                    <td key={b} className="pr-1 align-top">
+                      <input
+                        aria-label={`${checkCatalog[key].label} ${bandLabels[b]}`}
+                        aria-invalid={Boolean(error)}
+                        aria-describedby={error ? errorId : undefined}
+                        disabled={!editable}
+                        inputMode="decimal"
+                        className="reading w-20 rounded-md border border-line bg-field px-1 py-0.5 aria-[invalid=true]:border-alarm"
+                        value={text[key][b]}
+                        onChange={(e) => {
+                          setText({ ...text, [key]: { ...text[key], [b]: e.target.value } });
+                          if (typingErrors[limitField(key, b)]) setTypingErrors(({ [limitField(key, b)]: _, ...rest }) => rest);
+                        }}
+                      />
+                      {error ? (
+                        <span id={errorId} role="alert" className="block max-w-40 text-xs text-alarm">
+                          ⚠ {error}
+                        </span>
+                      ) : null}
+                    </td>
+                  );
+                })}
+                <td className="text-muted">{unitOf(key)}</td>
               </tr>
             ))}
           </tbody>

@@ -7,7 +7,8 @@ import { Button } from '../../../components/ui/button';
 import { CheckResults, EnterReadingsNotice } from '../../../components/readings/check-results';
 import { ReadingFormFields } from '../../../components/readings/reading-form-fields';
 import { useCondenserDesign } from '../../../components/readings/get-condenser-design';
-import { emptyReadingForm, formErrorsFromServer, type FormErrors, type ReadingFormValues } from '../../../components/readings/reading-form';
+import { emptyReadingForm, fieldForPath, formErrorsFromServer, type FormErrors, type ReadingFormValues } from '../../../components/readings/reading-form';
+import { fieldLabel } from '../../../../shared/schemas/field-labels';
 import { loadUnitChoices, useRememberUnitChoices } from '../../../components/readings/unit-choices';
 import { useLiveEvaluation } from '../../../components/readings/use-live-evaluation';
 import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-picker';
@@ -54,7 +55,10 @@ export function RoundsPage() {
     setServerErrors({});
     setTakenAtError(undefined);
     if (!unitId || !live.input) {
-      setSaveError('Some readings are missing or wrong; see the messages beside them.');
+      // Empty required boxes are quiet while typing; on save each says it is missing.
+      setServerErrors(live.allErrors);
+      const boxes = Object.keys(live.allErrors).map((box) => fieldLabel(Object.keys(fieldForPath).find((path) => fieldForPath[path] === box) ?? box));
+      setSaveError(boxes.length ? `Nothing was saved; see the readings marked below: ${boxes.join(', ')}.` : 'Some readings are missing or wrong; see the messages beside them.');
       return;
     }
     const typed = unit ? readStationTime(takenAt, unit.timeZone) : { ok: true as const, at: null };

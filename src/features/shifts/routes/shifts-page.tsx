@@ -3,6 +3,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { StationSettings } from '../../../../shared/schemas/log';
 import { useSelectedUnit } from '../../../components/readings/unit-picker';
 import { Notice } from '../../../components/ui/notice';
+import { FormErrorSummary } from '../../../components/ui/form-error-summary';
 import { ApiError, api } from '../../../lib/api-client';
 import { useCrews } from '../../../components/plant/crews';
 import { StationTimeInput, readStationTime, useStationTimeField } from '../../../components/station-time/station-time-input';
@@ -11,7 +12,6 @@ import { StationSettingsForm } from '../components/station-settings-form';
 import { logKeys } from '../../log/api/log';
 
 const field = 'rounded-md border border-line bg-field px-2 py-1';
-const fieldsOf = (error: unknown) => (error instanceof ApiError ? Object.entries(error.fields).map(([k, v]) => `${k}: ${v}`).join('; ') || error.message : error instanceof Error ? error.message : '');
 
 /** Administrators: the station's clock and shift pattern, crew rotation and one-off swaps. */
 export function ShiftsPage() {
@@ -70,7 +70,7 @@ export function ShiftsPage() {
             </button>
           ))}
         </div>
-        {saveRotation.error ? <Notice kind="error">{fieldsOf(saveRotation.error)}</Notice> : null}
+        <FormErrorSummary error={saveRotation.error} />
         {saveRotation.isSuccess ? <Notice kind="success">Rotation saved.</Notice> : null}
         <button type="submit" className="self-start rounded-md bg-accent px-3 py-1 font-bold text-on-accent">
           Save rotation
@@ -105,7 +105,7 @@ export function ShiftsPage() {
           Reason
           <input className={field} value={swap.reason} onChange={(e) => setSwap({ ...swap, reason: e.target.value })} />
         </label>
-        {addSwap.error ? <Notice kind="error">{fieldsOf(addSwap.error)}</Notice> : null}
+        <FormErrorSummary error={addSwap.error} placed={['shiftStart']} />
         {addSwap.isSuccess ? <Notice kind="success">Swap recorded.</Notice> : null}
         <button type="submit" className="self-start rounded-md bg-accent px-3 py-1 font-bold text-on-accent">
           Record swap
