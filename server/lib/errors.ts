@@ -19,6 +19,12 @@ export class ValidationError extends HttpError {
     super(400, 'VALIDATION', message, fields);
   }
 }
+/** Input that is possible but needs the person to say they meant it; the field messages say what and why. */
+export class ConfirmationRequired extends HttpError {
+  constructor(code: string, message: string, fields: FieldErrors) {
+    super(400, code, message, fields);
+  }
+}
 export class Unauthorized extends HttpError {
   constructor(message = 'Sign in to continue') {
     super(401, 'UNAUTHENTICATED', message);

@@ -24,7 +24,7 @@ export function useLiveEvaluation(unitId: number | null, values: ReadingFormValu
     const built = toReadingSet(unitId, values);
     if (!built.input) return { input: null, evaluation: null, errors: built.errors };
     try {
-      return { input: built.input, evaluation: evaluateReadingSet(readingSetToSi(built.input), data.design, data.limits), errors: {} as FormErrors };
+      return { input: built.input, evaluation: evaluateReadingSet(readingSetToSi(built.input), data.design, data.limits, data.plausible), errors: {} as FormErrors };
     } catch (error) {
       if (error instanceof CalcInputError) {
         const field = fieldForPath[error.field];
