@@ -31,7 +31,7 @@ export function CheckResults({ evaluation, prefs }: { evaluation: Evaluation; pr
       {evaluation.implausible?.length ? (
         <p className="rounded-md border-2 border-watch bg-panel px-3 py-2 text-sm" data-testid="implausible-summary">
           <OutsidePlausibleTag keys={evaluation.implausible.map((i) => i.key)} /> The checks computed from{' '}
-          {evaluation.implausible.length > 1 ? 'these values are' : 'this value is'} withheld, not judged.
+          {evaluation.implausible.length > 1 ? 'these values' : 'this value'} are withheld, not judged.
         </p>
       ) : null}
       {evaluation.notes.map((note) => (

@@ -119,7 +119,7 @@ export function TrendChart({ data, prefs, parameters, timeZone }: { data: TrendR
             ))}
             {outside
               ? parameters.map((p) => (
-                  <Line key={edgeKey(p)} dataKey={edgeKey(p)} name={`${checkCatalog[p].label} — outside plausible range`} stroke="none" dot={<OutsideMark />} activeDot={false} legendType="diamond" isAnimationActive={false} />
+                  <Line key={edgeKey(p)} dataKey={edgeKey(p)} name={`${checkCatalog[p].label} — outside plausible range`} stroke="var(--c-watch)" strokeWidth={0} dot={<OutsideMark />} activeDot={false} legendType="diamond" isAnimationActive={false} />
                 ))
               : null}
           </LineChart>
