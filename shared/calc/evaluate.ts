@@ -19,9 +19,9 @@ import {
 import { blowdownForCycles, cyclesOfConcentration, evaporationRate, towerApproach, towerEffectiveness, towerRange } from './cooling-tower';
 import { possibleCauses, type Hint } from './diagnosis';
 import { cleanUFromDataSheet, cleanUHei, tubeVelocity, type TubeMaterial } from './hei';
-import { CalcInputError, CalcRangeError } from './input-error';
+import { checkComputer, need, type Source } from './check-computer';
 import { judge, type LimitSet, type Status } from './limits';
-import { outsidePlausible, plausibleKeys, withheldReason, type OutsidePlausible, type PlausibleKey, type PlausibleRanges } from './plausibility';
+import type { OutsidePlausible, PlausibleRanges } from './plausibility';
 import { wetBulbTemperature } from './psychrometrics';
 import { saturationTemperature } from './saturation';
 import { waterDensity } from './water';
@@ -94,62 +94,9 @@ export type Evaluation = {
   implausible: OutsidePlausible[];
 };
 
-/** What a check can be computed from: another check, or a reading that is not itself a check. */
-type Source = CheckKey | 'steamFlow' | 'pH';
-
-class Missing extends Error {}
-
-const isPlausibleKey = (key: string): key is PlausibleKey => (plausibleKeys as readonly string[]).includes(key);
-
-/** Use a value another check produced; if it is absent, this check is absent too. */
-function need(value: number | null | undefined, what: string): number {
-  if (value == null) throw new Missing(`needs ${what}`);
-  return value;
-}
-
 export function evaluateReadingSet(reading: ReadingSetSi, design: CondenserDesignSi, limits: LimitSet, plausible: PlausibleRanges): Evaluation {
-  const values: Partial<Record<CheckKey, number | null>> = {};
-  const reasons: Partial<Record<CheckKey, string>> = {};
   const notes: string[] = [];
-  const implausible: OutsidePlausible[] = [];
-  const marked: Partial<Record<CheckKey, OutsidePlausible>> = {};
-  /** Sources that must not feed another check, with the reason the operator reads. */
-  const withheld = new Map<Source, string>();
-
-  const assess = (key: PlausibleKey, value: number | null | undefined) => {
-    if (value == null) return;
-    const outside = outsidePlausible(key, value, plausible, design);
-    if (!outside) return;
-    implausible.push(outside);
-    withheld.set(key, withheldReason(key));
-    if (key !== 'steamFlow' && key !== 'pH') marked[key] = outside;
-  };
-
-  /** Computes one check unless a source it is built from is withheld; then it is withheld too. */
-  const compute = (key: CheckKey, fn: () => number | null, absentReason?: string, from: Source[] = []): number | null => {
-    const blocked = from.map((source) => withheld.get(source)).find((reason) => reason !== undefined);
-    if (blocked) {
-      values[key] = null;
-      reasons[key] = blocked;
-      withheld.set(key, blocked);
-      return null;
-    }
-    try {
-      const value = fn();
-      if (value !== null && !Number.isFinite(value)) throw new CalcInputError(key, 'the result is not a finite number');
-      values[key] = value;
-      if (value === null && absentReason) reasons[key] = absentReason;
-      if (isPlausibleKey(key)) assess(key, value);
-      return value;
-    } catch (error) {
-      values[key] = null;
-      if (error instanceof Missing) reasons[key] = error.message;
-      else if (error instanceof CalcRangeError) reasons[key] = `not computed: the readings put the ${error.field} outside the range this calculation covers`;
-      else if (error instanceof CalcInputError) reasons[key] = `${error.field}: ${error.detail}`;
-      else throw error;
-      return null;
-    }
-  };
+  const { compute, assess, values, reasons, marked, implausible } = checkComputer(plausible, design);
   const optional = (value: number | null | undefined) => (value == null ? null : value);
 
   if (reading.assumedStandardBarometer) notes.push('No barometer reading: the standard atmosphere (101.325 kPa) was assumed to turn vacuum into absolute pressure.');

@@ -68,16 +68,16 @@ export const startingPlausibleRanges: PlausibleRanges = {
 };
 
 /** The design figures the flow ranges are fractions of. */
-export type PlausibilityDesign = { designCwFlowKgS: number; designDutyW: number };
+export type PlausibleDesign = { designCwFlowKgS: number; designDutyW: number };
 
 /**
  * Design exhaust steam flow, kg/s: the design duty over HEI's 950 Btu/lb (2210 kJ/kg) — the same
  * convention the engine uses for steam-side duty.
  */
-export const designSteamFlowKgS = (design: PlausibilityDesign) => design.designDutyW / HEI_EXHAUST_HEAT_J_PER_KG;
+export const designSteamFlowKgS = (design: PlausibleDesign) => design.designDutyW / HEI_EXHAUST_HEAT_J_PER_KG;
 
 /** A range in SI for this unit: flows become kg/s from their fractions of design. */
-export function plausibleRangeSi(key: PlausibleKey, ranges: PlausibleRanges, design: PlausibilityDesign): PlausibleRange {
+export function plausibleRangeSi(key: PlausibleKey, ranges: PlausibleRanges, design: PlausibleDesign): PlausibleRange {
   const range = ranges[key];
   if (key === 'cwFlow') return { low: range.low * design.designCwFlowKgS, high: range.high * design.designCwFlowKgS };
   if (key === 'steamFlow') return { low: range.low * designSteamFlowKgS(design), high: range.high * designSteamFlowKgS(design) };
@@ -93,7 +93,7 @@ export type OutsidePlausible = {
   high: number;
 };
 
-export function outsidePlausible(key: PlausibleKey, value: number, ranges: PlausibleRanges, design: PlausibilityDesign): OutsidePlausible | null {
+export function outsidePlausible(key: PlausibleKey, value: number, ranges: PlausibleRanges, design: PlausibleDesign): OutsidePlausible | null {
   const { low, high } = plausibleRangeSi(key, ranges, design);
   return value < low || value > high ? { key, label: plausibleCatalog[key].label, value, low, high } : null;
 }
