@@ -103,6 +103,25 @@ describe('a reading outside its plausible range', () => {
   });
 });
 
+describe('the probe’s CW flow of 1e9 m³/h', () => {
+  // 1e9 m³/h at 22 °C (ρ = 997.77 kg/m³, Kell 1975) = 2.77e8 kg/s. The contract refuses it as
+  // physically impossible; the engine on its own must still never call what follows from it normal.
+  const probe = { cwFlowKgS: (1e9 / 3600) * 997.77 };
+
+  it('is withheld, not judged normal, under the starting ranges', () => {
+    const { checks } = evaluate(probe);
+    for (const key of builtOnFlow) expect(checks[key].status, key).toBe('unknown');
+  });
+
+  it('leaves no SI figure in a reason even when a unit’s ranges let it through', () => {
+    const { checks } = evaluate(probe, { ...startingPlausibleRanges, cwFlow: { low: 0, high: 1e6 }, tubeVelocity: { low: 0, high: 1e6 }, cleanlinessFactor: { low: 0, high: 1e6 } });
+    // NTU → 0, so Tsat = T_in + rise / (1 − e^−NTU) runs far past the critical point (647.096 K, IAPWS).
+    expect(checks.expectedBackpressure.value).toBeNull();
+    expect(checks.expectedBackpressure.reason).toBe('not computed: the readings put the expected saturation temperature outside the range this calculation covers');
+    for (const check of Object.values(checks)) expect(check.reason ?? '', check.key).not.toMatch(/\d K\b|valid range/);
+  });
+});
+
 describe('what the operator reads about it', () => {
   const raw = (patch: Partial<ReadingSetInput> = {}) =>
     ({
