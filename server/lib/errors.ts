@@ -10,6 +10,8 @@ export class HttpError extends Error {
     readonly code: string,
     message: string,
     readonly fields?: FieldErrors,
+    /** What a form needs beyond the field messages to act on the answer. */
+    readonly details?: unknown,
   ) {
     super(message);
   }
@@ -21,8 +23,8 @@ export class ValidationError extends HttpError {
 }
 /** Input that is possible but needs the person to say they meant it; the field messages say what and why. */
 export class ConfirmationRequired extends HttpError {
-  constructor(code: string, message: string, fields: FieldErrors) {
-    super(400, code, message, fields);
+  constructor(code: string, message: string, fields: FieldErrors, details: unknown) {
+    super(400, code, message, fields, details);
   }
 }
 export class Unauthorized extends HttpError {
@@ -64,7 +66,7 @@ export const errorMiddleware: ErrorRequestHandler = (error, _req, res, _next) =>
     return;
   }
   if (error instanceof HttpError) {
-    res.status(error.status).json({ error: { code: error.code, message: error.message, fields: error.fields } });
+    res.status(error.status).json({ error: { code: error.code, message: error.message, fields: error.fields, details: error.details } });
     return;
   }
   // The database's unique keys are the last word on "only one of these": a second one, however it

@@ -74,6 +74,8 @@ describe('plausible ranges on a round', () => {
     expect(res.body.error.fields['cwFlow.value']).toBe(
       'CW flow 22,500 kg/s is outside the plausible range for this unit (3,000–19,500 kg/s, 20–130 % of design flow). Check the instrument and the reading. Confirm to save it anyway.',
     );
+    // What to ask about, for a form whose own copy of the ranges is older than the server's.
+    expect(res.body.error.details.outside).toEqual([{ key: 'cwFlow', field: 'cwFlow.value', message: expect.stringMatching(/^CW flow 22,500 kg\/s is outside/) }]);
     // A confirmation of something else does not cover it.
     const wrong = await post(operator, `/api/units/${unitId}/readings`, { ...highFlow, confirmOutsidePlausible: ['ttd'] });
     expect(wrong.status).toBe(400);

@@ -49,10 +49,14 @@ function confirmedOutsidePlausible(judged: Judged, raw: ReadingSetInput, si: Rea
   const outside = judged.evaluation.implausible;
   const unconfirmed = confirmed === 'all' ? [] : outside.filter((item) => !confirmed.includes(item.key));
   if (unconfirmed.length) {
+    // The form asks the same question from `details.outside` (the ranges in force when the reading was
+    // taken are the word, which for an amendment of an old round may not be today's).
+    const notices = describeImplausible(unconfirmed, raw, si.cwInletK, judged.design);
     throw new ConfirmationRequired(
       'OUTSIDE_PLAUSIBLE_RANGE',
       'Outside the plausible range for this unit: check the instruments, then confirm to save anyway',
-      noticesByField(describeImplausible(unconfirmed, raw, si.cwInletK, judged.design), 'Confirm to save it anyway.'),
+      noticesByField(notices, 'Confirm to save it anyway.'),
+      { outside: notices },
     );
   }
   return outside.map((item) => item.key);

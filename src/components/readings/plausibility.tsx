@@ -1,7 +1,9 @@
 // How a round outside its unit's plausible ranges looks: a warning beside the box, a question before
 // saving, and a mark on the saved round wherever it is listed.
+import { useState } from 'react';
 import { plausibleCatalog, type PlausibleKey } from '../../../shared/calc/plausibility';
 import type { ImplausibleNotice } from '../../../shared/plausibility-display';
+import { ApiError } from '../../lib/api-client';
 import { Button } from '../ui/button';
 
 const MARK = '◇';
@@ -54,4 +56,40 @@ export function ConfirmOutsidePlausible({ notices, pending, onConfirm, onCancel 
       </div>
     </section>
   );
+}
+
+/**
+ * The question before saving: what the form's own evaluation finds outside the plausible range, and
+ * what the server found when it refused (its ranges in force when the reading was taken are the word).
+ */
+export function useOutsidePlausibleQuestion(live: ImplausibleNotice[]) {
+  const [asking, setAsking] = useState(false);
+  const [fromServer, setFromServer] = useState<ImplausibleNotice[]>([]);
+  const notices = [...live, ...fromServer.filter((s) => !live.some((l) => l.key === s.key))];
+  return {
+    asking: asking && notices.length > 0,
+    notices,
+    keys: () => notices.map((n) => n.key),
+    /** True when the save must wait for the person's answer (and the question is now shown). */
+    mustAsk: (confirmed: boolean) => {
+      setAsking(notices.length > 0 && !confirmed);
+      return notices.length > 0 && !confirmed;
+    },
+    cancel: () => {
+      setAsking(false);
+      setFromServer([]);
+    },
+    /** True when the server refused for want of a confirmation; the question is then shown. */
+    takeRefusal: (error: unknown) => {
+      const details = error instanceof ApiError && error.code === 'OUTSIDE_PLAUSIBLE_RANGE' ? (error.details as { outside?: ImplausibleNotice[] } | undefined) : undefined;
+      if (!details?.outside?.length) return false;
+      setFromServer(details.outside);
+      setAsking(true);
+      return true;
+    },
+    reset: () => {
+      setAsking(false);
+      setFromServer([]);
+    },
+  };
 }

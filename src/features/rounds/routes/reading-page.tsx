@@ -4,7 +4,7 @@ import { Link, useParams } from 'react-router';
 import type { Evaluation } from '../../../../shared/calc/evaluate';
 import { CheckResults } from '../../../components/readings/check-results';
 import { ReadingFormFields } from '../../../components/readings/reading-form-fields';
-import { ConfirmOutsidePlausible, OutsidePlausibleTag } from '../../../components/readings/plausibility';
+import { ConfirmOutsidePlausible, OutsidePlausibleTag, useOutsidePlausibleQuestion } from '../../../components/readings/plausibility';
 import type { PlausibleKey } from '../../../../shared/calc/plausibility';
 import { useCondenserDesign } from '../../../components/readings/get-condenser-design';
 import { formErrorsFromServer, formValuesFromReading, type FormErrors, type ReadingFormValues } from '../../../components/readings/reading-form';
@@ -61,19 +61,19 @@ function AmendForm({ detail, onDone }: { detail: ReadingDetail; onDone: () => vo
   const [reason, setReason] = useState('');
   const [errors, setErrors] = useState<FormErrors & { reason?: string }>({});
   const [message, setMessage] = useState<string | null>(null);
-  const [confirming, setConfirming] = useState(false);
+  const question = useOutsidePlausibleQuestion(live.notices);
 
   const submit = (confirmed = false) => {
-    setConfirming(false);
     if (!live.input) return setMessage('Some readings are missing or wrong; see the messages beside them.');
-    if (live.notices.length && !confirmed) return setConfirming(true);
+    if (question.mustAsk(confirmed)) return;
     const { unitId: _unit, ...reading } = live.input;
-    const confirmOutsidePlausible = confirmed ? live.notices.map((n) => n.key) : [];
+    const confirmOutsidePlausible = confirmed ? question.keys() : [];
     amend.mutate(
       { reason, reading, ...(confirmOutsidePlausible.length ? { confirmOutsidePlausible } : {}) },
       {
         onSuccess: onDone,
         onError: (error) => {
+          if (question.takeRefusal(error)) return;
           setMessage(error.message);
           if (error instanceof ApiError) setErrors({ ...formErrorsFromServer(error.fields), reason: error.fields.reason });
         },
@@ -100,9 +100,7 @@ function AmendForm({ detail, onDone }: { detail: ReadingDetail; onDone: () => vo
         {errors.reason ? <span role="alert" className="text-alarm">⚠ {errors.reason}</span> : null}
       </label>
       <ReadingFormFields form={form} errors={{ ...live.shownErrors, ...errors }} values={values} warnings={live.warnings} />
-      {confirming && live.notices.length ? (
-        <ConfirmOutsidePlausible notices={live.notices} pending={amend.isPending} onConfirm={() => submit(true)} onCancel={() => setConfirming(false)} />
-      ) : null}
+      {question.asking ? <ConfirmOutsidePlausible notices={question.notices} pending={amend.isPending} onConfirm={() => submit(true)} onCancel={question.cancel} /> : null}
       <Button type="submit" disabled={amend.isPending}>
         Save amendment
       </Button>

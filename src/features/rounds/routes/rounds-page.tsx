@@ -5,7 +5,7 @@ import { CautionNote, Notice } from '../../../components/ui/notice';
 import { Button } from '../../../components/ui/button';
 import { CheckResults, EnterReadingsNotice } from '../../../components/readings/check-results';
 import { ReadingFormFields } from '../../../components/readings/reading-form-fields';
-import { ConfirmOutsidePlausible } from '../../../components/readings/plausibility';
+import { ConfirmOutsidePlausible, useOutsidePlausibleQuestion } from '../../../components/readings/plausibility';
 import { useCondenserDesign } from '../../../components/readings/get-condenser-design';
 import { emptyReadingForm, formErrorsFromServer, type FormErrors, type ReadingFormValues } from '../../../components/readings/reading-form';
 import { loadUnitChoices, useRememberUnitChoices } from '../../../components/readings/unit-choices';
@@ -47,7 +47,7 @@ export function RoundsPage() {
   const [serverErrors, setServerErrors] = useState<FormErrors>({});
   const [saveError, setSaveError] = useState<string | null>(null);
   const [takenAtError, setTakenAtError] = useState<string | undefined>();
-  const [confirming, setConfirming] = useState(false);
+  const question = useOutsidePlausibleQuestion(live.notices);
   const mayRecord = me && me.role !== 'trainer';
 
   /** `confirmed`: the person has seen the readings outside the plausible range and saves them anyway. */
@@ -55,7 +55,6 @@ export function RoundsPage() {
     setSaveError(null);
     setServerErrors({});
     setTakenAtError(undefined);
-    setConfirming(false);
     if (!unitId || !live.input) {
       setSaveError('Some readings are missing or wrong; see the messages beside them.');
       return;
@@ -65,20 +64,19 @@ export function RoundsPage() {
       setSaveError('Check the “Taken at” time; see the message beside it.');
       return;
     }
-    if (live.notices.length && !confirmed) {
-      setConfirming(true);
-      return;
-    }
+    if (question.mustAsk(confirmed)) return;
     const { unitId: _unit, ...reading } = live.input;
-    const confirmOutsidePlausible = confirmed ? live.notices.map((n) => n.key) : [];
+    const confirmOutsidePlausible = confirmed ? question.keys() : [];
     record.mutate(
       { unitId, reading: { ...reading, ...(typed.at ? { takenAt: typed.at.toISOString() } : {}), ...(confirmOutsidePlausible.length ? { confirmOutsidePlausible } : {}) } },
       {
         onSuccess: () => {
           form.reset(emptyReadingForm(loadUnitChoices(me?.id)));
           takenAt.reset();
+          question.reset();
         },
         onError: (error) => {
+          if (question.takeRefusal(error)) return;
           setSaveError(error.message);
           if (error instanceof ApiError) {
             setServerErrors(formErrorsFromServer(error.fields));
@@ -124,8 +122,8 @@ export function RoundsPage() {
         >
           {unit ? <StationTimeInput className="text-sm font-bold" label="Taken at (leave empty for now)" field={takenAt} timeZone={unit.timeZone} error={takenAtError} /> : null}
           <ReadingFormFields form={form} errors={{ ...live.shownErrors, ...serverErrors }} values={values} warnings={live.warnings} />
-          {mayRecord && confirming && live.notices.length ? (
-            <ConfirmOutsidePlausible notices={live.notices} pending={record.isPending} onConfirm={() => save(true)} onCancel={() => setConfirming(false)} />
+          {mayRecord && question.asking ? (
+            <ConfirmOutsidePlausible notices={question.notices} pending={record.isPending} onConfirm={() => save(true)} onCancel={question.cancel} />
           ) : null}
           {mayRecord ? (
             <Button type="submit" disabled={record.isPending}>
