@@ -2,6 +2,7 @@
 // Figures are machine-dependent; they are reported, not asserted.
 import { evaluateReadingSet, type CondenserDesignSi, type ReadingSetSi } from '../shared/calc/evaluate';
 import { startingLimits } from '../shared/calc/limits';
+import { startingPlausibleRanges } from '../shared/calc/plausibility';
 import { saturationTemperature } from '../shared/calc/saturation';
 import { demoCondenserDesign } from '../server/db/seed/demo-plant';
 
@@ -31,7 +32,7 @@ function time(label: string, n: number, body: (i: number) => number) {
 
 const readings = Array.from({ length: 2000 }, (_, i) => reading(i));
 time('full reading set (every check + hints)', iterations, (i) => {
-  const result = evaluateReadingSet(readings[i % 2000]!, design, startingLimits);
+  const result = evaluateReadingSet(readings[i % 2000]!, design, startingLimits, startingPlausibleRanges);
   return result.checks.expectedBackpressure.value ?? 0;
 });
 time('saturationTemperature alone', iterations, (i) => saturationTemperature(3000 + (i % 10_000)));

@@ -9,6 +9,7 @@ import { demoCondenserDesign } from '../server/db/seed/demo-plant';
 import { checkKeys } from '../shared/calc/check-catalog';
 import { evaluateReadingSet } from '../shared/calc/evaluate';
 import { startingLimits } from '../shared/calc/limits';
+import { startingPlausibleRanges } from '../shared/calc/plausibility';
 import { readingSetToSi } from '../shared/calc/reading-set-si';
 import { worstOf } from '../server/features/readings/evaluate-at';
 import { startBench, timeRequests } from './lib/bench-harness';
@@ -44,7 +45,7 @@ async function main() {
           const { takenAtOffsetH: _offset, ...round } = demoRound(demoCondenserDesign, hour % (14 * 24), unit.id === units[0]!.id, next);
           const raw = { ...round, unitId: unit.id };
           const si = readingSetToSi(raw);
-          const evaluation = evaluateReadingSet(si, demoCondenserDesign, startingLimits);
+          const evaluation = evaluateReadingSet(si, demoCondenserDesign, startingLimits, startingPlausibleRanges);
           const takenAt = new Date(start + hour * 3_600_000);
           const id = nextId++;
           sets.push([id, unit.id, takenAt, takenAt, recorder, 0, 'import', takenAt.toISOString(), unit.design, unit.limits, JSON.stringify(raw), JSON.stringify(si), JSON.stringify(evaluation), worstOf(evaluation)]);

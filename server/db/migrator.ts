@@ -13,6 +13,7 @@ import * as handoverIntegrity from './migrations/0010-handover-integrity';
 import * as handoverCondenserSnapshot from './migrations/0011-handover-condenser-snapshot';
 import * as roundIntervalAndHandoverWindow from './migrations/0012-round-interval-and-handover-window';
 import * as accessAndSignIn from './migrations/0013-access-and-sign-in';
+import * as plausibleRanges from './migrations/0014-plausible-ranges';
 
 // Listed explicitly so the order is obvious and nothing depends on globbing at run time.
 const migrations = [
@@ -29,6 +30,7 @@ const migrations = [
   { name: '0011-handover-condenser-snapshot', ...handoverCondenserSnapshot },
   { name: '0012-round-interval-and-handover-window', ...roundIntervalAndHandoverWindow },
   { name: '0013-access-and-sign-in', ...accessAndSignIn },
+  { name: '0014-plausible-ranges', ...plausibleRanges },
 ];
 
 export function createMigrator(sequelize: Sequelize) {

@@ -11,6 +11,8 @@ export class HttpError extends Error {
     readonly code: string,
     message: string,
     readonly fields?: FieldErrors,
+    /** What a form needs beyond the field messages to act on the answer. */
+    readonly details?: unknown,
   ) {
     super(message);
   }
@@ -26,6 +28,13 @@ export function summaryOf(fields: FieldErrors): string {
   const labels = [...new Set(Object.keys(fields).map(fieldLabel).filter(Boolean))];
   if (!labels.length) return fields._ ?? 'Some fields need attention';
   return `Some fields need attention: ${labels.join(', ')}`;
+}
+
+/** Input that is possible but needs the person to say they meant it; the field messages say what and why. */
+export class ConfirmationRequired extends HttpError {
+  constructor(code: string, message: string, fields: FieldErrors, details: unknown) {
+    super(400, code, message, fields, details);
+  }
 }
 export class Unauthorized extends HttpError {
   constructor(message = 'Sign in to continue') {
@@ -67,7 +76,7 @@ export const errorMiddleware: ErrorRequestHandler = (error, _req, res, _next) =>
     return;
   }
   if (error instanceof HttpError) {
-    res.status(error.status).json({ error: { code: error.code, message: error.message, fields: error.fields } });
+    res.status(error.status).json({ error: { code: error.code, message: error.message, fields: error.fields, details: error.details } });
     return;
   }
   // The database's unique keys are the last word on "only one of these": a second one, however it

@@ -1,6 +1,8 @@
 // Turns one reading set (SI) and the condenser's design data into every check, with statuses
 // and possible-cause hints. Each check is computed on its own: a missing optional input or an
-// impossible value leaves that check (and those built on it) absent with the reason.
+// impossible value leaves that check (and those built on it) absent with the reason. A reading or
+// check outside the unit's plausible range is kept and marked, and every check computed from it is
+// withheld: judging a duty from a CW flow nobody believes would show a confident "normal".
 import { backpressureDeviationCost, expectedBackpressure, type CorrectionCurve } from './backpressure';
 import { checkCatalog, checkKeys, siUnitOf, type CheckKey, type Quantity } from './check-catalog';
 import { langelierIndex, ryznarIndex, type WaterSample } from './chemistry';
@@ -17,8 +19,9 @@ import {
 import { blowdownForCycles, cyclesOfConcentration, evaporationRate, towerApproach, towerEffectiveness, towerRange } from './cooling-tower';
 import { possibleCauses, type Hint } from './diagnosis';
 import { cleanUFromDataSheet, cleanUHei, tubeVelocity, type TubeMaterial } from './hei';
-import { CalcInputError } from './input-error';
+import { checkComputer, need, type Source } from './check-computer';
 import { judge, type LimitSet, type Status } from './limits';
+import type { OutsidePlausible, PlausibleRanges } from './plausibility';
 import { wetBulbTemperature } from './psychrometrics';
 import { saturationTemperature } from './saturation';
 import { waterDensity } from './water';
@@ -79,58 +82,42 @@ export type CheckResult = {
   status: Status;
   /** Why the value is absent, or how it was obtained when that matters. */
   reason?: string;
+  /** Present when the value lies outside the unit's plausible range (SI bounds). */
+  outsidePlausible?: { low: number; high: number };
 };
 
 export type Evaluation = {
   checks: Record<CheckKey, CheckResult>;
   hints: Hint[];
   notes: string[];
+  /** Readings and checks outside the unit's plausible ranges; empty when all are plausible. */
+  implausible: OutsidePlausible[];
 };
 
-class Missing extends Error {}
-
-/** Use a value another check produced; if it is absent, this check is absent too. */
-function need(value: number | null | undefined, what: string): number {
-  if (value == null) throw new Missing(`needs ${what}`);
-  return value;
-}
-
-export function evaluateReadingSet(reading: ReadingSetSi, design: CondenserDesignSi, limits: LimitSet): Evaluation {
-  const values: Partial<Record<CheckKey, number | null>> = {};
-  const reasons: Partial<Record<CheckKey, string>> = {};
+export function evaluateReadingSet(reading: ReadingSetSi, design: CondenserDesignSi, limits: LimitSet, plausible: PlausibleRanges): Evaluation {
   const notes: string[] = [];
-
-  const compute = (key: CheckKey, fn: () => number | null, absentReason?: string): number | null => {
-    try {
-      const value = fn();
-      if (value !== null && !Number.isFinite(value)) throw new CalcInputError(key, 'the result is not a finite number');
-      values[key] = value;
-      if (value === null && absentReason) reasons[key] = absentReason;
-      return value;
-    } catch (error) {
-      values[key] = null;
-      if (error instanceof Missing) reasons[key] = error.message;
-      else if (error instanceof CalcInputError) reasons[key] = error.sentence;
-      else throw error;
-      return null;
-    }
-  };
+  const { compute, assess, values, reasons, marked, implausible } = checkComputer(plausible, design);
   const optional = (value: number | null | undefined) => (value == null ? null : value);
 
   if (reading.assumedStandardBarometer) notes.push('No barometer reading: the standard atmosphere (101.325 kPa) was assumed to turn vacuum into absolute pressure.');
 
   // Condenser
+  assess('steamFlow', reading.steamFlowKgS);
+  assess('pH', reading.chemistry?.pH);
   const p = compute('backpressure', () => reading.pressurePa);
   // Measured values are listed too, so limits, flags and trends cover them like computed checks.
   compute('hotwellTemperature', () => reading.hotwellK);
   compute('cwInletTemperature', () => reading.cwInletK);
   compute('cwOutletTemperature', () => reading.cwOutletK);
-  const tsat = compute('saturationTemperature', () => saturationTemperature(need(p, 'the absolute pressure'), 'condenser pressure'));
-  compute('subcooling', () => subcooling(need(tsat, 'the saturation temperature'), reading.hotwellK));
-  const ttd = compute('ttd', () => terminalTemperatureDifference(need(tsat, 'the saturation temperature'), reading.cwOutletK));
-  const itd = compute('itd', () => initialTemperatureDifference(need(tsat, 'the saturation temperature'), reading.cwInletK));
-  const rise = compute('cwRise', () => cwTemperatureRise(reading.cwInletK, reading.cwOutletK));
-  const lmtd = compute('lmtd', () => logMeanTemperatureDifference(need(itd, 'the ITD'), need(ttd, 'the TTD')));
+  const tsat = compute('saturationTemperature', () => saturationTemperature(need(p, 'the absolute pressure'), 'condenser pressure'), undefined, ['backpressure']);
+  compute('subcooling', () => subcooling(need(tsat, 'the saturation temperature'), reading.hotwellK), undefined, ['saturationTemperature', 'hotwellTemperature']);
+  const ttd = compute('ttd', () => terminalTemperatureDifference(need(tsat, 'the saturation temperature'), reading.cwOutletK), undefined, ['saturationTemperature', 'cwOutletTemperature']);
+  const itd = compute('itd', () => initialTemperatureDifference(need(tsat, 'the saturation temperature'), reading.cwInletK), undefined, ['saturationTemperature', 'cwInletTemperature']);
+  const rise = compute('cwRise', () => cwTemperatureRise(reading.cwInletK, reading.cwOutletK), undefined, ['cwInletTemperature', 'cwOutletTemperature']);
+  const lmtd = compute('lmtd', () => logMeanTemperatureDifference(need(itd, 'the ITD'), need(ttd, 'the TTD')), undefined, ['itd', 'ttd']);
+  compute('cwFlow', () => optional(reading.cwFlowKgS), 'not measured');
+  // The duty, and the flows that follow from it, rest on the measured CW flow or else the steam flow.
+  const flowSource: Source = reading.cwFlowKgS != null ? 'cwFlow' : 'steamFlow';
 
   let dutyBasis: string | undefined;
   const duty = compute('duty', () => {
@@ -140,19 +127,19 @@ export function evaluateReadingSet(reading: ReadingSetSi, design: CondenserDesig
         ? 'CW side: flow × cp × rise'
         : 'steam side: exhaust steam flow × 2210 kJ/kg (HEI), because the CW flow was not measured';
     return result.watts;
-  });
+  }, undefined, ['cwRise', flowSource]);
   if (dutyBasis) reasons.duty = dutyBasis;
-  const u = compute('overallU', () => overallU(need(duty, 'the duty'), design.surfaceAreaM2, need(lmtd, 'the LMTD')));
+  const u = compute('overallU', () => overallU(need(duty, 'the duty'), design.surfaceAreaM2, need(lmtd, 'the LMTD')), undefined, ['duty', 'lmtd']);
 
   // With only the steam side known, the CW flow follows from duty and rise.
   const cwFlow = reading.cwFlowKgS ?? (duty !== null && rise !== null ? cwFlowFromDuty(duty, rise) : null);
-  compute('cwFlow', () => optional(reading.cwFlowKgS), 'not measured');
+  const cwFlowFrom: Source = reading.cwFlowKgS != null ? 'cwFlow' : 'duty';
   const density = waterDensity(Math.min(Math.max(reading.cwInletK, 273.15), 373.15));
   const velocity = compute('tubeVelocity', () => tubeVelocity(
     { tubeOdMm: design.tubeOdMm, gaugeBwg: design.tubeGaugeBwg, tubeCount: design.tubeCount, passes: design.passes },
     need(cwFlow, 'the CW flow or the steam flow'),
     density,
-  ));
+  ), undefined, [cwFlowFrom]);
   let cleanUBasis = '';
   const cleanU = compute('cleanU', () => {
     const v = need(velocity, 'the tube velocity');
@@ -179,9 +166,9 @@ export function evaluateReadingSet(reading: ReadingSetSi, design: CondenserDesig
       velocityMS: v,
       inletK: reading.cwInletK,
     });
-  });
+  }, undefined, ['tubeVelocity', 'cwInletTemperature']);
   if (cleanU !== null) reasons.cleanU = cleanUBasis;
-  compute('cleanlinessFactor', () => need(u, 'the overall U') / need(cleanU, 'the clean U'));
+  compute('cleanlinessFactor', () => need(u, 'the overall U') / need(cleanU, 'the clean U'), undefined, ['overallU', 'cleanU']);
   const expected = compute('expectedBackpressure', () =>
     expectedBackpressure({
       uWM2K: need(cleanU, 'the clean U') * design.designCleanliness,
@@ -190,8 +177,10 @@ export function evaluateReadingSet(reading: ReadingSetSi, design: CondenserDesig
       cwInletK: reading.cwInletK,
       dutyW: need(duty, 'the duty'),
     }).pressurePa,
+    undefined,
+    ['cleanU', cwFlowFrom, 'cwInletTemperature', 'duty'],
   );
-  compute('backpressureDeviation', () => need(p, 'the absolute pressure') - need(expected, 'the expected backpressure'));
+  compute('backpressureDeviation', () => need(p, 'the absolute pressure') - need(expected, 'the expected backpressure'), undefined, ['backpressure', 'expectedBackpressure']);
   let costReason: string | undefined;
   const costMw = compute('deviationCostPower', () => {
     const cost = backpressureDeviationCost(
@@ -201,7 +190,7 @@ export function evaluateReadingSet(reading: ReadingSetSi, design: CondenserDesig
       design.energyPricePerMwh,
     );
     return cost.megawatts * 1e6;
-  });
+  }, undefined, ['backpressure', 'expectedBackpressure']);
   if (costMw === null) costReason = reasons.deviationCostPower;
   compute(
     'deviationCostMoney',
@@ -210,6 +199,7 @@ export function evaluateReadingSet(reading: ReadingSetSi, design: CondenserDesig
       return (need(costMw, 'the output lost') / 1e6) * design.energyPricePerMwh;
     },
     design.energyPricePerMwh == null ? 'no energy price in the unit’s design data' : costReason,
+    ['deviationCostPower'],
   );
   compute('dissolvedOxygen', () => optional(reading.dissolvedOxygenPpb), 'not measured');
   compute('airRemovalFlow', () => optional(reading.airRemovalKgS), 'not measured');
@@ -234,15 +224,22 @@ export function evaluateReadingSet(reading: ReadingSetSi, design: CondenserDesig
     'towerRange',
     () => (tower.coldWaterK == null ? null : towerRange(hotWater, tower.coldWaterK)),
     'needs the basin (cold-water) temperature',
+    tower.hotWaterK == null ? ['cwOutletTemperature'] : [],
   );
   const approach = compute(
     'towerApproach',
     () => (tower.coldWaterK == null ? null : towerApproach(tower.coldWaterK, need(wetBulb, 'the wet bulb'))),
     'needs the basin (cold-water) temperature',
   );
-  compute('towerEffectiveness', () => towerEffectiveness(need(range, 'the range'), need(approach, 'the approach')));
+  compute('towerEffectiveness', () => towerEffectiveness(need(range, 'the range'), need(approach, 'the approach')), undefined, ['towerRange', 'towerApproach']);
   const circulating = tower.circulatingKgS ?? reading.cwFlowKgS ?? cwFlow;
-  const evaporation = compute('evaporation', () => evaporationRate(need(circulating, 'the circulating flow'), need(range, 'the range')));
+  const circulatingFrom: Source[] = tower.circulatingKgS != null ? [] : [cwFlowFrom];
+  const evaporation = compute(
+    'evaporation',
+    () => evaporationRate(need(circulating, 'the circulating flow'), need(range, 'the range')),
+    undefined,
+    ['towerRange', ...circulatingFrom],
+  );
   compute(
     'cycles',
     () =>
@@ -255,17 +252,19 @@ export function evaluateReadingSet(reading: ReadingSetSi, design: CondenserDesig
     'blowdownNeeded',
     () => (tower.targetCycles == null ? null : blowdownForCycles(need(evaporation, 'the evaporation'), tower.targetCycles).blowdownKgS),
     'needs a target cycles',
+    ['evaporation'],
   );
   compute(
     'makeupNeeded',
     () => (tower.targetCycles == null ? null : blowdownForCycles(need(evaporation, 'the evaporation'), tower.targetCycles).makeupKgS),
     'needs a target cycles',
+    ['evaporation'],
   );
 
   // Chemistry
   const sample = reading.chemistry;
-  compute('langelier', () => (sample ? langelierIndex(sample) : null), 'no water chemistry sample');
-  compute('ryznar', () => (sample ? ryznarIndex(sample) : null), 'no water chemistry sample');
+  compute('langelier', () => (sample ? langelierIndex(sample) : null), 'no water chemistry sample', ['pH']);
+  compute('ryznar', () => (sample ? ryznarIndex(sample) : null), 'no water chemistry sample', ['pH']);
 
   const checks = Object.fromEntries(
     checkKeys.map((key) => {
@@ -273,9 +272,11 @@ export function evaluateReadingSet(reading: ReadingSetSi, design: CondenserDesig
       const { label, quantity } = checkCatalog[key];
       const result: CheckResult = { key, label, quantity, unit: siUnitOf[quantity], value, status: judge(value, limits[key]) };
       if (reasons[key]) result.reason = reasons[key];
+      const outside = marked[key];
+      if (outside) result.outsidePlausible = { low: outside.low, high: outside.high };
       return [key, result];
     }),
   ) as Record<CheckKey, CheckResult>;
 
-  return { checks, hints: possibleCauses(checks), notes };
+  return { checks, hints: possibleCauses(checks), notes, implausible };
 }

@@ -19,6 +19,9 @@ export class CalcInputError extends Error {
   }
 }
 
+/** A value outside the range a formula covers; its detail names SI figures, so it is not for the operator's eyes. */
+export class CalcRangeError extends CalcInputError {}
+
 export function requireFinite(field: string, value: number): number {
   if (typeof value !== 'number' || !Number.isFinite(value)) {
     throw new CalcInputError(field, `must be a finite number (got ${String(value)})`);
@@ -35,7 +38,7 @@ export function requirePositive(field: string, value: number): number {
 export function requireInRange(field: string, value: number, min: number, max: number, unit: string): number {
   requireFinite(field, value);
   if (value < min || value > max) {
-    throw new CalcInputError(field, `${value} ${unit} is outside the valid range ${min}–${max} ${unit}`);
+    throw new CalcRangeError(field, `${value} ${unit} is outside the valid range ${min}–${max} ${unit}`);
   }
   return value;
 }

@@ -1,6 +1,9 @@
 // Raw readings (operator's units) → SI, at the edge. Errors name the input's field path.
+import { isWithin, rangeMessage, temperatureRangeIn, vacuumRangeIn } from '../physical-ranges';
 import type { ReadingSetInput } from '../schemas/reading-set';
 import {
+  STANDARD_ATMOSPHERE_PA,
+  isVacuumUnit,
   microSiemensPerCmToSiPerM,
   pressureReadingToPa,
   absolutePressureToPa,
@@ -19,16 +22,28 @@ type Temp = { value: number; unit: string } | null | undefined;
 const toK = (t: Temp, field: string) => (t ? temperatureToK(t.value, t.unit as TemperatureUnit, field) : null);
 
 export function readingSetToSi(input: ReadingSetInput): ReadingSetSi {
+  const pressureUnit = input.pressure.unit as PressureUnit;
+  if (isVacuumUnit(pressureUnit)) {
+    const barometerPa = input.barometer
+      ? absolutePressureToPa(input.barometer.value, input.barometer.unit as AbsolutePressureUnit, 'barometer.value')
+      : STANDARD_ATMOSPHERE_PA;
+    const range = vacuumRangeIn(pressureUnit, barometerPa);
+    if (!isWithin(input.pressure.value, range)) {
+      const against = input.barometer ? 'with this barometer' : 'against the standard atmosphere (no barometer given)';
+      throw new CalcInputError('pressure.value', `${rangeMessage('Condenser vacuum', range)} ${against}`);
+    }
+  }
   const pressure = pressureReadingToPa(
     input.pressure.value,
     input.pressure.unit as PressureUnit,
     input.barometer ? { value: input.barometer.value, unit: input.barometer.unit as AbsolutePressureUnit } : null,
     'pressure.value',
   );
-  const cwInletK = toK(input.cwInletTemperature, 'cwInletTemperature.value')!;
-  if (cwInletK < 273.15 || cwInletK > 373.15) {
-    throw new CalcInputError('cwInletTemperature.value', 'must be between 0 and 100 °C (cooling water is liquid)');
+  const inletRange = temperatureRangeIn('waterTemperature', input.cwInletTemperature.unit as TemperatureUnit);
+  if (!isWithin(input.cwInletTemperature.value, inletRange)) {
+    throw new CalcInputError('cwInletTemperature.value', rangeMessage('CW inlet temperature', inletRange));
   }
+  const cwInletK = toK(input.cwInletTemperature, 'cwInletTemperature.value')!;
   // Volume flows of CW become mass flows at the inlet water's density.
   const density = waterDensity(cwInletK, 'cwInletTemperature.value');
   const flow = (f: { value: number; unit: string } | null | undefined, field: string) =>

@@ -4,6 +4,8 @@ import './messages';
 import { fieldLabel } from './field-labels';
 import { checkKeys, type CheckKey } from '../calc/check-catalog';
 import { tubeGauges, tubeMaterials } from '../calc/hei';
+import { plausibleCatalog, plausibleKeys, type PlausibleKey, type PlausibleRanges } from '../calc/plausibility';
+import { plausibleSettingUnits } from '../plausibility-display';
 
 const positive = (what: string) => z.number({ message: `Enter the ${what}` }).finite().positive(`The ${what} must be above zero`);
 const optionalPositive = (what: string) => positive(what).nullable().optional();
@@ -50,8 +52,25 @@ export const limitBandSchema = z
 
 export const limitSetSchema = z.partialRecord(z.enum(checkKeys as [CheckKey, ...CheckKey[]]), limitBandSchema);
 
+/** One plausible range in SI; messages in the units the setup page shows. */
+const plausibleRangeSchema = (key: PlausibleKey) => {
+  const { label, settable } = plausibleCatalog[key];
+  const units = plausibleSettingUnits(key);
+  const end = z.number({ message: 'Enter a number' }).finite('Enter a number');
+  const allowed = `${units.toShown(settable.low)} to ${units.toShown(settable.high)} ${units.unit}`;
+  return z
+    .object({ low: end, high: end })
+    .refine((r) => r.low >= settable.low && r.low <= settable.high, { path: ['low'], message: `${label}: the low end must lie within ${allowed}` })
+    .refine((r) => r.high >= settable.low && r.high <= settable.high, { path: ['high'], message: `${label}: the high end must lie within ${allowed}` })
+    .refine((r) => r.low < r.high, { path: ['high'], message: `${label}: the high end must be above the low end` });
+};
+export const plausibleRangesSchema = z.object(
+  Object.fromEntries(plausibleKeys.map((key) => [key, plausibleRangeSchema(key)])) as Record<PlausibleKey, ReturnType<typeof plausibleRangeSchema>>,
+) as unknown as z.ZodType<PlausibleRanges>;
+
 export const newDesignVersionSchema = z.object({ design: unitDesignSchema, note: z.string().trim().min(3, 'Say what changed and why').max(500) });
 export const newLimitVersionSchema = z.object({ limits: limitSetSchema, note: z.string().trim().min(3, 'Say what changed and why').max(500) });
+export const newPlausibleVersionSchema = z.object({ ranges: plausibleRangesSchema, note: z.string().trim().min(3, 'Say what changed and why').max(500) });
 
 /** A unit as pickers and pages list it, with its station's time zone (times are shown and typed in it). */
 export type UnitSummary = { id: number; code: string; name: string; stationId: number; station: string; timeZone: string };

@@ -8,6 +8,8 @@ export class ApiError extends Error {
     readonly code: string,
     message: string,
     readonly fields: FieldErrors = {},
+    /** Anything else the server sent for the form to act on (e.g. what to confirm). */
+    readonly details?: unknown,
   ) {
     super(message);
   }
@@ -51,7 +53,7 @@ async function send<T>(method: Method, path: string, body?: unknown, retried = f
   }
   if (response.status === 204) return undefined as T;
   const payload = (await response.json().catch(() => null)) as
-    | { error?: { code: string; message: string; fields?: FieldErrors } }
+    | { error?: { code: string; message: string; fields?: FieldErrors; details?: unknown } }
     | null;
   if (response.ok) return payload as T;
   const error = payload?.error;
@@ -66,6 +68,7 @@ async function send<T>(method: Method, path: string, body?: unknown, retried = f
     error?.code ?? 'HTTP_' + response.status,
     error?.message ?? `The server answered ${response.status}`,
     error?.fields ?? {},
+    error?.details,
   );
 }
 

@@ -57,7 +57,8 @@ describe('historian CSV import', () => {
     const invalid = preview.body.rows.filter((r: { status: string }) => r.status === 'invalid');
     expect(invalid.map((r: { row: number }) => r.row)).toEqual([5, 6, 7]);
     expect(invalid[0].errors.time).toMatch(/date-time/);
-    expect(invalid[1].errors['pressure.value']).toMatch(/above zero/);
+    // Below the triple point of water (611.657 Pa, IAPWS), in the column's unit.
+    expect(invalid[1].errors.pressure).toBe('Condenser absolute pressure must be between 0.612 kPa a and 200 kPa a');
     expect(invalid[2].errors.hotwellTemperature).toBeTruthy();
     expect(await ReadingSet.count({ where: { unitId } })).toBe(0);
   });

@@ -27,6 +27,7 @@ const publishes: Record<string, LiveEntity | null> = {
   'POST /:id/reactivate': 'people',
   'POST /units/:unitId/design-versions': 'plant',
   'POST /units/:unitId/limit-versions': 'plant',
+  'POST /units/:unitId/plausible-range-versions': 'plant',
   'POST /units/:unitId/equipment': 'plant',
   'POST /condenser': null, // the scratch-pad calculation saves nothing
   'POST /units/:unitId/readings': 'reading',
@@ -177,6 +178,8 @@ describe('each kind of record goes live from its service', () => {
     const design = await a.admin.get(`/api/plant/units/${unitId}/setup`);
     expect(design.status).toBe(200);
     expect(kinds(await eventsOf(() => post(a.admin, `/api/plant/units/${unitId}/equipment`, { tag: `T-${Date.now() % 100000}`, name: 'Test pump', kind: 'cw_pump' }), 201))).toEqual([`plant@${unitId}`]);
+    const ranges = design.body.plausible.data;
+    expect(kinds(await eventsOf(() => post(a.admin, `/api/plant/units/${unitId}/plausible-range-versions`, { ranges, note: 'Same ranges, recorded' }), 201))).toEqual([`plant@${unitId}`]);
     expect(kinds(await eventsOf(() => post(a.admin, '/api/admin/users', { name: 'New Person', email: `new.${Date.now()}@test.example`, role: 'operator', crewId: null, temporaryPassword: 'a long temporary password 1' }), 201))).toEqual(['people']);
     const settings = (await a.admin.get(`/api/stations/${stationId}/settings`).expect(200)).body.settings;
     expect(kinds(await eventsOf(() => a.admin.put(`/api/stations/${stationId}/settings`).set('X-CSRF-Token', a.admin.csrf).send({ ...settings, lateEntryMinutes: 45 }), 200))).toEqual(['station_settings']);

@@ -15,6 +15,7 @@ const routes: [method: 'get' | 'post' | 'patch' | 'put', path: string][] = [
   ['get', '/api/plant/units/1/setup'],
   ['post', '/api/plant/units/1/design-versions'],
   ['post', '/api/plant/units/1/limit-versions'],
+  ['post', '/api/plant/units/1/plausible-range-versions'],
   ['post', '/api/plant/units/1/equipment'],
   ['post', '/api/calc/condenser'],
   ['get', '/api/calc/units/1/condenser-design'],

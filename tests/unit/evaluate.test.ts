@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { evaluateReadingSet, type CondenserDesignSi, type ReadingSetSi } from '../../shared/calc/evaluate';
 import { startingLimits } from '../../shared/calc/limits';
+import { widestPlausibleRanges } from '../fixtures/widest-plausible-ranges';
 import { handBuiltDesign } from '../fixtures/hand-built-design';
 
 const C = (celsius: number) => celsius + 273.15;
@@ -12,7 +13,7 @@ const designReading: ReadingSetSi = { pressurePa: 8000, hotwellK: C(41.3), cwInl
 
 describe('evaluateReadingSet', () => {
   it('at design conditions: expected = design backpressure within 1 %, cleanliness ≈ design, no cost', () => {
-    const { checks } = evaluateReadingSet(designReading, design, startingLimits);
+    const { checks } = evaluateReadingSet(designReading, design, startingLimits, widestPlausibleRanges);
     expect(Math.abs(checks.expectedBackpressure.value! - 8000) / 8000).toBeLessThan(0.01);
     expect(checks.cleanlinessFactor.value!).toBeCloseTo(0.9, 2);
     expect(Math.abs(checks.deviationCostPower.value!)).toBeLessThan(0.05e6);
@@ -21,7 +22,7 @@ describe('evaluateReadingSet', () => {
   });
 
   it('gives every result its SI unit and a status', () => {
-    const { checks } = evaluateReadingSet(designReading, design, startingLimits);
+    const { checks } = evaluateReadingSet(designReading, design, startingLimits, widestPlausibleRanges);
     expect(checks.backpressure).toMatchObject({ unit: 'Pa', status: 'normal' });
     expect(checks.saturationTemperature.unit).toBe('K');
     expect(checks.duty.unit).toBe('W');
@@ -30,7 +31,7 @@ describe('evaluateReadingSet', () => {
 
   it('flags a fouled condenser and hints at fouling, as a possibility', () => {
     // Same duty and water, but 11 kPa a: TTD and deviation rise while the CW rise is unchanged.
-    const { checks, hints } = evaluateReadingSet({ ...designReading, pressurePa: 11_000 }, design, startingLimits);
+    const { checks, hints } = evaluateReadingSet({ ...designReading, pressurePa: 11_000 }, design, startingLimits, widestPlausibleRanges);
     expect(checks.ttd.status).not.toBe('normal');
     expect(checks.backpressureDeviation.status).toBe('alarm');
     expect(checks.deviationCostPower.value!).toBeGreaterThan(0);
@@ -39,23 +40,23 @@ describe('evaluateReadingSet', () => {
   });
 
   it('hints at air in-leakage when subcooling and dissolved oxygen are both high', () => {
-    const { hints } = evaluateReadingSet({ ...designReading, hotwellK: C(37), dissolvedOxygenPpb: 55 }, design, startingLimits);
+    const { hints } = evaluateReadingSet({ ...designReading, hotwellK: C(37), dissolvedOxygenPpb: 55 }, design, startingLimits, widestPlausibleRanges);
     expect(hints.map((h) => h.id)).toContain('air-in-leakage');
   });
 
   it('hints at low CW flow when the rise is high', () => {
-    const { hints } = evaluateReadingSet({ ...designReading, cwOutletK: C(35), cwFlowKgS: 10_000 }, design, startingLimits);
+    const { hints } = evaluateReadingSet({ ...designReading, cwOutletK: C(35), cwFlowKgS: 10_000 }, design, startingLimits, widestPlausibleRanges);
     expect(hints.map((h) => h.id)).toContain('low-cw-flow');
   });
 
   it('uses the steam side when CW flow is missing, and says so', () => {
-    const { checks } = evaluateReadingSet({ ...designReading, cwFlowKgS: null, steamFlowKgS: 253 }, design, startingLimits);
+    const { checks } = evaluateReadingSet({ ...designReading, cwFlowKgS: null, steamFlowKgS: 253 }, design, startingLimits, widestPlausibleRanges);
     expect(checks.duty.reason).toMatch(/steam side/);
     expect(checks.duty.value).toBeGreaterThan(0);
   });
 
   it('leaves dependent results absent, with the reason, when an optional input is missing', () => {
-    const { checks } = evaluateReadingSet({ ...designReading, cwFlowKgS: null }, design, startingLimits);
+    const { checks } = evaluateReadingSet({ ...designReading, cwFlowKgS: null }, design, startingLimits, widestPlausibleRanges);
     expect(checks.duty.value).toBeNull();
     expect(checks.duty.reason).toMatch(/CW flow/);
     expect(checks.overallU).toMatchObject({ value: null, status: 'unknown', reason: 'needs the duty' });
@@ -73,6 +74,7 @@ describe('evaluateReadingSet', () => {
       },
       design,
       startingLimits,
+      widestPlausibleRanges,
     );
     expect(checks.wetBulb.value! - 273.15).toBeGreaterThan(19);
     expect(checks.towerRange.value).toBeCloseTo(rise, 6);
@@ -82,7 +84,7 @@ describe('evaluateReadingSet', () => {
   });
 
   it('reports an impossible reading as an absent check with the reason, not NaN', () => {
-    const { checks } = evaluateReadingSet({ ...designReading, cwOutletK: C(45) }, design, startingLimits);
+    const { checks } = evaluateReadingSet({ ...designReading, cwOutletK: C(45) }, design, startingLimits, widestPlausibleRanges);
     expect(checks.ttd.value!).toBeLessThan(0);
     expect(checks.lmtd).toMatchObject({ value: null, status: 'unknown' });
     expect(checks.lmtd.reason).toMatch(/TTD/);
@@ -112,6 +114,7 @@ describe('evaluateReadingSet', () => {
             },
             design,
             startingLimits,
+            widestPlausibleRanges,
           );
           return Object.values(checks).every((c) => c.value === null || Number.isFinite(c.value));
         },

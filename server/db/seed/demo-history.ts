@@ -50,8 +50,10 @@ export function demoRound(design: UnitDesign, hour: number, fouling: boolean, ne
     dissolvedOxygenPpb: round1(6 + next() * 4),
     tower: {
       coldWaterTemperature: { value: round1(inletC), unit: 'degC' },
-      dryBulbTemperature: { value: round1(inletC + 4 + next() * 2), unit: 'degC' },
-      relativeHumidityPercent: Math.round(45 + next() * 25),
+      // Air a little cooler than the basin and fairly humid: the approach stays near the tower's 6 K
+      // design (2.4–6.9 K), inside its plausible range and below the watch limit.
+      dryBulbTemperature: { value: round1(inletC - 1 + next() * 2), unit: 'degC' },
+      relativeHumidityPercent: Math.round(55 + next() * 15),
       makeupConductivity: { value: 420, unit: 'uS_cm' },
       basinConductivity: { value: Math.round(2000 + next() * 200), unit: 'uS_cm' },
       targetCycles: 5,
@@ -79,7 +81,8 @@ export async function seedDemoHistory(
         // Written up a few minutes after the walk, countersigned before the next round.
         const recordedAt = new Date(takenAt.getTime() + (4 + (hour % 5)) * 60_000);
         const { reading } = await storeReading(
-          { unitId: unit.id, takenAt, recordedAt, raw, si: convertReadingSet(raw), actor: by.recorder, source: 'round', importKey: null },
+          // Nothing confirmed: the invented history must stay inside the starting plausible ranges.
+          { unitId: unit.id, takenAt, recordedAt, raw, si: convertReadingSet(raw), actor: by.recorder, source: 'round', importKey: null, confirmed: [] },
           transaction,
         );
         stored += 1;

@@ -4,7 +4,7 @@ import { readingSetInputSchema } from '../../../shared/schemas/reading-set';
 import { signedIn } from '../../lib/auth';
 import { convertReadingSet } from '../../lib/convert-readings';
 import { parseId, parseInput } from '../../lib/validate';
-import { designInForce, limitsInForce, requireUnit } from '../plant/versions';
+import { designInForce, limitsInForce, plausibleInForce, requireUnit } from '../plant/versions';
 
 export function calcRoutes(): Router {
   const router = Router();
@@ -15,17 +15,17 @@ export function calcRoutes(): Router {
     const input = parseInput(readingSetInputSchema, req.body);
     const si = convertReadingSet(input);
     await requireUnit(input.unitId);
-    const [design, limits] = await Promise.all([designInForce(input.unitId), limitsInForce(input.unitId)]);
-    const evaluation = evaluateReadingSet(si, design.data, limits.limits);
-    res.json({ ...evaluation, designVersionId: design.id, limitVersionId: limits.id, inputsSi: si });
+    const [design, limits, plausible] = await Promise.all([designInForce(input.unitId), limitsInForce(input.unitId), plausibleInForce(input.unitId)]);
+    const evaluation = evaluateReadingSet(si, design.data, limits.limits, plausible.ranges);
+    res.json({ ...evaluation, designVersionId: design.id, limitVersionId: limits.id, plausibleVersionId: plausible.versionId, inputsSi: si });
   });
 
-  /** The design data and limits in force now: what the client needs to compute live. */
+  /** The design data, limits and plausible ranges in force now: what the client needs to compute live. */
   router.get('/units/:unitId/condenser-design', async (req, res) => {
     const unitId = parseId(req.params.unitId, 'unitId');
     await requireUnit(unitId);
-    const [design, limits] = await Promise.all([designInForce(unitId), limitsInForce(unitId)]);
-    res.json({ design: design.data, limits: limits.limits, designVersionId: design.id, limitVersionId: limits.id });
+    const [design, limits, plausible] = await Promise.all([designInForce(unitId), limitsInForce(unitId), plausibleInForce(unitId)]);
+    res.json({ design: design.data, limits: limits.limits, plausible: plausible.ranges, designVersionId: design.id, limitVersionId: limits.id, plausibleVersionId: plausible.versionId });
   });
 
   return router;

@@ -177,14 +177,18 @@ export function makeImportService(sequelize: Sequelize) {
   async function commit(actor: { id: number; role: string }, unitId: number, buffer: Buffer, mapping: ImportMapping) {
     const analysis = await analyseImport(unitId, buffer, mapping);
     let flagsRaised = 0;
+    let outsidePlausible = 0;
     // All valid rows or none: a failure part-way leaves nothing half-imported.
     await sequelize.transaction(async (transaction) => {
       for (const row of analysis.valid) {
         const stored = await storeReading(
-          { unitId, takenAt: row.takenAt, raw: row.raw, si: row.si, actor, source: 'import', importKey: row.takenAt.toISOString() },
+          // History is taken as the historian kept it: a row outside the plausible range is stored
+          // marked (and its derived checks withheld) rather than refused, as nobody is there to confirm it.
+          { unitId, takenAt: row.takenAt, raw: row.raw, si: row.si, actor, source: 'import', importKey: row.takenAt.toISOString(), confirmed: 'all' },
           transaction,
         );
         flagsRaised += stored.flagsRaised;
+        if (stored.reading.outsidePlausible.length) outsidePlausible += 1;
       }
       const [mappingRow] = await ImportMappingRow.findOrCreate({
         where: { unitId, source: mapping.source },
@@ -193,7 +197,7 @@ export function makeImportService(sequelize: Sequelize) {
       });
       await mappingRow.update({ mapping, updatedBy: actor.id, updatedAt: new Date() }, { transaction });
       await recordAudit(
-        { actorId: actor.id, action: 'import.commit', entity: 'unit', entityId: unitId, after: { source: mapping.source, ...analysis.counts } },
+        { actorId: actor.id, action: 'import.commit', entity: 'unit', entityId: unitId, after: { source: mapping.source, ...analysis.counts, outsidePlausible } },
         transaction,
       );
       publish(transaction, { entity: 'import', id: unitId, unitId });
@@ -201,6 +205,8 @@ export function makeImportService(sequelize: Sequelize) {
     return {
       timeZone: analysis.timeZone,
       imported: analysis.valid.length,
+      /** Rows stored marked "outside plausible range". */
+      outsidePlausible,
       flagsRaised,
       counts: analysis.counts,
       problems: analysis.reports.filter((r) => r.status !== 'valid').slice(0, 500),

@@ -1,6 +1,6 @@
 // The logbook search index: one row in logbook_documents per searchable record (log entries and
 // their amendments, standing orders, handover notes, items, questions and amendments, flags,
-// abnormal or amended rounds, time-limited conditions). Each kind is one INSERT … SELECT from its
+// abnormal, implausible or amended rounds, time-limited conditions). Each kind is one INSERT … SELECT from its
 // own table, used both to rebuild everything and to refresh single rows, so there is one
 // definition of what a document holds. The crew and shift come from the station's rotation.
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
@@ -9,6 +9,7 @@ import { stationShiftSetup } from '../stations/settings';
 import { CrewSwap } from '../shifts/model';
 import { crewFromRotation } from '../shifts/crews';
 import { checkCatalog } from '../../../shared/calc/check-catalog';
+import { plausibleCatalog } from '../../../shared/calc/plausibility';
 
 export const documentKinds = [
   'log_entry',
@@ -28,6 +29,12 @@ const sqlText = (text: string) => `'${text.replace(/'/g, "''")}'`;
 /** A check's key (cleanlinessFactor) as the words people read and search (Cleanliness factor). */
 const checkLabel = (column: string) =>
   `CASE ${column} ${Object.entries(checkCatalog).map(([key, check]) => `WHEN ${sqlText(key)} THEN ${sqlText(check.label)}`).join(' ')} ELSE ${column} END`;
+
+/** A plausible-range key (cwFlow) as the words people read (CW flow). */
+const plausibleLabel = (column: string) =>
+  `CASE ${column} ${Object.entries(plausibleCatalog).map(([key, p]) => `WHEN ${sqlText(key)} THEN ${sqlText(p.label)}`).join(' ')} ELSE ${column} END`;
+/** The round's current mark: its latest amendment's, else its own. */
+const CURRENT_MARK = `COALESCE((SELECT a.outside_plausible FROM reading_amendments a WHERE a.reading_set_id = r.id ORDER BY a.id DESC LIMIT 1), r.outside_plausible)`;
 
 const COLUMNS = ['kind', 'ref_id', 'unit_id', 'station_id', 'occurred_at', 'shift_start', 'crew_id', 'person_id', 'severity', 'title', 'body'] as const;
 type Column = (typeof COLUMNS)[number];
@@ -86,16 +93,18 @@ const sources: Record<DocumentKind, string> = {
       body: "CONCAT_WS(' · ', f.comment, f.follow_up, f.clear_comment, CONCAT(f.severity, ', ', f.status))" },
     'FROM flags f JOIN units u ON u.id = f.unit_id WHERE {ids:f.id}',
   ),
-  // Only rounds with something to find: outside limits, or amended.
+  // Only rounds with something to find: outside limits, outside the plausible range, or amended.
   round: source(
     'round',
     { ref_id: 'r.id', unit_id: 'r.unit_id', station_id: 'u.station_id', occurred_at: 'r.taken_at', shift_start: 'NULL', crew_id: 'NULL', person_id: 'r.recorded_by', severity: 'r.worst_status',
-      title: "CONCAT('Round: ', r.worst_status)",
+      title: `CONCAT('Round: ', r.worst_status, IF(JSON_LENGTH(${CURRENT_MARK}) > 0, ' · outside plausible range', ''))`,
       body: `CONCAT_WS(' ',
         (SELECT GROUP_CONCAT(CONCAT(${checkLabel('v.parameter')}, ': ', v.status) SEPARATOR ', ') FROM reading_values v WHERE v.reading_set_id = r.id AND v.status IN ('watch', 'alarm')),
+        (SELECT CONCAT('Outside plausible range: ', GROUP_CONCAT(${plausibleLabel('m.k')} SEPARATOR ', '))
+           FROM JSON_TABLE(${CURRENT_MARK}, '$[*]' COLUMNS (k VARCHAR(40) PATH '$')) m),
         (SELECT GROUP_CONCAT(CONCAT('Amendment: ', a.reason) SEPARATOR ' ') FROM reading_amendments a WHERE a.reading_set_id = r.id))` },
     `FROM reading_sets r JOIN units u ON u.id = r.unit_id
-     WHERE (r.worst_status IN ('watch', 'alarm') OR EXISTS (SELECT 1 FROM reading_amendments a WHERE a.reading_set_id = r.id)) AND {ids:r.id}`,
+     WHERE (r.worst_status IN ('watch', 'alarm') OR JSON_LENGTH(r.outside_plausible) > 0 OR EXISTS (SELECT 1 FROM reading_amendments a WHERE a.reading_set_id = r.id)) AND {ids:r.id}`,
   ),
   condition: source(
     'condition',
@@ -130,7 +139,7 @@ export async function indexDocuments(sequelize: Sequelize, kind: DocumentKind, i
   if (kind === 'round' && ids) {
     await sequelize.query(
       `DELETE d FROM logbook_documents d JOIN reading_sets r ON r.id = d.ref_id
-       WHERE d.kind = 'round' AND d.ref_id IN (${ids.map(Number).join(',')}) AND r.worst_status NOT IN ('watch', 'alarm')
+       WHERE d.kind = 'round' AND d.ref_id IN (${ids.map(Number).join(',')}) AND r.worst_status NOT IN ('watch', 'alarm') AND JSON_LENGTH(r.outside_plausible) = 0
          AND NOT EXISTS (SELECT 1 FROM reading_amendments a WHERE a.reading_set_id = r.id)`,
       { transaction: transaction ?? undefined },
     );

@@ -1,4 +1,5 @@
 import type { LimitSet } from '../../../shared/calc/limits';
+import type { PlausibleRanges } from '../../../shared/calc/plausibility';
 import type { UnitDesign } from '../../../shared/schemas/plant';
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 
@@ -63,6 +64,17 @@ export class LimitSetVersion extends Model<InferAttributes<LimitSetVersion>, Inf
   declare createdAt: CreationOptional<Date>;
 }
 
+/** One version of a unit's plausible ranges (SI; flows as fractions of design). Never updated: a change is a new version. */
+export class PlausibleRangeVersion extends Model<InferAttributes<PlausibleRangeVersion>, InferCreationAttributes<PlausibleRangeVersion>> {
+  declare id: CreationOptional<number>;
+  declare unitId: number;
+  declare effectiveFrom: Date;
+  declare ranges: PlausibleRanges;
+  declare note: string | null;
+  declare createdBy: number | null;
+  declare createdAt: CreationOptional<Date>;
+}
+
 export function initPlantModels(sequelize: Sequelize) {
   Station.init(
     { id: pk, code: DataTypes.STRING(16), name: DataTypes.STRING(120), ...timestamps },
@@ -102,5 +114,9 @@ export function initPlantModels(sequelize: Sequelize) {
   LimitSetVersion.init(
     { ...versionColumns, limits: DataTypes.JSON },
     { sequelize, tableName: 'limit_set_versions', updatedAt: false },
+  );
+  PlausibleRangeVersion.init(
+    { ...versionColumns, ranges: DataTypes.JSON },
+    { sequelize, tableName: 'plausible_range_versions', updatedAt: false },
   );
 }

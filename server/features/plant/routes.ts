@@ -1,15 +1,15 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { newDesignVersionSchema, newLimitVersionSchema } from '../../../shared/schemas/plant';
+import { newDesignVersionSchema, newLimitVersionSchema, newPlausibleVersionSchema } from '../../../shared/schemas/plant';
 import { allow, signedIn } from '../../lib/auth';
 import { recordAudit } from '../../lib/audit';
 import { publish } from '../../lib/live';
 import { ValidationError } from '../../lib/errors';
 import { parseId, parseInput } from '../../lib/validate';
 import { User } from '../users/model';
-import { Crew, Equipment, LimitSetVersion, UnitDesignVersion } from './model';
+import { Crew, Equipment, LimitSetVersion, PlausibleRangeVersion, UnitDesignVersion } from './model';
 import { listUnits } from './unit-list';
-import { designInForce, limitsInForce, requireUnit, type VersionService } from './versions';
+import { designInForce, limitsInForce, plausibleInForce, requireUnit, type VersionService } from './versions';
 import type { Sequelize } from 'sequelize';
 import { UniqueConstraintError } from 'sequelize';
 
@@ -42,14 +42,17 @@ export function plantRoutes(sequelize: Sequelize, versions: VersionService): Rou
   router.get('/units/:unitId/setup', async (req, res) => {
     const unitId = parseId(req.params.unitId, 'unitId');
     const unit = await requireUnit(unitId);
-    const [design, limits, designHistory, limitHistory, equipment] = await Promise.all([
+    const historyOf = { where: { unitId }, order: [['effectiveFrom', 'DESC'], ['id', 'DESC']] as [string, string][], attributes: ['id', 'effectiveFrom', 'note', 'createdBy'] };
+    const [design, limits, plausible, designHistory, limitHistory, plausibleHistory, equipment] = await Promise.all([
       designInForce(unitId),
       limitsInForce(unitId),
-      UnitDesignVersion.findAll({ where: { unitId }, order: [['effectiveFrom', 'DESC'], ['id', 'DESC']], attributes: ['id', 'effectiveFrom', 'note', 'createdBy'] }),
-      LimitSetVersion.findAll({ where: { unitId }, order: [['effectiveFrom', 'DESC'], ['id', 'DESC']], attributes: ['id', 'effectiveFrom', 'note', 'createdBy'] }),
+      plausibleInForce(unitId),
+      UnitDesignVersion.findAll(historyOf),
+      LimitSetVersion.findAll(historyOf),
+      PlausibleRangeVersion.findAll(historyOf),
       Equipment.findAll({ where: { unitId }, order: [['kind', 'ASC'], ['tag', 'ASC']] }),
     ]);
-    const authorIds = [...new Set([...designHistory, ...limitHistory].map((v) => v.createdBy).filter((id): id is number => id !== null))];
+    const authorIds = [...new Set([...designHistory, ...limitHistory, ...plausibleHistory].map((v) => v.createdBy).filter((id): id is number => id !== null))];
     const authors = new Map((await User.findAll({ where: { id: authorIds }, attributes: ['id', 'name'] })).map((u) => [u.id, u.name]));
     const history = (v: { id: number; effectiveFrom: Date; note: string | null; createdBy: number | null }) => ({
       id: v.id,
@@ -61,8 +64,11 @@ export function plantRoutes(sequelize: Sequelize, versions: VersionService): Rou
       unit: { id: unit.id, code: unit.code, name: unit.name },
       design: { versionId: design.id, data: design.data },
       limits: { versionId: limits.id, data: limits.limits },
+      // versionId null: the unit has no ranges of its own yet and the starting ranges apply.
+      plausible: { versionId: plausible.versionId, data: plausible.ranges },
       designHistory: designHistory.map(history),
       limitHistory: limitHistory.map(history),
+      plausibleHistory: plausibleHistory.map(history),
       equipment: equipment.map((e) => ({ id: e.id, kind: e.kind, tag: e.tag, name: e.name })),
     });
   });
@@ -76,6 +82,12 @@ export function plantRoutes(sequelize: Sequelize, versions: VersionService): Rou
   router.post('/units/:unitId/limit-versions', allow('plant.manage'), async (req, res) => {
     const input = parseInput(newLimitVersionSchema, req.body);
     const created = await versions.addLimitVersion(req.user!.id, parseId(req.params.unitId, 'unitId'), input.limits, input.note);
+    res.status(201).json({ versionId: created.id });
+  });
+
+  router.post('/units/:unitId/plausible-range-versions', allow('plant.manage'), async (req, res) => {
+    const input = parseInput(newPlausibleVersionSchema, req.body);
+    const created = await versions.addPlausibleVersion(req.user!.id, parseId(req.params.unitId, 'unitId'), input.ranges, input.note);
     res.status(201).json({ versionId: created.id });
   });
 

@@ -1,13 +1,14 @@
 // Which design data and limits were in force at a moment, and how new versions are made.
 import { Op, type Sequelize, type Transaction } from 'sequelize';
 import type { LimitSet } from '../../../shared/calc/limits';
+import { startingPlausibleRanges, type PlausibleRanges } from '../../../shared/calc/plausibility';
 import type { UnitDesign } from '../../../shared/schemas/plant';
 import { stationLocalLabel } from '../../../shared/shift-time';
 import { recordAudit } from '../../lib/audit';
 import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
 import { NotFound } from '../../lib/errors';
-import { LimitSetVersion, PlantUnit, UnitDesignVersion } from './model';
+import { LimitSetVersion, PlantUnit, PlausibleRangeVersion, UnitDesignVersion } from './model';
 
 const inForce = (unitId: number, at: Date) => ({
   where: { unitId, effectiveFrom: { [Op.lte]: at } },
@@ -27,6 +28,17 @@ export async function limitsInForce(unitId: number, at = new Date(), transaction
   const version = await LimitSetVersion.findOne({ ...inForce(unitId, at), transaction });
   if (!version) throw new NotFound('A limit set in force for that unit and time');
   return version;
+}
+
+export type PlausibleInForce = { versionId: number | null; ranges: PlausibleRanges };
+
+/**
+ * The plausible ranges in force at a moment; a unit that has none of its own yet (or a moment before
+ * its first) uses the starting ranges, so no reading goes unchecked.
+ */
+export async function plausibleInForce(unitId: number, at = new Date(), transaction?: Transaction): Promise<PlausibleInForce> {
+  const version = await PlausibleRangeVersion.findOne({ ...inForce(unitId, at), transaction });
+  return version ? { versionId: version.id, ranges: version.ranges } : { versionId: null, ranges: startingPlausibleRanges };
 }
 
 export type VersionStarts = { design: Date | null; limits: Date | null };
@@ -92,6 +104,20 @@ export function makeVersionService(sequelize: Sequelize) {
     });
   }
 
-  return { addDesignVersion, addLimitVersion };
+  async function addPlausibleVersion(actorId: number, unitId: number, ranges: PlausibleRanges, note: string) {
+    await requireUnit(unitId);
+    return unitOfWork(sequelize, async (transaction) => {
+      const before = await plausibleInForce(unitId, new Date(), transaction);
+      const created = await PlausibleRangeVersion.create({ unitId, effectiveFrom: new Date(), ranges, note, createdBy: actorId }, { transaction });
+      await recordAudit(
+        { actorId, action: 'plausible_ranges.new_version', entity: 'unit', entityId: unitId, before: before.ranges, after: { versionId: created.id, note, ranges } },
+        transaction,
+      );
+      publish(transaction, { entity: 'plant', id: created.id, unitId });
+      return created;
+    });
+  }
+
+  return { addDesignVersion, addLimitVersion, addPlausibleVersion };
 }
 export type VersionService = ReturnType<typeof makeVersionService>;

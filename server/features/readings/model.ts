@@ -1,6 +1,7 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 import type { Evaluation, ReadingSetSi } from '../../../shared/calc/evaluate';
 import type { Status } from '../../../shared/calc/limits';
+import type { PlausibleKey } from '../../../shared/calc/plausibility';
 import type { ReadingSetInput } from '../../../shared/schemas/reading-set';
 
 export type ReadingSource = 'round' | 'import';
@@ -17,10 +18,14 @@ export class ReadingSet extends Model<InferAttributes<ReadingSet>, InferCreation
   declare importKey: string | null;
   declare designVersionId: number;
   declare limitVersionId: number;
+  /** Null: judged by the starting plausible ranges (the unit had none of its own then). */
+  declare plausibleVersionId: number | null;
   declare raw: ReadingSetInput;
   declare si: ReadingSetSi;
   declare results: Evaluation;
   declare worstStatus: Status;
+  /** Readings and checks the recorder confirmed outside the plausible range; [] when none. */
+  declare outsidePlausible: CreationOptional<PlausibleKey[]>;
 }
 
 /** A correction: the new values with who, when and why. The original stays as it was. */
@@ -34,6 +39,7 @@ export class ReadingAmendment extends Model<InferAttributes<ReadingAmendment>, I
   declare si: ReadingSetSi;
   declare results: Evaluation;
   declare worstStatus: Status;
+  declare outsidePlausible: CreationOptional<PlausibleKey[]>;
 }
 
 export class ReadingCountersign extends Model<InferAttributes<ReadingCountersign>, InferCreationAttributes<ReadingCountersign>> {
@@ -50,6 +56,8 @@ export class ReadingValue extends Model<InferAttributes<ReadingValue>, InferCrea
   declare takenAt: Date;
   declare value: number;
   declare status: Status;
+  /** This check's value lies outside the plausible range: trends leave it out of the axis. */
+  declare outsidePlausible: CreationOptional<boolean>;
 }
 
 const statusType = DataTypes.ENUM('normal', 'watch', 'alarm', 'unknown');
@@ -69,10 +77,12 @@ export function initReadingModels(sequelize: Sequelize) {
       importKey: DataTypes.STRING(64),
       designVersionId: DataTypes.INTEGER.UNSIGNED,
       limitVersionId: DataTypes.INTEGER.UNSIGNED,
+      plausibleVersionId: DataTypes.INTEGER.UNSIGNED,
       raw: DataTypes.JSON,
       si: DataTypes.JSON,
       results: DataTypes.JSON,
       worstStatus: statusType,
+      outsidePlausible: { type: DataTypes.JSON, defaultValue: [] },
     },
     { sequelize, tableName: 'reading_sets', timestamps: false },
   );
@@ -87,6 +97,7 @@ export function initReadingModels(sequelize: Sequelize) {
       si: DataTypes.JSON,
       results: DataTypes.JSON,
       worstStatus: statusType,
+      outsidePlausible: { type: DataTypes.JSON, defaultValue: [] },
     },
     { sequelize, tableName: 'reading_amendments', timestamps: false },
   );
@@ -106,6 +117,7 @@ export function initReadingModels(sequelize: Sequelize) {
       takenAt: DataTypes.DATE(3),
       value: DataTypes.DOUBLE,
       status: statusType,
+      outsidePlausible: { type: DataTypes.BOOLEAN, defaultValue: false },
     },
     { sequelize, tableName: 'reading_values', timestamps: false },
   );

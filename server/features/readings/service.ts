@@ -1,18 +1,20 @@
 // Rounds: record a reading set, correct it by amendment, countersign a trainee's round.
 import { Op, type Sequelize, type Transaction } from 'sequelize';
 import type { ReadingSetSi } from '../../../shared/calc/evaluate';
+import type { PlausibleKey } from '../../../shared/calc/plausibility';
+import { describeImplausible, noticesByField } from '../../../shared/plausibility-display';
 import type { ReadingSetInput } from '../../../shared/schemas/reading-set';
 import type { AmendReadingInput, RecordReadingInput } from '../../../shared/schemas/readings';
 import { recordAudit } from '../../lib/audit';
 import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
-import { Conflict, Forbidden, NotFound, ValidationError } from '../../lib/errors';
+import { ConfirmationRequired, Conflict, Forbidden, NotFound, ValidationError } from '../../lib/errors';
 import { convertReadingSet } from '../../lib/convert-readings';
 import { refreshAutomaticFlags } from '../flags/automatic';
 import { requireUnit, unjudgedReason, versionStarts } from '../plant/versions';
 import { settingsForStation } from '../stations/settings';
 import { User } from '../users/model';
-import { judgeAt, valueRows } from './evaluate-at';
+import { judgeAt, valueRows, type Judged } from './evaluate-at';
 import { ReadingAmendment, ReadingCountersign, ReadingSet, ReadingValue, type ReadingSource } from './model';
 
 const FUTURE_TOLERANCE_MS = 5 * 60 * 1000;
@@ -35,11 +37,35 @@ export type StoreReading = {
   importKey: string | null;
   /** When it was written down; now unless the record is older history (the demo scenario). */
   recordedAt?: Date;
+  /** What the recorder confirmed outside the plausible range; 'all' for history taken as it comes (imports). */
+  confirmed: readonly PlausibleKey[] | 'all';
 };
+
+/**
+ * Refuses a round with a reading or check outside the plausible range that the person did not
+ * confirm, with a message on each box in the units typed; returns the keys to mark the record with.
+ */
+function confirmedOutsidePlausible(judged: Judged, raw: ReadingSetInput, si: ReadingSetSi, confirmed: readonly PlausibleKey[] | 'all'): PlausibleKey[] {
+  const outside = judged.evaluation.implausible;
+  const unconfirmed = confirmed === 'all' ? [] : outside.filter((item) => !confirmed.includes(item.key));
+  if (unconfirmed.length) {
+    // The form asks the same question from `details.outside` (the ranges in force when the reading was
+    // taken are the word, which for an amendment of an old round may not be today's).
+    const notices = describeImplausible(unconfirmed, raw, si.cwInletK, judged.design);
+    throw new ConfirmationRequired(
+      'OUTSIDE_PLAUSIBLE_RANGE',
+      'Outside the plausible range for this unit: check the instruments, then confirm to save anyway',
+      noticesByField(notices, 'Confirm to save it anyway.'),
+      { outside: notices },
+    );
+  }
+  return outside.map((item) => item.key);
+}
 
 /** Stores one reading set with its derived values and automatic flags, inside `transaction`. */
 export async function storeReading(r: StoreReading, transaction: Transaction): Promise<{ reading: ReadingSet; flagsRaised: number }> {
   const judged = await judgeAt(r.unitId, r.takenAt, r.si, transaction);
+  const outsidePlausible = confirmedOutsidePlausible(judged, r.raw, r.si, r.confirmed);
   const reading = await ReadingSet.create(
     {
       unitId: r.unitId,
@@ -51,10 +77,12 @@ export async function storeReading(r: StoreReading, transaction: Transaction): P
       importKey: r.importKey,
       designVersionId: judged.designVersionId,
       limitVersionId: judged.limitVersionId,
+      plausibleVersionId: judged.plausibleVersionId,
       raw: r.raw,
       si: r.si,
       results: judged.evaluation,
       worstStatus: judged.worstStatus,
+      outsidePlausible,
     },
     { transaction },
   );
@@ -73,7 +101,7 @@ async function names(ids: (number | null | undefined)[]): Promise<Map<number, st
 export function makeReadingService(sequelize: Sequelize) {
   async function record(actor: Actor, unitId: number, input: RecordReadingInput) {
     const unit = await requireUnit(unitId);
-    const { takenAt: takenAtText, ...readings } = input;
+    const { takenAt: takenAtText, confirmOutsidePlausible, ...readings } = input;
     const takenAt = takenAtText ? new Date(takenAtText) : new Date();
     checkTakenAt(takenAt);
     const unjudged = unjudgedReason(takenAt, await versionStarts(unitId), (await settingsForStation(unit.stationId)).timeZone);
@@ -81,9 +109,13 @@ export function makeReadingService(sequelize: Sequelize) {
     const raw: ReadingSetInput = { ...readings, unitId };
     const si = convertReadingSet(raw);
     const { reading, flagsRaised } = await unitOfWork(sequelize, async (transaction) => {
-      const stored = await storeReading({ unitId, takenAt, raw, si, actor, source: 'round', importKey: null }, transaction);
+      const stored = await storeReading(
+        { unitId, takenAt, raw, si, actor, source: 'round', importKey: null, confirmed: confirmOutsidePlausible ?? [] },
+        transaction,
+      );
+      const { outsidePlausible } = stored.reading;
       await recordAudit(
-        { actorId: actor.id, action: 'reading.record', entity: 'reading_set', entityId: stored.reading.id, after: { unitId, takenAt, worstStatus: stored.reading.worstStatus } },
+        { actorId: actor.id, action: 'reading.record', entity: 'reading_set', entityId: stored.reading.id, after: { unitId, takenAt, worstStatus: stored.reading.worstStatus, outsidePlausible } },
         transaction,
       );
       publish(transaction, { entity: 'reading', id: stored.reading.id, unitId });
@@ -102,8 +134,9 @@ export function makeReadingService(sequelize: Sequelize) {
     await unitOfWork(sequelize, async (transaction) => {
       // Judged by the versions in force when the reading was taken, not today's.
       const judged = await judgeAt(original.unitId, original.takenAt, si, transaction);
+      const outsidePlausible = confirmedOutsidePlausible(judged, raw, si, input.confirmOutsidePlausible ?? []);
       const amendment = await ReadingAmendment.create(
-        { readingSetId, amendedBy: actor.id, amendedAt: new Date(), reason: input.reason, raw, si, results: judged.evaluation, worstStatus: judged.worstStatus },
+        { readingSetId, amendedBy: actor.id, amendedAt: new Date(), reason: input.reason, raw, si, results: judged.evaluation, worstStatus: judged.worstStatus, outsidePlausible },
         { transaction },
       );
       // The trend table follows the current version; the records themselves stay untouched.
@@ -111,7 +144,7 @@ export function makeReadingService(sequelize: Sequelize) {
       await ReadingValue.bulkCreate(valueRows(readingSetId, original.unitId, original.takenAt, judged.evaluation), { transaction });
       await refreshAutomaticFlags(original.unitId, readingSetId, original.takenAt, judged.evaluation, transaction);
       await recordAudit(
-        { actorId: actor.id, action: 'reading.amend', entity: 'reading_set', entityId: readingSetId, after: { amendmentId: amendment.id, reason: input.reason } },
+        { actorId: actor.id, action: 'reading.amend', entity: 'reading_set', entityId: readingSetId, after: { amendmentId: amendment.id, reason: input.reason, outsidePlausible } },
         transaction,
       );
       publish(transaction, { entity: 'reading', id: readingSetId, unitId: original.unitId });
@@ -167,6 +200,7 @@ function presentReading(reading: ReadingSet, amendments: ReadingAmendment[], cou
       raw: reading.raw,
       results: reading.results,
       worstStatus: reading.worstStatus,
+      outsidePlausible: reading.outsidePlausible,
     },
     amendments: amendments.map((a) => ({
       id: a.id,
@@ -176,8 +210,14 @@ function presentReading(reading: ReadingSet, amendments: ReadingAmendment[], cou
       raw: a.raw,
       results: a.results,
       worstStatus: a.worstStatus,
+      outsidePlausible: a.outsidePlausible,
     })),
-    current: { results: current?.results ?? reading.results, worstStatus: current?.worstStatus ?? reading.worstStatus, amended: Boolean(current) },
+    current: {
+      results: current?.results ?? reading.results,
+      worstStatus: current?.worstStatus ?? reading.worstStatus,
+      outsidePlausible: current?.outsidePlausible ?? reading.outsidePlausible,
+      amended: Boolean(current),
+    },
     countersign: countersign ? { by: who.get(countersign.signedBy) ?? `#${countersign.signedBy}`, at: countersign.signedAt.toISOString() } : null,
   };
 }
@@ -190,17 +230,19 @@ export async function listReadings(unitId: number, options: { before?: Date; lim
     where,
     order: [['takenAt', 'DESC'], ['id', 'DESC']],
     limit: options.limit,
-    attributes: ['id', 'takenAt', 'recordedBy', 'recordedAsTrainee', 'source', 'worstStatus', 'raw'],
+    attributes: ['id', 'takenAt', 'recordedBy', 'recordedAsTrainee', 'source', 'worstStatus', 'raw', 'outsidePlausible'],
   });
   const ids = readings.map((r) => r.id);
   const [amendments, countersigns] = await Promise.all([
-    ids.length ? ReadingAmendment.findAll({ where: { readingSetId: ids }, attributes: ['readingSetId', 'worstStatus', 'id'], order: [['id', 'ASC']] }) : [],
+    ids.length
+      ? ReadingAmendment.findAll({ where: { readingSetId: ids }, attributes: ['readingSetId', 'worstStatus', 'outsidePlausible', 'id'], order: [['id', 'ASC']] })
+      : [],
     ids.length ? ReadingCountersign.findAll({ where: { readingSetId: ids } }) : [],
   ]);
-  const latestAmendment = new Map<number, { count: number; worstStatus: string }>();
+  const latestAmendment = new Map<number, { count: number; worstStatus: string; outsidePlausible: PlausibleKey[] }>();
   for (const a of amendments) {
     const seen = latestAmendment.get(a.readingSetId);
-    latestAmendment.set(a.readingSetId, { count: (seen?.count ?? 0) + 1, worstStatus: a.worstStatus });
+    latestAmendment.set(a.readingSetId, { count: (seen?.count ?? 0) + 1, worstStatus: a.worstStatus, outsidePlausible: a.outsidePlausible });
   }
   const signed = new Set(countersigns.map((c) => c.readingSetId));
   const who = await names(readings.map((r) => r.recordedBy));
@@ -213,6 +255,7 @@ export async function listReadings(unitId: number, options: { before?: Date; lim
     source: r.source,
     worstStatus: latestAmendment.get(r.id)?.worstStatus ?? r.worstStatus,
     amendments: latestAmendment.get(r.id)?.count ?? 0,
+    outsidePlausible: latestAmendment.get(r.id)?.outsidePlausible ?? r.outsidePlausible,
     raw: r.raw,
   }));
 }

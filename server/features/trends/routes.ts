@@ -7,7 +7,7 @@ import { Flag } from '../flags/model';
 import { LimitSetVersion } from '../plant/model';
 import { requireUnit } from '../plant/versions';
 
-type Point = { t: Date; v: number; s: string };
+type Point = { t: Date; v: number; s: string; o: number };
 
 /** Time series of computed checks with the limit bands in force over the range and flag markers. */
 export function trendRoutes(sequelize: Sequelize): Router {
@@ -22,14 +22,15 @@ export function trendRoutes(sequelize: Sequelize): Router {
     const [series, versions, flags] = await Promise.all([
       Promise.all(
         q.parameters.map(async (parameter) => {
-          // Index-only range scan on (unit_id, parameter, taken_at, value, status).
+          // Index-only range scan on (unit_id, parameter, taken_at, value, status, outside_plausible).
           const rows = await sequelize.query<Point>(
-            `SELECT taken_at AS t, value AS v, status AS s FROM reading_values
+            `SELECT taken_at AS t, value AS v, status AS s, outside_plausible AS o FROM reading_values
              WHERE unit_id = ? AND parameter = ? AND taken_at BETWEEN ? AND ? ORDER BY taken_at`,
             { replacements: [unitId, parameter, from, to], type: QueryTypes.SELECT },
           );
           // Times as epoch milliseconds: a third of the bytes of ISO strings, and what charts plot.
-          return { parameter, points: rows.map((r) => ({ t: new Date(r.t).getTime(), v: r.v, s: r.s })) };
+          // `o`: outside the plausible range, sent only when true (the chart keeps it off the axis).
+          return { parameter, points: rows.map((r) => ({ t: new Date(r.t).getTime(), v: r.v, s: r.s, ...(Number(r.o) ? { o: true } : {}) })) };
         }),
       ),
       LimitSetVersion.findAll({ where: { unitId, effectiveFrom: { [Op.lte]: to } }, order: [['effectiveFrom', 'ASC'], ['id', 'ASC']] }),

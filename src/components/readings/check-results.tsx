@@ -3,6 +3,7 @@ import type { Evaluation } from '../../../shared/calc/evaluate';
 import { displayQuantity, type DisplayPreferences } from '../../../shared/display';
 import { StatusBadge } from '../ui/status-badge';
 import { Notice } from '../ui/notice';
+import { OutsidePlausibleTag } from './plausibility';
 
 const groups: { title: string; keys: CheckKey[] }[] = [
   { title: 'Measured', keys: ['backpressure', 'hotwellTemperature', 'cwInletTemperature', 'cwOutletTemperature', 'cwFlow', 'basinTemperature'] },
@@ -18,9 +19,21 @@ const groups: { title: string; keys: CheckKey[] }[] = [
   { title: 'Water chemistry', keys: ['langelier', 'ryznar'] },
 ];
 
+function plausibleBounds(range: { low: number; high: number }, quantity: Evaluation['checks'][CheckKey]['quantity'], prefs: DisplayPreferences) {
+  const low = displayQuantity(range.low, quantity, prefs);
+  const high = displayQuantity(range.high, quantity, prefs);
+  return `${low.text}–${high.text} ${high.unit}`;
+}
+
 export function CheckResults({ evaluation, prefs }: { evaluation: Evaluation; prefs: DisplayPreferences }) {
   return (
     <div className="flex flex-col gap-4">
+      {evaluation.implausible?.length ? (
+        <p className="rounded-md border-2 border-watch bg-panel px-3 py-2 text-sm" data-testid="implausible-summary">
+          <OutsidePlausibleTag keys={evaluation.implausible.map((i) => i.key)} /> The checks computed from{' '}
+          {evaluation.implausible.length > 1 ? 'these values' : 'this value'} are withheld, not judged.
+        </p>
+      ) : null}
       {evaluation.notes.map((note) => (
         <p key={note} className="rounded-md border border-line bg-panel px-3 py-2 text-sm">
           ℹ {note}
@@ -52,6 +65,11 @@ export function CheckResults({ evaluation, prefs }: { evaluation: Evaluation; pr
                     <td className="py-1.5 pr-2">
                       {check.label}
                       {check.reason ? <span className="block text-xs text-muted">{check.reason}</span> : null}
+                      {check.outsidePlausible ? (
+                        <span className="block text-xs font-bold text-watch">
+                          ◇ outside the plausible range ({plausibleBounds(check.outsidePlausible, check.quantity, prefs)})
+                        </span>
+                      ) : null}
                     </td>
                     <td className="reading py-1.5 pr-2 text-right text-lg font-semibold whitespace-nowrap">
                       {shown ? (

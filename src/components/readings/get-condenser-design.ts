@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { CondenserDesignSi } from '../../../shared/calc/evaluate';
 import type { LimitSet } from '../../../shared/calc/limits';
+import type { PlausibleRanges } from '../../../shared/calc/plausibility';
 import { api } from '../../lib/api-client';
 
 export const calcKeys = {
@@ -8,7 +9,7 @@ export const calcKeys = {
   design: (unitId: number) => [...calcKeys.all, 'design', unitId] as const,
 };
 
-export type DesignAndLimits = { design: CondenserDesignSi; limits: LimitSet };
+export type DesignAndLimits = { design: CondenserDesignSi; limits: LimitSet; plausible: PlausibleRanges };
 
 export const getCondenserDesign = (unitId: number) => api.get<DesignAndLimits>(`/api/calc/units/${unitId}/condenser-design`);
 

@@ -9,14 +9,18 @@ import {
   type PressureUnit,
 } from '../../../shared/units';
 import type { FormErrors, ReadingFormValues } from './reading-form';
+import type { ReactNode } from 'react';
 import { NumberField } from './number-field';
+import { PlausibleWarning } from './plausibility';
 
-type Props = { form: UseFormReturn<ReadingFormValues>; errors: FormErrors; values: ReadingFormValues };
+type Props = { form: UseFormReturn<ReadingFormValues>; errors: FormErrors; values: ReadingFormValues; warnings?: FormErrors };
 
 const selectClass = 'rounded-md border border-line bg-field px-2 py-1';
 
-export function ReadingFormFields({ form, errors, values }: Props) {
+export function ReadingFormFields({ form, errors, values, warnings = {} }: Props) {
   const { register } = form;
+  // A box outside the plausible range says so beside it (an error, when there is one, says more).
+  const warn = (field: keyof ReadingFormValues, hint?: ReactNode) => (warnings[field] ? <PlausibleWarning text={warnings[field]} /> : hint);
   const t = temperatureUnits[values.temperatureUnit].label;
   const vacuum = isVacuumUnit(values.pressureUnit);
   return (
@@ -70,6 +74,7 @@ export function ReadingFormFields({ form, errors, values }: Props) {
           label={vacuum ? 'Condenser vacuum' : 'Condenser absolute pressure'}
           unit={pressureUnitLabels[values.pressureUnit]}
           error={errors.pressure}
+          hint={warn('pressure')}
           registration={register('pressure')}
         />
         {vacuum ? (
@@ -91,14 +96,15 @@ export function ReadingFormFields({ form, errors, values }: Props) {
             />
           </div>
         ) : null}
-        <NumberField label="Hotwell temperature" unit={t} error={errors.hotwell} registration={register('hotwell')} />
-        <NumberField label="CW inlet temperature" unit={t} error={errors.cwInlet} registration={register('cwInlet')} />
-        <NumberField label="CW outlet temperature" unit={t} error={errors.cwOutlet} registration={register('cwOutlet')} />
-        <NumberField label="CW flow" unit={flowUnits[values.flowUnit].label} error={errors.cwFlow} registration={register('cwFlow')} />
+        <NumberField label="Hotwell temperature" unit={t} error={errors.hotwell} hint={warn('hotwell')} registration={register('hotwell')} />
+        <NumberField label="CW inlet temperature" unit={t} error={errors.cwInlet} hint={warn('cwInlet')} registration={register('cwInlet')} />
+        <NumberField label="CW outlet temperature" unit={t} error={errors.cwOutlet} hint={warn('cwOutlet')} registration={register('cwOutlet')} />
+        <NumberField label="CW flow" unit={flowUnits[values.flowUnit].label} error={errors.cwFlow} hint={warn('cwFlow')} registration={register('cwFlow')} />
         <NumberField
           label="Exhaust steam flow (if CW flow is not measured)"
           unit="t/h"
           error={errors.steamFlowTH}
+          hint={warn('steamFlowTH')}
           registration={register('steamFlowTH')}
         />
         <NumberField label="Condensate dissolved oxygen" unit="ppb" error={errors.dissolvedOxygen} registration={register('dissolvedOxygen')} />
@@ -106,19 +112,19 @@ export function ReadingFormFields({ form, errors, values }: Props) {
 
       <fieldset className="grid gap-3 sm:grid-cols-2">
         <legend className="mb-2 font-bold">Cooling tower (optional)</legend>
-        <NumberField label="Basin (cold-water) temperature" unit={t} error={errors.basin} registration={register('basin')} />
+        <NumberField label="Basin (cold-water) temperature" unit={t} error={errors.basin} hint={warn('basin')} registration={register('basin')} />
         <NumberField label="Wet bulb (if measured)" unit={t} error={errors.wetBulb} registration={register('wetBulb')} />
         <NumberField label="Dry bulb" unit={t} error={errors.dryBulb} registration={register('dryBulb')} />
         <NumberField label="Relative humidity" unit="%" error={errors.relativeHumidity} registration={register('relativeHumidity')} />
         <NumberField label="Station pressure" unit="kPa a" error={errors.stationPressureKPa} registration={register('stationPressureKPa')} />
         <NumberField label="Makeup conductivity" unit="µS/cm" error={errors.makeupConductivity} registration={register('makeupConductivity')} />
-        <NumberField label="Basin conductivity" unit="µS/cm" error={errors.basinConductivity} registration={register('basinConductivity')} />
+        <NumberField label="Basin conductivity" unit="µS/cm" error={errors.basinConductivity} hint={warn('basinConductivity')} registration={register('basinConductivity')} />
         <NumberField label="Target cycles" unit="(ratio)" error={errors.targetCycles} registration={register('targetCycles')} />
       </fieldset>
 
       <fieldset className="grid gap-3 sm:grid-cols-2">
         <legend className="mb-2 font-bold">Circulating-water chemistry (optional)</legend>
-        <NumberField label="pH" unit="(pH)" error={errors.pH} registration={register('pH')} />
+        <NumberField label="pH" unit="(pH)" error={errors.pH} hint={warn('pH')} registration={register('pH')} />
         <NumberField label="Sample temperature" unit={t} error={errors.sampleTemperature} registration={register('sampleTemperature')} />
         <NumberField label="Total dissolved solids" unit="mg/L" error={errors.tds} registration={register('tds')} />
         <NumberField label="Calcium hardness" unit="mg/L as CaCO₃" error={errors.calciumHardness} registration={register('calciumHardness')} />

@@ -2,6 +2,7 @@ import { useMemo } from 'react';
 import { evaluateReadingSet, type Evaluation } from '../../../shared/calc/evaluate';
 import { CalcInputError } from '../../../shared/calc/input-error';
 import { readingSetToSi } from '../../../shared/calc/reading-set-si';
+import { describeImplausible, type ImplausibleNotice } from '../../../shared/plausibility-display';
 import type { ReadingSetInput } from '../../../shared/schemas/reading-set';
 import { isVacuumUnit, type AbsolutePressureUnit } from '../../../shared/units';
 import type { DisplayPreferences } from '../../../shared/display';
@@ -15,24 +16,36 @@ export type LiveEvaluation = {
   shownErrors: FormErrors;
   allErrors: FormErrors;
   prefs: DisplayPreferences;
+  /** Readings and checks outside the unit's plausible ranges, in the round's units: saving asks to confirm them. */
+  notices: ImplausibleNotice[];
+  /** The same, on the boxes they belong to. */
+  warnings: FormErrors;
 };
 
 /** Recomputes every check on each keystroke with the same engine the server uses. */
 export function useLiveEvaluation(unitId: number | null, values: ReadingFormValues, data: DesignAndLimits | undefined): LiveEvaluation {
-  const { input, evaluation, errors } = useMemo(() => {
-    if (!unitId || !data) return { input: null, evaluation: null, errors: {} as FormErrors };
+  const { input, evaluation, errors, notices } = useMemo(() => {
+    const none: ImplausibleNotice[] = [];
+    if (!unitId || !data) return { input: null, evaluation: null, errors: {} as FormErrors, notices: none };
     const built = toReadingSet(unitId, values);
-    if (!built.input) return { input: null, evaluation: null, errors: built.errors };
+    if (!built.input) return { input: null, evaluation: null, errors: built.errors, notices: none };
     try {
-      return { input: built.input, evaluation: evaluateReadingSet(readingSetToSi(built.input), data.design, data.limits), errors: {} as FormErrors };
+      const si = readingSetToSi(built.input);
+      const evaluation = evaluateReadingSet(si, data.design, data.limits, data.plausible);
+      return { input: built.input, evaluation, errors: {} as FormErrors, notices: describeImplausible(evaluation.implausible, built.input, si.cwInletK, data.design) };
     } catch (error) {
       if (error instanceof CalcInputError) {
         const field = fieldForPath[error.field];
-        return { input: null, evaluation: null, errors: (field ? { [field]: error.sentence } : {}) as FormErrors };
+        return { input: null, evaluation: null, errors: (field ? { [field]: error.sentence } : {}) as FormErrors, notices: none };
       }
       throw error;
     }
   }, [unitId, values, data]);
+  const warnings: FormErrors = {};
+  for (const notice of notices) {
+    const field = fieldForPath[notice.field];
+    if (field) warnings[field] = warnings[field] ? `${warnings[field]} ${notice.message}` : notice.message;
+  }
 
   const shownErrors = Object.fromEntries(
     Object.entries(errors).filter(([field]) => String(values[field as keyof ReadingFormValues] ?? '').trim() !== ''),
@@ -40,5 +53,13 @@ export function useLiveEvaluation(unitId: number | null, values: ReadingFormValu
   const pressure: AbsolutePressureUnit = isVacuumUnit(values.pressureUnit)
     ? ({ inHg_vac: 'inHgA', kPa_vac: 'kPa_a', mmHg_vac: 'mmHgA' } as const)[values.pressureUnit]
     : values.pressureUnit;
-  return { input, evaluation, shownErrors, allErrors: errors, prefs: { temperature: values.temperatureUnit, pressure, currency: data?.design.currency ?? null } };
+  return {
+    input,
+    evaluation,
+    shownErrors,
+    allErrors: errors,
+    prefs: { temperature: values.temperatureUnit, pressure, currency: data?.design.currency ?? null },
+    notices,
+    warnings,
+  };
 }

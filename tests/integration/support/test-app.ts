@@ -7,8 +7,10 @@ import { createSequelize } from '../../../server/db/sequelize';
 import { initModels } from '../../../server/db/models';
 import { hashPassword } from '../../../server/lib/auth';
 import { User } from '../../../server/features/users/model';
-import { Crew, LimitSetVersion, PlantUnit, Station, UnitDesignVersion } from '../../../server/features/plant/model';
+import { Crew, LimitSetVersion, PlantUnit, PlausibleRangeVersion, Station, UnitDesignVersion } from '../../../server/features/plant/model';
 import { startingLimits, type LimitSet } from '../../../shared/calc/limits';
+import type { PlausibleRanges } from '../../../shared/calc/plausibility';
+import { widestPlausibleRanges } from '../../fixtures/widest-plausible-ranges';
 import { handBuiltDesign } from '../../fixtures/hand-built-design';
 import type { Role } from '../../../shared/roles';
 
@@ -96,24 +98,36 @@ export async function signedInAgent(built: BuiltApp, email: string, password = P
 export { handBuiltDesign };
 
 /** A unit with design data and the starting limits in force since 2000. */
-export async function makeUnit(options: { limits?: LimitSet } = {}) {
+/**
+ * Units made here take the widest plausible ranges unless a test asks otherwise: most tests send
+ * rounds chosen for what they check, not to agree with the hand-built design. 'starting': no ranges
+ * of the unit's own, so the starting ranges apply, as for a new unit.
+ */
+type PlausibleOption = PlausibleRanges | 'starting';
+async function givePlausibleRanges(unitId: number, effectiveFrom: Date, plausible: PlausibleOption = widestPlausibleRanges) {
+  if (plausible !== 'starting') await PlausibleRangeVersion.create({ unitId, effectiveFrom, ranges: plausible, note: 'test ranges', createdBy: null });
+}
+
+export async function makeUnit(options: { limits?: LimitSet; plausible?: PlausibleOption } = {}) {
   counter += 1;
   const [station] = await Station.findOrCreate({ where: { code: 'TST' }, defaults: { code: 'TST', name: 'Test station' } });
   const unit = await PlantUnit.create({ stationId: station.id, code: `T${Date.now() % 1_000_000}${counter}`, name: `Test unit ${counter}` });
   const since = new Date('2000-01-01T00:00:00Z');
   await UnitDesignVersion.create({ unitId: unit.id, effectiveFrom: since, data: handBuiltDesign, note: 'test design', createdBy: null });
   await LimitSetVersion.create({ unitId: unit.id, effectiveFrom: since, limits: options.limits ?? startingLimits, note: 'test limits', createdBy: null });
+  await givePlausibleRanges(unit.id, since, options.plausible);
   return unit;
 }
 
 /** A station of its own (default settings) with one unit and `crews` crews, for tests that set rotations. */
-export async function makeStation(crews = 2) {
+export async function makeStation(crews = 2, options: { plausible?: PlausibleOption } = {}) {
   counter += 1;
   const station = await Station.create({ code: `S${Date.now() % 100_000}${counter}`.slice(0, 16), name: `Test station ${counter}` });
   const unit = await PlantUnit.create({ stationId: station.id, code: 'U1', name: `Unit of station ${counter}` });
   const since = new Date('2000-01-01T00:00:00Z');
   await UnitDesignVersion.create({ unitId: unit.id, effectiveFrom: since, data: handBuiltDesign, note: 'test design', createdBy: null });
   await LimitSetVersion.create({ unitId: unit.id, effectiveFrom: since, limits: startingLimits, note: 'test limits', createdBy: null });
+  await givePlausibleRanges(unit.id, since, options.plausible);
   const crewRows = [];
   for (let i = 0; i < crews; i++) crewRows.push(await Crew.create({ stationId: station.id, name: String.fromCharCode(65 + i) }));
   return { station, unit, crews: crewRows };

@@ -8,7 +8,15 @@ export const importKeys = { all: ['imports'] as const, mappings: (unitId: number
 export type Inspection = { headers: string[]; sample: Record<string, string>[]; rowCount: number };
 /** `timeZone`: the station zone in which times without an offset were read. */
 export type Preview = { timeZone: string; counts: { rows: number; valid: number; invalid: number; duplicate: number }; rows: ImportRowReport[] };
-export type ImportResult = { timeZone: string; imported: number; flagsRaised: number; counts: Preview['counts']; problems: ImportRowReport[] };
+export type ImportResult = {
+  timeZone: string;
+  imported: number;
+  /** Rows stored marked "outside plausible range". */
+  outsidePlausible: number;
+  flagsRaised: number;
+  counts: Preview['counts'];
+  problems: ImportRowReport[];
+};
 
 const form = (file: File, mapping?: ImportMapping) => {
   const data = new FormData();

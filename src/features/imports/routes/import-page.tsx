@@ -137,7 +137,7 @@ export function ImportPage() {
           <Notice kind="info">
             <span data-testid="import-time-zone">Times without an offset are read as station time ({preview.data.timeZone}); times with an offset or Z keep it.</span>{' '}
             {preview.data.counts.valid} rows ready to import · {preview.data.counts.invalid} with problems · {preview.data.counts.duplicate} already imported or
-            repeated.
+            repeated. A value outside its physical range is a row problem; one outside the unit’s plausible range is imported, marked.
           </Notice>
           <ProblemRows rows={preview.data.rows} timeZone={preview.data.timeZone} />
           <Button disabled={!preview.data.counts.valid || commit.isPending || commit.isSuccess} onClick={() => file && commit.mutate({ file, mapping })}>
@@ -149,6 +149,9 @@ export function ImportPage() {
       {commit.data ? (
         <Notice kind="success">
           Imported {commit.data.imported} rows; {commit.data.flagsRaised} new flag(s) raised.
+          {commit.data.outsidePlausible
+            ? ` ◇ ${commit.data.outsidePlausible} row(s) lie outside the unit’s plausible range: stored marked “outside plausible range”, with the checks computed from them withheld.`
+            : ''}
         </Notice>
       ) : null}
     </section>

@@ -1,5 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { LimitSet } from '../../../../shared/calc/limits';
+import type { PlausibleRanges } from '../../../../shared/calc/plausibility';
 import type { UnitDesign } from '../../../../shared/schemas/plant';
 import { api } from '../../../lib/api-client';
 import { invalidateForChange } from '../../../app/live-keys';
@@ -9,8 +10,11 @@ export type UnitSetup = {
   unit: { id: number; code: string; name: string };
   design: { versionId: number; data: UnitDesign };
   limits: { versionId: number; data: LimitSet };
+  /** versionId null: the unit has no ranges of its own and the starting ranges apply. */
+  plausible: { versionId: number | null; data: PlausibleRanges };
   designHistory: VersionRow[];
   limitHistory: VersionRow[];
+  plausibleHistory: VersionRow[];
   equipment: { id: number; kind: string; tag: string; name: string }[];
 };
 
@@ -21,6 +25,7 @@ export const useUnitSetup = (unitId: number | null) => useQuery({ ...setupQueryO
 type Change =
   | { kind: 'design'; design: UnitDesign; note: string }
   | { kind: 'limits'; limits: LimitSet; note: string }
+  | { kind: 'plausible'; ranges: PlausibleRanges; note: string }
   | { kind: 'equipment'; equipment: { kind: string; tag: string; name: string } };
 
 export function useChangeSetup(unitId: number) {
@@ -29,6 +34,7 @@ export function useChangeSetup(unitId: number) {
     mutationFn: (change: Change) => {
       if (change.kind === 'design') return api.post(`/api/plant/units/${unitId}/design-versions`, { design: change.design, note: change.note });
       if (change.kind === 'limits') return api.post(`/api/plant/units/${unitId}/limit-versions`, { limits: change.limits, note: change.note });
+      if (change.kind === 'plausible') return api.post(`/api/plant/units/${unitId}/plausible-range-versions`, { ranges: change.ranges, note: change.note });
       return api.post(`/api/plant/units/${unitId}/equipment`, change.equipment);
     },
     onSuccess: () => invalidateForChange(queryClient, { entity: 'plant', id: unitId, unitId }),

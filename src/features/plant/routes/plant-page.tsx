@@ -9,6 +9,7 @@ import { useMe } from '../../session/api/get-me';
 import { useChangeSetup, useUnitSetup, type UnitSetup } from '../api/setup';
 import { DesignForm } from '../components/design-form';
 import { LimitsForm } from '../components/limits-form';
+import { PlausibleRangesForm } from '../components/plausible-ranges-form';
 import { useWatchUnit } from '../../../app/use-live-updates';
 
 function History({ title, rows, timeZone }: { title: string; rows: UnitSetup['designHistory']; timeZone: string }) {
@@ -80,14 +81,14 @@ export function PlantPage() {
       <div className="flex flex-wrap items-end gap-4">
         <div>
           <h1 className="text-2xl font-bold">Plant setup</h1>
-          <p className="text-muted">Design data and limits are versioned: each reading is judged by the versions in force when it was taken.</p>
+          <p className="text-muted">Design data, limits and plausible ranges are versioned: each reading is judged by the versions in force when it was taken.</p>
           <ZoneNote zone={unit} />
         </div>
         <UnitPicker />
       </div>
       {setup.error ? <Notice kind="error">{setup.error.message}</Notice> : null}
       {setup.data && unit ? (
-        <div className="grid gap-4 lg:grid-cols-2" key={`${setup.data.unit.id}-${setup.data.design.versionId}-${setup.data.limits.versionId}`}>
+        <div className="grid gap-4 lg:grid-cols-2" key={`${setup.data.unit.id}-${setup.data.design.versionId}-${setup.data.limits.versionId}-${setup.data.plausible.versionId}`}>
           <div className="flex flex-col gap-4">
             <DesignForm unitId={setup.data.unit.id} design={setup.data.design.data} editable={editable} />
             <History title="Design data versions" rows={setup.data.designHistory} timeZone={unit.timeZone} />
@@ -96,6 +97,8 @@ export function PlantPage() {
           <div className="flex flex-col gap-4">
             <LimitsForm unitId={setup.data.unit.id} limits={setup.data.limits.data} editable={editable} />
             <History title="Limit versions" rows={setup.data.limitHistory} timeZone={unit.timeZone} />
+            <PlausibleRangesForm unitId={setup.data.unit.id} ranges={setup.data.plausible.data} own={setup.data.plausible.versionId !== null} editable={editable} />
+            {setup.data.plausibleHistory.length ? <History title="Plausible range versions" rows={setup.data.plausibleHistory} timeZone={unit.timeZone} /> : null}
           </div>
         </div>
       ) : null}

@@ -1,6 +1,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { Evaluation } from '../../../../shared/calc/evaluate';
 import type { Status } from '../../../../shared/calc/limits';
+import type { PlausibleKey } from '../../../../shared/calc/plausibility';
 import type { ReadingSetInput } from '../../../../shared/schemas/reading-set';
 import { api } from '../../../lib/api-client';
 import { invalidateForChange } from '../../../app/live-keys';
@@ -15,6 +16,8 @@ export type ReadingSummary = {
   source: 'round' | 'import';
   worstStatus: Status;
   amendments: number;
+  /** The current version's readings and checks outside the plausible range, confirmed by its author. */
+  outsidePlausible: PlausibleKey[];
   raw: ReadingSetInput;
 };
 
@@ -31,9 +34,19 @@ export type ReadingDetail = {
     raw: ReadingSetInput;
     results: Evaluation;
     worstStatus: Status;
+    outsidePlausible: PlausibleKey[];
   };
-  amendments: { id: number; amendedAt: string; amendedBy: string; reason: string; raw: ReadingSetInput; results: Evaluation; worstStatus: Status }[];
-  current: { results: Evaluation; worstStatus: Status; amended: boolean };
+  amendments: {
+    id: number;
+    amendedAt: string;
+    amendedBy: string;
+    reason: string;
+    raw: ReadingSetInput;
+    results: Evaluation;
+    worstStatus: Status;
+    outsidePlausible: PlausibleKey[];
+  }[];
+  current: { results: Evaluation; worstStatus: Status; outsidePlausible: PlausibleKey[]; amended: boolean };
   countersign: { by: string; at: string } | null;
 };
 
@@ -48,7 +61,7 @@ export const readingQueryOptions = (id: number) =>
   queryOptions({ queryKey: readingKeys.detail(id), queryFn: () => api.get<ReadingDetail>(`/api/readings/${id}`) });
 export const useReading = (id: number) => useQuery(readingQueryOptions(id));
 
-type RecordInput = { unitId: number; reading: Omit<ReadingSetInput, 'unitId'> & { takenAt?: string } };
+type RecordInput = { unitId: number; reading: Omit<ReadingSetInput, 'unitId'> & { takenAt?: string; confirmOutsidePlausible?: PlausibleKey[] } };
 
 export function useRecordReading() {
   const queryClient = useQueryClient();
@@ -61,7 +74,7 @@ export function useRecordReading() {
 export function useAmendReading(id: number) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (body: { reason: string; reading: Omit<ReadingSetInput, 'unitId'> }) => api.post<ReadingDetail>(`/api/readings/${id}/amendments`, body),
+    mutationFn: (body: { reason: string; reading: Omit<ReadingSetInput, 'unitId'>; confirmOutsidePlausible?: PlausibleKey[] }) => api.post<ReadingDetail>(`/api/readings/${id}/amendments`, body),
     onSuccess: (saved) => invalidateForChange(queryClient, { entity: 'reading', id, unitId: saved.reading.unitId }),
   });
 }

@@ -4,6 +4,7 @@ import { formatStationTime } from '../../../../shared/station-time';
 import { pressureUnitLabels, type PressureUnit } from '../../../../shared/units';
 import { StatusBadge } from '../../../components/ui/status-badge';
 import { Notice } from '../../../components/ui/notice';
+import { OutsidePlausibleTag } from '../../../components/readings/plausibility';
 import { useMe } from '../../session/api/get-me';
 import { useCountersign, type ReadingSummary } from '../api/readings';
 
@@ -45,6 +46,11 @@ export function RecentReadings({ readings, timeZone }: { readings: ReadingSummar
               <td className="py-1 pr-2">
                 <StatusBadge status={r.worstStatus} />
                 {r.amendments ? <span className="ml-1 text-xs text-muted">amended ×{r.amendments}</span> : null}
+                {r.outsidePlausible.length ? (
+                  <span className="ml-1">
+                    <OutsidePlausibleTag keys={r.outsidePlausible} />
+                  </span>
+                ) : null}
               </td>
               <td className="py-1 text-right">
                 {r.needsCountersign ? (

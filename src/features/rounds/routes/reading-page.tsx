@@ -5,6 +5,8 @@ import { Link, useParams } from 'react-router';
 import type { Evaluation } from '../../../../shared/calc/evaluate';
 import { CheckResults } from '../../../components/readings/check-results';
 import { ReadingFormFields } from '../../../components/readings/reading-form-fields';
+import { ConfirmOutsidePlausible, OutsidePlausibleTag, useOutsidePlausibleQuestion } from '../../../components/readings/plausibility';
+import type { PlausibleKey } from '../../../../shared/calc/plausibility';
 import { useCondenserDesign } from '../../../components/readings/get-condenser-design';
 import { formErrorsFromServer, formValuesFromReading, type FormErrors, type ReadingFormValues } from '../../../components/readings/reading-form';
 import { useLiveEvaluation } from '../../../components/readings/use-live-evaluation';
@@ -27,13 +29,16 @@ const prefsOf = (detail: ReadingDetail): DisplayPreferences => ({
   currency: null,
 });
 
-function Version({ title, superseded, results, prefs, children }: { title: string; superseded: boolean; results: Evaluation; prefs: DisplayPreferences; children?: React.ReactNode }) {
+type VersionProps = { title: string; superseded: boolean; results: Evaluation; outsidePlausible: PlausibleKey[]; prefs: DisplayPreferences; children?: React.ReactNode };
+
+function Version({ title, superseded, results, outsidePlausible, prefs, children }: VersionProps) {
   const [open, setOpen] = useState(!superseded);
   return (
     <article className={`rounded-lg border p-3 ${superseded ? 'border-line opacity-80' : 'border-accent'}`}>
       <header className="flex flex-wrap items-center gap-2">
         <h2 className={`font-bold ${superseded ? 'line-through' : ''}`}>{title}</h2>
         {superseded ? <span className="text-xs font-bold text-muted">superseded by a later amendment — kept as recorded</span> : <span className="text-xs font-bold text-accent">current</span>}
+        {outsidePlausible.length ? <OutsidePlausibleTag keys={outsidePlausible} /> : null}
         <button type="button" className="ml-auto text-sm underline" onClick={() => setOpen(!open)}>
           {open ? 'Hide checks' : 'Show checks'}
         </button>
@@ -58,15 +63,19 @@ function AmendForm({ detail, onDone }: { detail: ReadingDetail; onDone: () => vo
   const [reason, setReason] = useState('');
   const [errors, setErrors] = useState<FormErrors & { reason?: string }>({});
   const [message, setMessage] = useState<string | null>(null);
+  const question = useOutsidePlausibleQuestion(live.notices);
 
-  const submit = () => {
+  const submit = (confirmed = false) => {
     if (!live.input) return setMessage('Some readings are missing or wrong; see the messages beside them.');
+    if (question.mustAsk(confirmed)) return;
     const { unitId: _unit, ...reading } = live.input;
+    const confirmOutsidePlausible = confirmed ? question.keys() : [];
     amend.mutate(
-      { reason, reading },
+      { reason, reading, ...(confirmOutsidePlausible.length ? { confirmOutsidePlausible } : {}) },
       {
         onSuccess: onDone,
         onError: (error) => {
+          if (question.takeRefusal(error)) return;
           setMessage(error.message);
           if (error instanceof ApiError) setErrors({ ...formErrorsFromServer(error.fields), reason: error.fields.reason });
         },
@@ -92,7 +101,8 @@ function AmendForm({ detail, onDone }: { detail: ReadingDetail; onDone: () => vo
         <textarea className="rounded-md border border-line bg-field p-2 font-normal" rows={2} value={reason} onChange={(e) => setReason(e.target.value)} />
         {errors.reason ? <span role="alert" className="text-alarm">⚠ {errors.reason}</span> : null}
       </label>
-      <ReadingFormFields form={form} errors={{ ...live.shownErrors, ...errors }} values={values} />
+      <ReadingFormFields form={form} errors={{ ...live.shownErrors, ...errors }} values={values} warnings={live.warnings} />
+      {question.asking ? <ConfirmOutsidePlausible notices={question.notices} pending={amend.isPending} onConfirm={() => submit(true)} onCancel={question.cancel} /> : null}
       <Button type="submit" disabled={amend.isPending}>
         Save amendment
       </Button>
@@ -125,6 +135,12 @@ export function ReadingPage() {
       </h1>
       <ZoneNote zone={zone} />
       <CautionNote />
+      {detail.current.outsidePlausible.length ? (
+        <Notice kind="info">
+          <OutsidePlausibleTag keys={detail.current.outsidePlausible} /> {detail.reading.source === 'import' ? 'Imported as the historian kept it' : 'Confirmed by whoever saved it'}
+          ; the checks computed from these values are withheld rather than judged. Check the instrument before relying on them.
+        </Notice>
+      ) : null}
       {detail.reading.recordedAsTrainee ? (
         detail.countersign ? (
           <Notice kind="success">
@@ -142,9 +158,9 @@ export function ReadingPage() {
           </div>
         )
       ) : null}
-      <Version title={`As recorded by ${detail.reading.recordedBy} at ${stamp(detail.reading.recordedAt)}`} superseded={detail.amendments.length > 0} results={detail.reading.results} prefs={prefs} />
+      <Version title={`As recorded by ${detail.reading.recordedBy} at ${stamp(detail.reading.recordedAt)}`} superseded={detail.amendments.length > 0} results={detail.reading.results} outsidePlausible={detail.reading.outsidePlausible} prefs={prefs} />
       {detail.amendments.map((a, i) => (
-        <Version key={a.id} title={`Amendment ${i + 1} by ${a.amendedBy} at ${stamp(a.amendedAt)}`} superseded={i < detail.amendments.length - 1} results={a.results} prefs={prefs}>
+        <Version key={a.id} title={`Amendment ${i + 1} by ${a.amendedBy} at ${stamp(a.amendedAt)}`} superseded={i < detail.amendments.length - 1} results={a.results} outsidePlausible={a.outsidePlausible} prefs={prefs}>
           <p className="mt-1 text-sm">
             <strong>Reason:</strong> {a.reason}
           </p>

@@ -6,6 +6,7 @@ import { CautionNote, Notice } from '../../../components/ui/notice';
 import { Button } from '../../../components/ui/button';
 import { CheckResults, EnterReadingsNotice } from '../../../components/readings/check-results';
 import { ReadingFormFields } from '../../../components/readings/reading-form-fields';
+import { ConfirmOutsidePlausible, useOutsidePlausibleQuestion } from '../../../components/readings/plausibility';
 import { useCondenserDesign } from '../../../components/readings/get-condenser-design';
 import { emptyReadingForm, fieldForPath, formErrorsFromServer, type FormErrors, type ReadingFormValues } from '../../../components/readings/reading-form';
 import { fieldLabel } from '../../../../shared/schemas/field-labels';
@@ -48,9 +49,11 @@ export function RoundsPage() {
   const [serverErrors, setServerErrors] = useState<FormErrors>({});
   const [saveError, setSaveError] = useState<string | null>(null);
   const [takenAtError, setTakenAtError] = useState<string | undefined>();
+  const question = useOutsidePlausibleQuestion(live.notices);
   const mayRecord = me && can(me.role, 'reading.record');
 
-  const save = () => {
+  /** `confirmed`: the person has seen the readings outside the plausible range and saves them anyway. */
+  const save = (confirmed = false) => {
     setSaveError(null);
     setServerErrors({});
     setTakenAtError(undefined);
@@ -66,15 +69,19 @@ export function RoundsPage() {
       setSaveError('Check the “Taken at” time; see the message beside it.');
       return;
     }
+    if (question.mustAsk(confirmed)) return;
     const { unitId: _unit, ...reading } = live.input;
+    const confirmOutsidePlausible = confirmed ? question.keys() : [];
     record.mutate(
-      { unitId, reading: { ...reading, ...(typed.at ? { takenAt: typed.at.toISOString() } : {}) } },
+      { unitId, reading: { ...reading, ...(typed.at ? { takenAt: typed.at.toISOString() } : {}), ...(confirmOutsidePlausible.length ? { confirmOutsidePlausible } : {}) } },
       {
         onSuccess: () => {
           form.reset(emptyReadingForm(loadUnitChoices(me?.id)));
           takenAt.reset();
+          question.reset();
         },
         onError: (error) => {
+          if (question.takeRefusal(error)) return;
           setSaveError(error.message);
           if (error instanceof ApiError) {
             setServerErrors(formErrorsFromServer(error.fields));
@@ -119,7 +126,10 @@ export function RoundsPage() {
           }}
         >
           {unit ? <StationTimeInput className="text-sm font-bold" label="Taken at (leave empty for now)" field={takenAt} timeZone={unit.timeZone} error={takenAtError} /> : null}
-          <ReadingFormFields form={form} errors={{ ...live.shownErrors, ...serverErrors }} values={values} />
+          <ReadingFormFields form={form} errors={{ ...live.shownErrors, ...serverErrors }} values={values} warnings={live.warnings} />
+          {mayRecord && question.asking ? (
+            <ConfirmOutsidePlausible notices={question.notices} pending={record.isPending} onConfirm={() => save(true)} onCancel={question.cancel} />
+          ) : null}
           {mayRecord ? (
             <Button type="submit" disabled={record.isPending}>
               {record.isPending ? 'Saving…' : 'Save round'}

@@ -4,7 +4,8 @@ import { api } from '../../../lib/api-client';
 
 export type TrendResponse = {
   /** t: epoch milliseconds (UTC) */
-  series: { parameter: string; points: { t: number; v: number; s: Status }[] }[];
+  /** o: the value lies outside the unit's plausible range (kept off the chart's scale). */
+  series: { parameter: string; points: { t: number; v: number; s: Status; o?: true }[] }[];
   limitBands: { from: string; to: string; bands: Record<string, LimitBand | null> }[];
   flags: { id: number; parameter: string; severity: 'watch' | 'alarm'; status: string; origin: string; raisedAt: string; clearedAt: string | null }[];
 };

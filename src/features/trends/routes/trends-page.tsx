@@ -54,6 +54,7 @@ export function TrendsPage() {
           value: shown.value,
           unit: shown.unit,
           status: p.s,
+          outside_plausible_range: p.o ? 'yes' : '',
         };
       }),
     );
