@@ -38,7 +38,7 @@ test('a limit typed as "1O" is marked beside its box and nothing is sent; a valu
 });
 
 test('an empty log entry and an empty round say which field is missing', async ({ page }) => {
-  await signInReadingOrders(page, 'operator.a@fernhollow.example');
+  await signInReadingOrders(page, 'field.a@fernhollow.example');
   const nav = page.getByRole('navigation', { name: 'Main' });
   await nav.getByRole('link', { name: 'Shift log' }).click();
   const entry = page.getByRole('form', { name: 'New log entry' });

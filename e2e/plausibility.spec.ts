@@ -39,7 +39,7 @@ test('an impossible CW flow is refused beside the box; a plausible-but-odd one a
   await expect(page.getByTestId(`reading-${id}`).getByTestId('outside-plausible')).toContainText('Outside plausible range: CW flow');
 
   await saved.click();
-  await expect(page.getByRole('heading', { name: /Round of/ })).toBeVisible();
+  await expect(page.getByRole('heading', { name: /round of/i })).toBeVisible();
   await expect(page.getByTestId('outside-plausible').first()).toContainText('CW flow');
   await expect(page.getByTestId('check-duty')).toContainText('not computed: CW flow is outside the plausible range');
   await expect(page.getByTestId('check-cwFlow')).toContainText('outside the plausible range');

@@ -1,4 +1,3 @@
-import { fieldLabel } from '../schemas/field-labels';
 // The bookkeeping of one evaluation: each check's value or the reason it is absent, and which
 // readings and checks lie outside the unit's plausible ranges. A check built on one of those is
 // withheld with the same reason, and so is everything built on it in turn.
@@ -57,7 +56,7 @@ export function checkComputer(plausible: PlausibleRanges, design: PlausibleDesig
       values[key] = null;
       if (error instanceof Missing) reasons[key] = error.message;
       // A formula's own range is stated in SI; the operator reads what happened instead.
-      else if (error instanceof CalcRangeError) reasons[key] = `not computed: the readings put ${fieldLabel(error.field).toLowerCase()} outside the range this calculation covers`;
+      else if (error instanceof CalcRangeError) reasons[key] = `not computed: the readings put the ${error.field} outside the range this calculation covers`;
       else if (error instanceof CalcInputError) reasons[key] = error.sentence;
       else throw error;
       return null;

@@ -5,6 +5,11 @@
 import { checkCatalog, type CheckKey } from '../calc/check-catalog';
 
 export const fieldLabels: Record<string, string> = {
+  // Plausible ranges (plant setup) and the round's confirmation of readings outside them.
+  low: 'Low end',
+  high: 'High end',
+  ranges: 'Plausible ranges',
+  confirmOutsidePlausible: 'Readings confirmed outside the plausible range',
   // people and sign-in
   email: 'E-mail',
   password: 'Password',

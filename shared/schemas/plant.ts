@@ -60,9 +60,9 @@ const plausibleRangeSchema = (key: PlausibleKey) => {
   const allowed = `${units.toShown(settable.low)} to ${units.toShown(settable.high)} ${units.unit}`;
   return z
     .object({ low: end, high: end })
-    .refine((r) => r.low >= settable.low && r.low <= settable.high, { path: ['low'], message: `${label}: the low end must lie within ${allowed}` })
-    .refine((r) => r.high >= settable.low && r.high <= settable.high, { path: ['high'], message: `${label}: the high end must lie within ${allowed}` })
-    .refine((r) => r.low < r.high, { path: ['high'], message: `${label}: the high end must be above the low end` });
+    .refine((r) => r.low >= settable.low && r.low <= settable.high, { path: ['low'], message: `The low end of ${label} must lie within ${allowed}` })
+    .refine((r) => r.high >= settable.low && r.high <= settable.high, { path: ['high'], message: `The high end of ${label} must lie within ${allowed}` })
+    .refine((r) => r.low < r.high, { path: ['high'], message: `The high end of ${label} must be above its low end` });
 };
 export const plausibleRangesSchema = z.object(
   Object.fromEntries(plausibleKeys.map((key) => [key, plausibleRangeSchema(key)])) as Record<PlausibleKey, ReturnType<typeof plausibleRangeSchema>>,

@@ -89,9 +89,9 @@ describe('messages name fields by the label a person sees', () => {
     }
   });
 
-  it('a temperature below absolute zero names the reading', async () => {
+  it('a temperature outside its physical range names the reading', async () => {
     const res = await post(a.operator, `/api/units/${unitId}/readings`, { ...vacuumRound(), hotwellTemperature: { value: -300, unit: 'degC' } });
     expect(res.status).toBe(400);
-    expect(res.body.error.fields).toEqual({ 'hotwellTemperature.value': 'Hotwell temperature is below absolute zero (-300 °C)' });
+    expect(res.body.error.fields).toEqual({ 'hotwellTemperature.value': 'Hotwell temperature must be between 0 °C and 100 °C' });
   });
 });

@@ -161,10 +161,10 @@ describe('POST /api/plant/units/:unitId/plausible-range-versions', () => {
   it('answers 400 on the field for a range upside down or beyond what can be set, in the setup page’s units', async () => {
     const upsideDown = await post(admin, `/api/plant/units/${unitId}/plausible-range-versions`, { ranges: { ...wider, ttd: { low: 15, high: 1 } }, note: 'typo' });
     expect(upsideDown.status).toBe(400);
-    expect(upsideDown.body.error.fields['ranges.ttd.high']).toBe('TTD: the high end must be above the low end');
+    expect(upsideDown.body.error.fields['ranges.ttd.high']).toBe('The high end of TTD must be above its low end');
     // 150 °C = 423.15 K: water at a hotwell is 0–100 °C.
     const tooHot = await post(admin, `/api/plant/units/${unitId}/plausible-range-versions`, { ranges: { ...wider, hotwellTemperature: { low: 288.15, high: 423.15 } }, note: 'typo' });
-    expect(tooHot.body.error.fields['ranges.hotwellTemperature.high']).toBe('Hotwell temperature: the high end must lie within 0 to 100 °C');
+    expect(tooHot.body.error.fields['ranges.hotwellTemperature.high']).toBe('The high end of Hotwell temperature must lie within 0 to 100 °C');
     const missing = await post(admin, `/api/plant/units/${unitId}/plausible-range-versions`, { ranges: { ...wider, cwFlow: { low: 0.2 } }, note: 'typo' });
     expect(missing.body.error.fields['ranges.cwFlow.high']).toBe('Enter a number');
   });

@@ -9,6 +9,7 @@ import { startingLimits } from '../../../shared/calc/limits';
 import { handBuiltDesign } from '../../fixtures/hand-built-design';
 import { vacuumRound } from './rounds';
 import type { Agent } from './test-app';
+import { widestPlausibleRanges } from '../../fixtures/widest-plausible-ranges';
 
 export type Who = Role | 'pending' | 'anonymous';
 export type Access = 'public' | 'signed-in' | 'signed-in, temporary password too' | Action;
@@ -149,6 +150,7 @@ export function accessPolicies(f: Fixtures): Record<string, Policy> {
     'GET /api/plant/people': p('signed-in', () => ({ path: '/api/plant/people' })),
     'GET /api/plant/units/:unitId/setup': p('signed-in', () => ({ path: `/api/plant/units/${f.unitId}/setup` })),
     'POST /api/plant/units/:unitId/design-versions': p('plant.manage', () => ({ path: `/api/plant/units/${f.unitId}/design-versions`, body: { design: handBuiltDesign, note: 'Data sheet re-entered' } })),
+    'POST /api/plant/units/:unitId/plausible-range-versions': p('plant.manage', () => ({ path: `/api/plant/units/${f.unitId}/plausible-range-versions`, body: { ranges: widestPlausibleRanges, note: 'Ranges re-entered' } })),
     'POST /api/plant/units/:unitId/limit-versions': p('plant.manage', () => ({ path: `/api/plant/units/${f.unitId}/limit-versions`, body: { limits: startingLimits, note: 'Starting limits again' } })),
     'POST /api/plant/units/:unitId/equipment': p('plant.manage', () => ({ path: `/api/plant/units/${f.unitId}/equipment`, body: { kind: 'cw_pump', tag: `M-${f.unique()}`, name: 'Matrix pump' } })),
 
