@@ -8,7 +8,7 @@ import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
 import { Conflict, Forbidden, NotFound, ValidationError } from '../../lib/errors';
 import { convertReadingSet } from '../../lib/convert-readings';
-import { refreshAutomaticFlags } from '../flags/automatic';
+import { refreshAutomaticFlags, takeFlagTurn } from '../flags/automatic';
 import { requireUnit, unjudgedReason, versionStarts } from '../plant/versions';
 import { settingsForStation } from '../stations/settings';
 import { User } from '../users/model';
@@ -40,6 +40,7 @@ export type StoreReading = {
 /** Stores one reading set with its derived values and automatic flags, inside `transaction`. */
 export async function storeReading(r: StoreReading, transaction: Transaction): Promise<{ reading: ReadingSet; flagsRaised: number }> {
   const judged = await judgeAt(r.unitId, r.takenAt, r.si, transaction);
+  await takeFlagTurn(r.unitId, transaction, judged.evaluation);
   const reading = await ReadingSet.create(
     {
       unitId: r.unitId,
@@ -102,6 +103,7 @@ export function makeReadingService(sequelize: Sequelize) {
     await unitOfWork(sequelize, async (transaction) => {
       // Judged by the versions in force when the reading was taken, not today's.
       const judged = await judgeAt(original.unitId, original.takenAt, si, transaction);
+      await takeFlagTurn(original.unitId, transaction, judged.evaluation);
       const amendment = await ReadingAmendment.create(
         { readingSetId, amendedBy: actor.id, amendedAt: new Date(), reason: input.reason, raw, si, results: judged.evaluation, worstStatus: judged.worstStatus },
         { transaction },
