@@ -67,7 +67,7 @@ export type BuiltApp = {
 export function createApp(
   sequelize: Sequelize,
   config: Pick<AppConfig, 'sessionSecret' | 'production' | 'behindHttpsProxy' | 'signInRateLimit' | 'smtpUrl' | 'publicUrl'>,
-  deps: { storage?: Storage } = {},
+  deps: { storage?: Storage; importBatchRows?: number } = {},
 ): BuiltApp {
   const app = express();
   const passport = configurePassport();
@@ -124,7 +124,7 @@ export function createApp(
   app.use('/api', readingRoutes(makeReadingService(sequelize)));
   app.use('/api', flagRoutes(makeFlagService(sequelize)));
   app.use('/api', trendRoutes(sequelize));
-  app.use('/api', importRoutes(makeImportService(sequelize)));
+  app.use('/api', importRoutes(makeImportService(sequelize, { batchRows: deps.importBatchRows })));
   const log = makeLogService(sequelize);
   app.use('/api', stationRoutes(makeStationService(sequelize)));
   app.use('/api', logRoutes(log));

@@ -3,6 +3,7 @@ import type { Transaction } from 'sequelize';
 import { checkKeys } from '../../../shared/calc/check-catalog';
 import { evaluateReadingSet, type Evaluation, type ReadingSetSi } from '../../../shared/calc/evaluate';
 import type { Status } from '../../../shared/calc/limits';
+import { LimitSetVersion, UnitDesignVersion } from '../plant/model';
 import { designInForce, limitsInForce } from '../plant/versions';
 
 export type Judged = { evaluation: Evaluation; designVersionId: number; limitVersionId: number; worstStatus: Status };
@@ -22,6 +23,36 @@ export async function judgeAt(unitId: number, takenAt: Date, si: ReadingSetSi, t
   const [design, limits] = await Promise.all([designInForce(unitId, takenAt, transaction), limitsInForce(unitId, takenAt, transaction)]);
   const evaluation = evaluateReadingSet(si, design.data, limits.limits);
   return { evaluation, designVersionId: design.id, limitVersionId: limits.id, worstStatus: worstOf(evaluation) };
+}
+
+/** The newest version with `effectiveFrom <= at` (ties: the later id), as `designInForce` asks SQL. */
+function inForceAt<V extends { id: number; effectiveFrom: Date }>(versions: V[], at: Date): V | undefined {
+  let best: V | undefined;
+  for (const v of versions) {
+    if (v.effectiveFrom > at) continue;
+    if (!best || v.effectiveFrom > best.effectiveFrom || (v.effectiveFrom.getTime() === best.effectiveFrom.getTime() && v.id > best.id)) best = v;
+  }
+  return best;
+}
+
+/**
+ * `judgeAt` for many readings of one unit (an import batch): the unit's versions are read once and
+ * each reading is judged by those in force when it was taken. Versions are append-only, so a list
+ * read inside the batch's transaction stays right for the whole batch.
+ */
+export async function judgeManyAt(unitId: number, transaction: Transaction): Promise<(takenAt: Date, si: ReadingSetSi) => Judged> {
+  const [designs, limitSets] = await Promise.all([
+    UnitDesignVersion.findAll({ where: { unitId }, transaction }),
+    LimitSetVersion.findAll({ where: { unitId }, transaction }),
+  ]);
+  return (takenAt, si) => {
+    const design = inForceAt(designs, takenAt);
+    const limits = inForceAt(limitSets, takenAt);
+    // The import's analysis refuses rows from before the first versions; this is the last word.
+    if (!design || !limits) throw new Error(`no design data or limits in force for unit ${unitId} at ${takenAt.toISOString()}`);
+    const evaluation = evaluateReadingSet(si, design.data, limits.limits);
+    return { evaluation, designVersionId: design.id, limitVersionId: limits.id, worstStatus: worstOf(evaluation) };
+  };
 }
 
 /** The rows of the derived trend table for one reading's current values. */

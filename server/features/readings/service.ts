@@ -12,7 +12,7 @@ import { refreshAutomaticFlags, takeFlagTurn } from '../flags/automatic';
 import { requireUnit, unjudgedReason, versionStarts } from '../plant/versions';
 import { settingsForStation } from '../stations/settings';
 import { User } from '../users/model';
-import { judgeAt, valueRows } from './evaluate-at';
+import { judgeAt, judgeManyAt, valueRows } from './evaluate-at';
 import { ReadingAmendment, ReadingCountersign, ReadingSet, ReadingValue, type ReadingSource } from './model';
 
 const FUTURE_TOLERANCE_MS = 5 * 60 * 1000;
@@ -62,6 +62,47 @@ export async function storeReading(r: StoreReading, transaction: Transaction): P
   await ReadingValue.bulkCreate(valueRows(reading.id, r.unitId, r.takenAt, judged.evaluation), { transaction });
   const flagsRaised = await refreshAutomaticFlags(r.unitId, reading.id, r.takenAt, judged.evaluation, transaction);
   return { reading, flagsRaised };
+}
+
+/**
+ * An import batch: the same rows as `storeReading` one by one (in the same order, so flags open
+ * and refresh as they would), in a handful of statements instead of several per row, so that the
+ * batch, and the unit's turn it holds, is short. Every row carries its import key.
+ */
+export async function storeImportBatch(unitId: number, actor: Actor, rows: { takenAt: Date; raw: ReadingSetInput; si: ReadingSetSi; importKey: string }[], transaction: Transaction) {
+  if (!rows.length) return { flagsRaised: 0 };
+  const judge = await judgeManyAt(unitId, transaction);
+  const judged = rows.map((r) => judge(r.takenAt, r.si));
+  const recordedAt = new Date();
+  await ReadingSet.bulkCreate(
+    rows.map((r, i) => ({
+      unitId,
+      takenAt: r.takenAt,
+      recordedAt,
+      recordedBy: actor.id,
+      recordedAsTrainee: actor.role === 'trainee',
+      source: 'import' as const,
+      importKey: r.importKey,
+      designVersionId: judged[i]!.designVersionId,
+      limitVersionId: judged[i]!.limitVersionId,
+      raw: r.raw,
+      si: r.si,
+      results: judged[i]!.evaluation,
+      worstStatus: judged[i]!.worstStatus,
+    })),
+    { transaction },
+  );
+  // Read back by the unique (unit, import key) rather than trusting consecutive auto-increment ids.
+  const ids = new Map(
+    (await ReadingSet.findAll({ where: { unitId, importKey: rows.map((r) => r.importKey) }, attributes: ['id', 'importKey'], transaction })).map((r) => [r.importKey!, r.id]),
+  );
+  await ReadingValue.bulkCreate(
+    rows.flatMap((r, i) => valueRows(ids.get(r.importKey)!, unitId, r.takenAt, judged[i]!.evaluation)),
+    { transaction },
+  );
+  let flagsRaised = 0;
+  for (const [i, r] of rows.entries()) flagsRaised += await refreshAutomaticFlags(unitId, ids.get(r.importKey)!, r.takenAt, judged[i]!.evaluation, transaction);
+  return { flagsRaised };
 }
 
 async function names(ids: (number | null | undefined)[]): Promise<Map<number, string>> {

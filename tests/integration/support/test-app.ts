@@ -26,15 +26,19 @@ export function db(): Sequelize {
 export const SECRET = 'integration-test-secret';
 const opened: BuiltApp[] = [];
 
-export function buildApp(options: { signInRateLimit?: number; smtpUrl?: string } = {}): BuiltApp {
-  const built = createApp(db(), {
-    sessionSecret: SECRET,
-    production: false,
-    behindHttpsProxy: false,
-    signInRateLimit: options.signInRateLimit ?? 10_000,
-    smtpUrl: options.smtpUrl,
-    publicUrl: 'http://127.0.0.1:5180',
-  });
+export function buildApp(options: { signInRateLimit?: number; smtpUrl?: string; importBatchRows?: number } = {}): BuiltApp {
+  const built = createApp(
+    db(),
+    {
+      sessionSecret: SECRET,
+      production: false,
+      behindHttpsProxy: false,
+      signInRateLimit: options.signInRateLimit ?? 10_000,
+      smtpUrl: options.smtpUrl,
+      publicUrl: 'http://127.0.0.1:5180',
+    },
+    { importBatchRows: options.importBatchRows },
+  );
   opened.push(built);
   return built;
 }

@@ -4,7 +4,7 @@ import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-p
 import { Button } from '../../../components/ui/button';
 import { CautionNote, Notice } from '../../../components/ui/notice';
 import { ApiError } from '../../../lib/api-client';
-import { useCommitImport, useInspect, usePreview, useRememberedMappings } from '../api/imports';
+import { importIsIncomplete, useCommitImport, useInspect, usePreview, useRememberedMappings } from '../api/imports';
 import { ProblemRows } from '../components/problem-rows';
 import { useWatchUnit } from '../../../app/use-live-updates';
 
@@ -137,7 +137,8 @@ export function ImportPage() {
           <Notice kind="info">
             <span data-testid="import-time-zone">Times without an offset are read as station time ({preview.data.timeZone}); times with an offset or Z keep it.</span>{' '}
             {preview.data.counts.valid} rows ready to import · {preview.data.counts.invalid} with problems · {preview.data.counts.duplicate} already imported or
-            repeated.
+            repeated. Rows are stored in batches: if the import stops part-way, the batches already stored stay, and importing the same file again adds
+            only the rest.
           </Notice>
           <ProblemRows rows={preview.data.rows} timeZone={preview.data.timeZone} />
           <Button disabled={!preview.data.counts.valid || commit.isPending || commit.isSuccess} onClick={() => file && commit.mutate({ file, mapping })}>
@@ -145,10 +146,21 @@ export function ImportPage() {
           </Button>
         </div>
       ) : null}
-      {commit.error ? <Notice kind="error">{errorText(commit.error)} Nothing was imported.</Notice> : null}
+      {commit.error ? (
+        <Notice kind="error">
+          {importIsIncomplete(commit.error) ? (
+            <span data-testid="import-incomplete">{commit.error.message}</span>
+          ) : (
+            <>{errorText(commit.error)} Nothing was imported.</>
+          )}
+        </Notice>
+      ) : null}
       {commit.data ? (
         <Notice kind="success">
-          Imported {commit.data.imported} rows; {commit.data.flagsRaised} new flag(s) raised.
+          <span data-testid="import-result">
+            Stored {commit.data.imported} rows in {commit.data.batches} {commit.data.batches === 1 ? 'batch' : 'batches'} of up to {commit.data.batchRows};{' '}
+            {commit.data.alreadyThere} already there from an earlier import, skipped; {commit.data.flagsRaised} new flag(s) raised.
+          </span>
         </Notice>
       ) : null}
     </section>
