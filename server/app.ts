@@ -34,7 +34,8 @@ import { conditionRoutes } from './features/conditions/routes';
 import { makeHandoverService } from './features/handovers/service';
 import { handoverRoutes } from './features/handovers/routes';
 import { makeNotices, type Notices } from './features/handovers/notices';
-import { createMailer } from './lib/mailer';
+import { createMailer, type Mailer } from './lib/mailer';
+import { makeOutboxSender, type OutboxOptions, type OutboxSender } from './lib/outbox';
 import { storageFromEnv, type Storage } from './lib/storage';
 import { attachmentRoutes } from './features/handovers/attachments';
 import { makeAttachmentService } from './features/handovers/attachment-service';
@@ -59,15 +60,17 @@ export type BuiltApp = {
   sessionMiddleware: RequestHandler;
   /** Emits after commits; `attach` it to the HTTP server to reach browsers. */
   realtime: RealtimeHub;
-  /** E-mail notices; `sendDue` is run on a timer by the server. */
+  /** E-mail notices; `queueDue` (reminders) is run on a timer by the server. */
   notices: Notices;
+  /** Sends what the notices wrote to the outbox; the server `start`s its loop. */
+  outbox: OutboxSender;
   close: () => void;
 };
 
 export function createApp(
   sequelize: Sequelize,
   config: Pick<AppConfig, 'sessionSecret' | 'production' | 'behindHttpsProxy' | 'signInRateLimit' | 'smtpUrl' | 'publicUrl'>,
-  deps: { storage?: Storage; importBatchRows?: number } = {},
+  deps: { storage?: Storage; importBatchRows?: number; mailer?: Mailer; outbox?: OutboxOptions } = {},
 ): BuiltApp {
   const app = express();
   const passport = configurePassport();
@@ -113,7 +116,8 @@ export function createApp(
   const users = makeUserService(sequelize);
   const realtime = createRealtimeHub();
   const disconnectLive = connectLiveUpdates(sequelize, realtime);
-  const notices = makeNotices(createMailer(config.smtpUrl), config.publicUrl ?? 'http://127.0.0.1:5180');
+  const outbox = makeOutboxSender(sequelize, deps.mailer ?? createMailer(config.smtpUrl), deps.outbox);
+  const notices = makeNotices(sequelize, outbox, config.publicUrl ?? 'http://127.0.0.1:5180');
   app.get('/api/health', (_req, res) => {
     res.json({ ok: true });
   });
@@ -158,5 +162,5 @@ export function createApp(
     store.stopExpiringSessions();
     disconnectLive();
   };
-  return { app, sessionMiddleware, realtime, notices, close };
+  return { app, sessionMiddleware, realtime, notices, outbox, close };
 }

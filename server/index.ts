@@ -17,9 +17,11 @@ server.listen(config.port, config.host, () => {
   console.log(`[server] listening on http://${config.host}:${config.port}`);
 });
 
-// Reminder e-mail (late acceptance, passed deadlines), checked once a minute.
+// Notices wait in the outbox until sent: every few seconds, and at once after a commit that wrote one.
+built.outbox.start(5_000);
+// Reminders (late acceptance, passed deadlines) are written to the outbox once a minute.
 const reminders = setInterval(() => {
-  built.notices.sendDue().catch((error: unknown) => console.error('[mail] reminders failed', error));
+  built.notices.queueDue().catch((error: unknown) => console.error('[mail] reminders not queued (will try again)', (error as Error).message));
 }, 60_000);
 reminders.unref();
 
@@ -28,6 +30,7 @@ async function shutdown() {
   if (closing) return;
   closing = true;
   clearInterval(reminders);
+  await built.outbox.stop();
   await io.close();
   server.close();
   server.closeAllConnections();

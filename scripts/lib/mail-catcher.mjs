@@ -14,6 +14,7 @@ export async function startMailCatcher({ smtpPort, viewerPort }) {
       simpleParser(stream)
         .then((mail) => {
           messages.push({
+            messageId: mail.messageId ?? '',
             from: mail.from?.text ?? '',
             to: (Array.isArray(mail.to) ? mail.to : [mail.to]).flatMap((a) => a?.value ?? []).map((a) => a.address),
             subject: mail.subject ?? '',

@@ -12,6 +12,7 @@ import * as trainingAndLogbook from './migrations/0009-training-and-logbook';
 import * as handoverIntegrity from './migrations/0010-handover-integrity';
 import * as handoverCondenserSnapshot from './migrations/0011-handover-condenser-snapshot';
 import * as roundIntervalAndHandoverWindow from './migrations/0012-round-interval-and-handover-window';
+import * as outbox from './migrations/0013-outbox';
 
 // Listed explicitly so the order is obvious and nothing depends on globbing at run time.
 const migrations = [
@@ -27,6 +28,7 @@ const migrations = [
   { name: '0010-handover-integrity', ...handoverIntegrity },
   { name: '0011-handover-condenser-snapshot', ...handoverCondenserSnapshot },
   { name: '0012-round-interval-and-handover-window', ...roundIntervalAndHandoverWindow },
+  { name: '0013-outbox', ...outbox },
 ];
 
 export function createMigrator(sequelize: Sequelize) {
