@@ -29,14 +29,34 @@ let closing = false;
 async function shutdown() {
   if (closing) return;
   closing = true;
+  // With the database gone, closing the pool or a pass of the outbox can wait a long time: the
+  // work is already safe (committed or not), so after a few seconds the process simply ends.
+  setTimeout(() => {
+    console.error('[server] shutdown took too long; exiting');
+    process.exit(1);
+  }, 8_000).unref();
   clearInterval(reminders);
-  await built.outbox.stop();
   await io.close();
   server.close();
   server.closeAllConnections();
+  await built.outbox.stop();
   built.close();
   await sequelize.close();
   process.exit(0);
 }
 process.on('SIGTERM', shutdown);
 process.on('SIGINT', shutdown);
+
+// Under `npm start`: should the supervising process vanish without stopping us (kill -9), stop
+// rather than hold the port with nobody to stop us.
+const supervisor = Number(process.env.HOTWELL_SUPERVISOR_PID);
+if (supervisor) {
+  setInterval(() => {
+    try {
+      process.kill(supervisor, 0);
+    } catch {
+      console.error('[server] the npm start process is gone; stopping');
+      void shutdown();
+    }
+  }, 2_000).unref();
+}
