@@ -11,6 +11,8 @@ import { useWatchUnit } from '../../../app/use-live-updates';
 const selectClass = 'rounded-md border border-line bg-field px-2 py-1';
 const fieldKeys = Object.keys(importFields) as ImportField[];
 
+const rows = (n: number) => `${n} ${n === 1 ? 'row' : 'rows'}`;
+
 function errorText(error: Error | null) {
   if (!error) return null;
   if (error instanceof ApiError && Object.keys(error.fields).length) return `${error.message}: ${Object.values(error.fields).join('; ')}`;
@@ -158,8 +160,8 @@ export function ImportPage() {
       {commit.data ? (
         <Notice kind="success">
           <span data-testid="import-result">
-            Stored {commit.data.imported} rows in {commit.data.batches} {commit.data.batches === 1 ? 'batch' : 'batches'} of up to {commit.data.batchRows};{' '}
-            {commit.data.alreadyThere} already there from an earlier import, skipped; {commit.data.flagsRaised} new flag(s) raised.
+            Stored {rows(commit.data.imported)} in {commit.data.batches} {commit.data.batches === 1 ? 'batch' : 'batches'} of up to {commit.data.batchRows};{' '}
+            {rows(commit.data.alreadyThere)} already there from an earlier import, skipped; {commit.data.flagsRaised} new flag(s) raised.
           </span>
         </Notice>
       ) : null}
