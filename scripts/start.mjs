@@ -13,24 +13,60 @@ let database = null;
 let server = null;
 let mail = null;
 let stopping = false;
+// Longest a stop may take, whatever hangs (a server waiting on a dead database, say).
+const STOP_LIMIT_MS = 25_000;
+const SERVER_STOP_MS = 10_000;
 
-async function shutdown(code) {
+/** Stops the app (SIGTERM, then SIGKILL after SERVER_STOP_MS); resolves once it is gone. */
+function stopServer() {
+  if (!server || server.exitCode !== null || server.signalCode !== null) return Promise.resolve();
+  return new Promise((resolve) => {
+    const timer = setTimeout(() => {
+      console.error('[hotwell] the server did not stop in time; killing it');
+      server.kill('SIGKILL');
+    }, SERVER_STOP_MS);
+    server.once('exit', () => {
+      clearTimeout(timer);
+      resolve();
+    });
+    server.kill('SIGTERM');
+  });
+}
+
+/**
+ * The one way out: app first, then the mail catcher, then the database, always the database,
+ * within STOP_LIMIT_MS. Signals, a dead child and this script's own failures all end here.
+ */
+async function shutdown(code, reason) {
   if (stopping) return;
   stopping = true;
+  if (reason) console.error(`\n${reason}`);
   console.log('\n[hotwell] stopping…');
-  if (server && server.exitCode === null) {
-    await new Promise((resolve) => {
-      server.once('exit', resolve);
-      server.kill('SIGTERM');
-    });
+  const limit = setTimeout(() => {
+    console.error('[hotwell] stopping took too long; leaving now (the database was asked to stop)');
+    server?.kill('SIGKILL');
+    database?.process.kill('SIGTERM');
+    process.exit(code || 1);
+  }, STOP_LIMIT_MS);
+  for (const [what, step] of [
+    ['the server', stopServer],
+    ['the mail catcher', () => mail?.stop()],
+    ['the database', () => database?.stop()],
+  ]) {
+    try {
+      await step();
+    } catch (error) {
+      console.error(`[hotwell] stopping ${what} failed: ${error.message}`);
+    }
   }
-  if (mail) await mail.stop();
-  if (database) await database.stop();
+  clearTimeout(limit);
   console.log('[hotwell] stopped; data is kept for the next start.');
   process.exit(code);
 }
-process.on('SIGINT', () => shutdown(0));
-process.on('SIGTERM', () => shutdown(0));
+for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP']) process.on(signal, () => shutdown(0));
+// This script's own failure stops what it started rather than leaving MariaDB running without it.
+process.on('uncaughtException', (error) => shutdown(1, `[hotwell] unexpected error: ${error.stack ?? error}`));
+process.on('unhandledRejection', (reason) => shutdown(1, `[hotwell] unexpected error: ${reason?.stack ?? reason}`));
 
 function sessionSecret() {
   if (process.env.SESSION_SECRET) return process.env.SESSION_SECRET;
@@ -59,6 +95,10 @@ try {
   let databaseUrl = process.env.DATABASE_URL;
   if (!databaseUrl) {
     database = await startPrivateMariaDb({ dataDir, port: dbPort, databases: ['hotwell'], label: 'local' });
+    // Nothing works without it: a database that stops by itself takes the app down with it, loudly.
+    database.process.once('exit', (exitCode, signal) => {
+      if (!stopping) shutdown(1, `[db] MariaDB stopped unexpectedly (${signal ?? `exit code ${exitCode}`}); stopping Hotwell. See ${dataDir}/mariadbd.log`);
+    });
     databaseUrl = database.urlFor('hotwell');
     console.log(`[db] private MariaDB on 127.0.0.1:${dbPort} (data in ${dataDir})`);
   }
@@ -81,9 +121,11 @@ try {
     PORT: String(appPort),
     SESSION_SECRET: sessionSecret(),
     NODE_ENV: 'production',
+    // The server stops itself should this process vanish without stopping it (kill -9).
+    HOTWELL_SUPERVISOR_PID: String(process.pid),
   });
-  server.on('exit', (code) => {
-    if (!stopping) shutdown(code ?? 1);
+  server.on('exit', (code, signal) => {
+    if (!stopping) shutdown(code || 1, `[hotwell] the server stopped unexpectedly (${signal ?? `exit code ${code}`})`);
   });
   const url = `http://127.0.0.1:${appPort}`;
   await waitUntilServing(url);
@@ -96,6 +138,8 @@ try {
   console.log('\nCtrl-C stops the app and its database.');
   // For measuring start-up (`HOTWELL_STOP_WHEN_SERVING=1 /usr/bin/time npm start`): stop cleanly once serving.
   if (process.env.HOTWELL_STOP_WHEN_SERVING === '1') await shutdown(0);
+  // For the supervision test (scripts/test-start.mjs): fail the way a bug here would, once serving.
+  if (process.env.HOTWELL_FAIL_WHEN_SERVING === '1') setTimeout(() => Promise.reject(new Error('deliberate failure (HOTWELL_FAIL_WHEN_SERVING)')), 100);
 } catch (error) {
   console.error(`\n[hotwell] could not start: ${error.message}`);
   await shutdown(1);

@@ -1,5 +1,6 @@
 // `npm test`: the same set-up as `npm start` for a throwaway database, then every check:
-// typecheck, lint, Vitest (unit + integration against real MariaDB), Playwright in Debian's chromium.
+// typecheck, lint, Vitest (unit + integration against real MariaDB), the fault test (kill -9 of its
+// own MariaDB mid-run), Playwright in Debian's chromium.
 import { ensureNodeDependencies } from './lib/node-deps.mjs';
 import { startPrivateMariaDb } from './lib/private-mariadb.mjs';
 import { ensureChromium } from './lib/system-packages.mjs';
@@ -65,6 +66,8 @@ try {
   await step('vitest unit', () => runLocal('vitest', ['run', '--project', 'unit']));
   // On its own, so nothing else competes with the shared database while its files run in turn.
   await step('vitest integration', () => runLocal('vitest', ['run', '--project', 'integration'], { TEST_DATABASE_URL: integrationUrl }));
+  // Its own MariaDB (HOTWELL_FAULT_DB_PORT, default 3421), killed and restarted mid-run.
+  await step('fault test', () => runLocal('tsx', ['scripts/test-faults.ts']));
   await step('client build', () => runLocal('vite', ['build', '--logLevel', 'warn']));
   const { startMailCatcher } = await import('./lib/mail-catcher.mjs');
   mail = await startMailCatcher({ smtpPort: 0, viewerPort: 0 });

@@ -35,7 +35,8 @@ import { conditionRoutes } from './features/conditions/routes';
 import { makeHandoverService } from './features/handovers/service';
 import { handoverRoutes } from './features/handovers/routes';
 import { makeNotices, type Notices } from './features/handovers/notices';
-import { createMailer } from './lib/mailer';
+import { createMailer, type Mailer } from './lib/mailer';
+import { makeOutboxSender, type OutboxOptions, type OutboxSender } from './lib/outbox';
 import { storageFromEnv, type Storage } from './lib/storage';
 import { attachmentRoutes } from './features/handovers/attachments';
 import { makeAttachmentService } from './features/handovers/attachment-service';
@@ -60,15 +61,17 @@ export type BuiltApp = {
   sessionMiddleware: RequestHandler;
   /** Emits after commits; `attach` it to the HTTP server to reach browsers. */
   realtime: RealtimeHub;
-  /** E-mail notices; `sendDue` is run on a timer by the server. */
+  /** E-mail notices; `queueDue` (reminders) is run on a timer by the server. */
   notices: Notices;
+  /** Sends what the notices wrote to the outbox; the server `start`s its loop. */
+  outbox: OutboxSender;
   close: () => void;
 };
 
 export function createApp(
   sequelize: Sequelize,
   config: Pick<AppConfig, 'sessionSecret' | 'production' | 'behindHttpsProxy' | 'smtpUrl' | 'publicUrl'> & Partial<Pick<AppConfig, 'signInLimits' | 'anonymousTokenLimit'>>,
-  deps: { storage?: Storage } = {},
+  deps: { storage?: Storage; importBatchRows?: number; mailer?: Mailer; outbox?: OutboxOptions } = {},
 ): BuiltApp {
   const app = express();
   const passport = configurePassport();
@@ -116,7 +119,8 @@ export function createApp(
   const users = makeUserService(sequelize);
   const realtime = createRealtimeHub();
   const disconnectLive = connectLiveUpdates(sequelize, realtime);
-  const notices = makeNotices(createMailer(config.smtpUrl), config.publicUrl ?? 'http://127.0.0.1:5180');
+  const outbox = makeOutboxSender(sequelize, deps.mailer ?? createMailer(config.smtpUrl), deps.outbox);
+  const notices = makeNotices(sequelize, outbox, config.publicUrl ?? 'http://127.0.0.1:5180');
   app.get('/api/health', (_req, res) => {
     res.json({ ok: true });
   });
@@ -136,7 +140,7 @@ export function createApp(
   app.use('/api', readingRoutes(makeReadingService(sequelize)));
   app.use('/api', flagRoutes(makeFlagService(sequelize)));
   app.use('/api', trendRoutes(sequelize));
-  app.use('/api', importRoutes(makeImportService(sequelize)));
+  app.use('/api', importRoutes(makeImportService(sequelize, { batchRows: deps.importBatchRows })));
   const log = makeLogService(sequelize);
   app.use('/api', stationRoutes(makeStationService(sequelize)));
   app.use('/api', logRoutes(log));
@@ -170,5 +174,5 @@ export function createApp(
     store.stopExpiringSessions();
     disconnectLive();
   };
-  return { app, sessionMiddleware, realtime, notices, close };
+  return { app, sessionMiddleware, realtime, notices, outbox, close };
 }

@@ -17,9 +17,11 @@ server.listen(config.port, config.host, () => {
   console.log(`[server] listening on http://${config.host}:${config.port}`);
 });
 
-// Reminder e-mail (late acceptance, passed deadlines), checked once a minute.
+// Notices wait in the outbox until sent: every few seconds, and at once after a commit that wrote one.
+built.outbox.start(5_000);
+// Reminders (late acceptance, passed deadlines) are written to the outbox once a minute.
 const reminders = setInterval(() => {
-  built.notices.sendDue().catch((error: unknown) => console.error('[mail] reminders failed', error));
+  built.notices.queueDue().catch((error: unknown) => console.error('[mail] reminders not queued (will try again)', (error as Error).message));
 }, 60_000);
 reminders.unref();
 
@@ -27,13 +29,34 @@ let closing = false;
 async function shutdown() {
   if (closing) return;
   closing = true;
+  // With the database gone, closing the pool or a pass of the outbox can wait a long time: the
+  // work is already safe (committed or not), so after a few seconds the process simply ends.
+  setTimeout(() => {
+    console.error('[server] shutdown took too long; exiting');
+    process.exit(1);
+  }, 8_000).unref();
   clearInterval(reminders);
   await io.close();
   server.close();
   server.closeAllConnections();
+  await built.outbox.stop();
   built.close();
   await sequelize.close();
   process.exit(0);
 }
 process.on('SIGTERM', shutdown);
 process.on('SIGINT', shutdown);
+
+// Under `npm start`: should the supervising process vanish without stopping us (kill -9), stop
+// rather than hold the port with nobody to stop us.
+const supervisor = Number(process.env.HOTWELL_SUPERVISOR_PID);
+if (supervisor) {
+  setInterval(() => {
+    try {
+      process.kill(supervisor, 0);
+    } catch {
+      console.error('[server] the npm start process is gone; stopping');
+      void shutdown();
+    }
+  }, 2_000).unref();
+}

@@ -10,10 +10,13 @@ export async function startMailCatcher({ smtpPort, viewerPort }) {
   const smtp = new SMTPServer({
     disabledCommands: ['AUTH', 'STARTTLS'],
     logger: false,
+    // On stop, a session still open (a sender killed mid-message) is cut after a second, not 30.
+    closeTimeout: 1_000,
     onData(stream, _session, done) {
       simpleParser(stream)
         .then((mail) => {
           messages.push({
+            messageId: mail.messageId ?? '',
             from: mail.from?.text ?? '',
             to: (Array.isArray(mail.to) ? mail.to : [mail.to]).flatMap((a) => a?.value ?? []).map((a) => a.address),
             subject: mail.subject ?? '',
@@ -29,6 +32,10 @@ export async function startMailCatcher({ smtpPort, viewerPort }) {
     smtp.once('error', reject);
     smtp.listen(smtpPort, '127.0.0.1', resolve);
   });
+  smtp.removeAllListeners('error');
+  // A sender that goes away mid-session (the app killed, a reset socket) is the sender's problem:
+  // logged, never thrown, so it cannot take down the process that hosts the catcher.
+  smtp.on('error', (error) => console.warn(`[mail] catcher: ${error.message}`));
   const escape = (s) => String(s).replace(/[&<>"]/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;' })[c]);
   const viewer = http.createServer((req, res) => {
     if (req.url === '/messages') {
@@ -50,11 +57,21 @@ export async function startMailCatcher({ smtpPort, viewerPort }) {
     viewer.once('error', reject);
     viewer.listen(viewerPort, '127.0.0.1', resolve);
   });
+  viewer.removeAllListeners('error');
+  viewer.on('error', (error) => console.warn(`[mail] viewer: ${error.message}`));
+  viewer.on('clientError', (_error, socket) => socket.destroy());
   // Port 0 asks the system for a free port; report the one actually used.
   return {
     smtpUrl: `smtp://127.0.0.1:${smtp.server.address().port}`,
     viewerUrl: `http://127.0.0.1:${viewer.address().port}`,
     messages,
-    stop: () => Promise.all([new Promise((r) => smtp.close(r)), new Promise((r) => viewer.close(r))]),
+    stop: () =>
+      Promise.all([
+        new Promise((r) => smtp.close(r)),
+        new Promise((r) => {
+          viewer.close(r);
+          viewer.closeAllConnections();
+        }),
+      ]),
   };
 }

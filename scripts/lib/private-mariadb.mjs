@@ -32,6 +32,32 @@ function waitForSocket(socketPath, child, timeoutMs) {
   });
 }
 
+/** True when `pid` is a mariadbd serving this data folder (read from /proc, so Linux only). */
+function isServerOf(pid, dbDir) {
+  try {
+    return readFileSync(`/proc/${pid}/cmdline`, 'utf8').split('\0').includes(`--datadir=${dbDir}`);
+  } catch {
+    return false;
+  }
+}
+
+/**
+ * A server left running on this data folder by a start that was itself killed (SIGKILL leaves no
+ * chance to stop children) would hold the port and the data files: stop it first.
+ */
+async function stopLeftOver(runDir, dbDir, label) {
+  const pidFile = path.join(runDir, 'mariadbd.pid');
+  if (!existsSync(pidFile)) return;
+  const pid = Number(readFileSync(pidFile, 'utf8').trim());
+  if (!pid || !isServerOf(pid, dbDir)) return;
+  console.log(`[db] stopping the ${label} database server left running by an earlier start (pid ${pid})`);
+  process.kill(pid, 'SIGTERM');
+  for (let waited = 0; isServerOf(pid, dbDir); waited += 200) {
+    if (waited >= 30_000) process.kill(pid, 'SIGKILL');
+    await new Promise((r) => setTimeout(r, 200));
+  }
+}
+
 /**
  * @param {{ dataDir: string, port: number, databases: string[], fresh?: boolean, label: string }} opts
  * @returns {Promise<{ urlFor: (db: string) => string, stop: () => Promise<void> }>}
@@ -45,6 +71,7 @@ export async function startPrivateMariaDb({ dataDir, port, databases, fresh = fa
   const socketPath = path.join(runDir, 'mariadb.sock');
   const credentialsFile = path.join(root, 'credentials.json');
   mkdirSync(runDir, { recursive: true });
+  await stopLeftOver(runDir, dbDir, label);
 
   if (!(await portIsFree(port))) {
     throw new Error(
@@ -117,18 +144,25 @@ FLUSH PRIVILEGES;`;
   }
   writeFileSync(credentialsFile, JSON.stringify(credentials), { mode: 0o600 });
 
-  let stopped = false;
+  // A server killed by a signal has no exit code, only a signal code: either means it is gone.
+  const gone = () => child.exitCode !== null || child.signalCode !== null;
+  let stopping = null;
   const stop = () =>
-    new Promise((resolve) => {
-      if (stopped || child.exitCode !== null) return resolve();
-      stopped = true;
-      const timer = setTimeout(() => child.kill('SIGKILL'), 30_000);
-      child.once('exit', () => {
+    (stopping ??= new Promise((resolve) => {
+      if (gone()) return resolve();
+      const done = () => {
         clearTimeout(timer);
         resolve();
-      });
+      };
+      // A clean InnoDB shutdown normally takes a second or two; past 20 s it is killed (InnoDB
+      // recovers from its log at the next start).
+      const timer = setTimeout(() => {
+        child.kill('SIGKILL');
+        setTimeout(done, 1_000);
+      }, 20_000);
+      child.once('exit', done);
       child.kill('SIGTERM');
-    });
+    }));
 
   return {
     urlFor: (db) =>

@@ -14,6 +14,7 @@ import * as handoverCondenserSnapshot from './migrations/0011-handover-condenser
 import * as roundIntervalAndHandoverWindow from './migrations/0012-round-interval-and-handover-window';
 import * as accessAndSignIn from './migrations/0013-access-and-sign-in';
 import * as plausibleRanges from './migrations/0014-plausible-ranges';
+import * as outbox from './migrations/0015-outbox';
 
 // Listed explicitly so the order is obvious and nothing depends on globbing at run time.
 const migrations = [
@@ -31,6 +32,7 @@ const migrations = [
   { name: '0012-round-interval-and-handover-window', ...roundIntervalAndHandoverWindow },
   { name: '0013-access-and-sign-in', ...accessAndSignIn },
   { name: '0014-plausible-ranges', ...plausibleRanges },
+  { name: '0015-outbox', ...outbox },
 ];
 
 export function createMigrator(sequelize: Sequelize) {

@@ -2,7 +2,8 @@
 // the local catcher; without SMTP_URL messages are written to the server log instead of sent.
 import nodemailer, { type Transporter } from 'nodemailer';
 
-export type Mail = { to: string[]; subject: string; text: string };
+/** `messageId`: a stable Message-ID header (the outbox gives each notice its own). */
+export type Mail = { to: string[]; subject: string; text: string; messageId?: string };
 export type Mailer = { send(mail: Mail): Promise<void> };
 
 export function createMailer(smtpUrl: string | undefined, from = 'Hotwell <hotwell@fernhollow.example>'): Mailer {
@@ -17,7 +18,7 @@ export function createMailer(smtpUrl: string | undefined, from = 'Hotwell <hotwe
   return {
     async send(mail) {
       if (!mail.to.length) return;
-      await transport.sendMail({ from, to: mail.to, subject: mail.subject, text: mail.text });
+      await transport.sendMail({ from, to: mail.to, subject: mail.subject, text: mail.text, messageId: mail.messageId });
     },
   };
 }

@@ -6,6 +6,10 @@ import { DatabaseError, type Sequelize, type Transaction } from 'sequelize';
 const RETRYABLE = new Set([
   1213, // ER_LOCK_DEADLOCK
   1205, // ER_LOCK_WAIT_TIMEOUT
+  // ER_AUTOINC_READ_FAILED: what InnoDB reports when an INSERT … SELECT meets a deadlock or lock
+  // wait on the table's auto-increment lock (seen under concurrent rounds before index refreshes
+  // stopped using INSERT … SELECT). The transaction is rolled back like any other victim.
+  1467,
 ]);
 const MAX_TRIES = 4;
 

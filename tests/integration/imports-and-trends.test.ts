@@ -66,29 +66,30 @@ describe('historian CSV import', () => {
   it('imports the valid rows, and a second import of overlapping rows adds only the new ones', async () => {
     const first = await upload(operator, `/api/units/${unitId}/imports`, csv([...goodRows, 'not-a-time,1,1,1,1,1']));
     expect(first.status).toBe(201);
-    expect(first.body).toMatchObject({ imported: 3, counts: { valid: 3, invalid: 1 } });
+    expect(first.body).toMatchObject({ imported: 3, alreadyThere: 0, batches: 1, counts: { valid: 3, invalid: 1 } });
     const again = await upload(operator, `/api/units/${unitId}/imports`, csv([...goodRows, '2026-03-01T03:00:00Z,6.3,36.0,20.3,29.1,54000']));
     expect(again.status).toBe(201);
-    expect(again.body).toMatchObject({ imported: 1, counts: { duplicate: 3 } });
+    expect(again.body).toMatchObject({ imported: 1, alreadyThere: 3, counts: { duplicate: 3 } });
     expect(await ReadingSet.count({ where: { unitId } })).toBe(4);
     const remembered = await operator.get(`/api/units/${unitId}/import-mappings`).expect(200);
     expect(remembered.body.mappings[0]).toMatchObject({ source: 'Historian hourly export', mapping: { timeColumn: 'Timestamp' } });
   });
 
-  it('leaves nothing half-imported when storing fails part-way through the file', async () => {
+  it('stores nothing when the first batch fails, and says nothing was saved', async () => {
     const unit = await makeUnit();
-    // The third row's write fails after two rows were written inside the transaction.
+    // The batch's values fail after its reading sets were written inside the (only) batch's transaction.
     const original = ReadingValue.bulkCreate.bind(ReadingValue);
     let calls = 0;
     const spy = vi.spyOn(ReadingValue, 'bulkCreate').mockImplementation(async (...args: Parameters<typeof ReadingValue.bulkCreate>) => {
       calls += 1;
-      if (calls === 3) throw new Error('disk full (simulated)');
+      if (calls === 1) throw new Error('disk full (simulated)');
       return original(...args);
     });
     const res = await upload(operator, `/api/units/${unit.id}/imports`, csv(goodRows));
     spy.mockRestore();
-    expect(calls).toBe(3);
+    expect(calls).toBe(1);
     expect(res.status).toBe(500);
+    expect(res.body.error.message).toMatch(/nothing was saved/);
     expect(await ReadingSet.count({ where: { unitId: unit.id } })).toBe(0);
     expect(await ReadingValue.count({ where: { unitId: unit.id } })).toBe(0);
   });

@@ -4,7 +4,22 @@ import type { Transaction } from 'sequelize';
 import { checkKeys } from '../../../shared/calc/check-catalog';
 import type { Evaluation } from '../../../shared/calc/evaluate';
 import { publish } from '../../lib/live';
+import { PlantUnit } from '../plant/model';
 import { Flag, notYetFollowedUp } from './model';
+
+const brokenChecks = (evaluation: Evaluation) => checkKeys.map((k) => evaluation.checks[k]).filter((c) => c.status === 'watch' || c.status === 'alarm');
+
+/**
+ * Writers that may open automatic flags on a unit take turns on the unit's row, first thing in
+ * their transaction (before any insert's foreign-key check takes a shared lock on it). Without the
+ * turn, two rounds find no open flag for a parameter and both insert one: InnoDB's gap locks let
+ * both look and then make one of them a deadlock victim (the unit of work would run it again).
+ * A round inside its limits skips the turn and never waits.
+ */
+export async function takeFlagTurn(unitId: number, transaction: Transaction, evaluation?: Evaluation): Promise<void> {
+  if (evaluation && brokenChecks(evaluation).length === 0) return;
+  await PlantUnit.findByPk(unitId, { attributes: ['id'], transaction, lock: transaction.LOCK.UPDATE });
+}
 
 export async function refreshAutomaticFlags(
   unitId: number,
@@ -13,7 +28,7 @@ export async function refreshAutomaticFlags(
   evaluation: Evaluation,
   transaction: Transaction,
 ): Promise<number> {
-  const broken = checkKeys.map((k) => evaluation.checks[k]).filter((c) => c.status === 'watch' || c.status === 'alarm');
+  const broken = brokenChecks(evaluation);
   if (!broken.length) return 0;
   const open = await Flag.findAll({
     where: { unitId, origin: 'automatic', status: 'open', parameter: broken.map((c) => c.key) },

@@ -1,8 +1,11 @@
 // E-mail about handovers and deadlines: the incoming crew on submit; the shift lead when a handover
-// is still not accepted 30 minutes into the shift, or when a condition's deadline passes.
-import { Op } from 'sequelize';
+// is still not accepted 30 minutes into the shift, or when a condition's deadline passes. Each is
+// written to the outbox in the transaction of its change (the submit; the mark that the reminder
+// is due) and sent from there, once.
+import { Op, QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { stationLocalLabel } from '../../../shared/shift-time';
-import type { Mailer } from '../../lib/mailer';
+import { enqueueNotice, type OutboxSender } from '../../lib/outbox';
+import { unitOfWork } from '../../lib/unit-of-work';
 import { Condition } from '../conditions/model';
 import { PlantUnit } from '../plant/model';
 import { shiftChangeAt } from '../shifts/crews';
@@ -12,49 +15,80 @@ import { Handover, HandoverItem } from './model';
 
 const crewRoles = ['trainee', 'operator', 'shift_lead'];
 
-async function crewAddresses(crewId: number | null, roles: string[]) {
+async function crewAddresses(crewId: number | null, roles: string[], transaction?: Transaction) {
   if (!crewId) return [];
-  return (await User.findAll({ where: { crewId, active: true, role: roles }, attributes: ['email'] })).map((u) => u.email);
+  return (await User.findAll({ where: { crewId, active: true, role: roles }, attributes: ['email'], transaction })).map((u) => u.email);
 }
 
 export type Notices = ReturnType<typeof makeNotices>;
 
-export function makeNotices(mailer: Mailer, publicUrl: string) {
-  async function handoverSubmitted(handoverId: number) {
-    const h = await Handover.findByPk(handoverId);
+export function makeNotices(sequelize: Sequelize, outbox: Pick<OutboxSender, 'wake'>, publicUrl: string) {
+  const wakeAfterCommit = (transaction: Transaction) => transaction.afterCommit(() => void outbox.wake());
+
+  /** The incoming crew's notice of a submit, written in the submit's own transaction (after its items are synced). */
+  async function handoverSubmitted(handoverId: number, transaction: Transaction) {
+    const h = await Handover.findByPk(handoverId, { transaction });
     if (!h) return;
-    const [unit, items, submitter] = await Promise.all([PlantUnit.findByPk(h.unitId), HandoverItem.findAll({ where: { handoverId, removedAt: null } }), h.submittedBy ? User.findByPk(h.submittedBy) : null]);
-    const settings = await settingsForStation(unit!.stationId);
+    const [unit, items, submitter] = await Promise.all([
+      PlantUnit.findByPk(h.unitId, { transaction }),
+      HandoverItem.findAll({ where: { handoverId, removedAt: null }, transaction }),
+      h.submittedBy ? User.findByPk(h.submittedBy, { transaction }) : null,
+    ]);
+    const settings = await settingsForStation(unit!.stationId, transaction);
     const high = items.filter((i) => i.priority === 'high');
-    await mailer.send({
-      to: await crewAddresses(h.incomingCrewId, crewRoles),
-      subject: `Handover for ${unit!.name} submitted — ${items.length} items to acknowledge`,
-      text: [
-        `${submitter?.name ?? 'The outgoing crew'} submitted the handover for ${unit!.name}, shift change ${stationLocalLabel(h.handoverAt, settings.timeZone)} (${settings.timeZone}).`,
-        `${items.length} items, ${high.length} of high priority:`,
-        ...items.map((i) => `- [${i.priority}] ${i.title}`),
-        '',
-        `Acknowledge each item on the board: ${publicUrl}/handover?unit=${h.unitId}`,
-      ].join('\n'),
-    });
+    const queued = await enqueueNotice(
+      {
+        kind: 'handover_submitted',
+        refId: handoverId,
+        to: await crewAddresses(h.incomingCrewId, crewRoles, transaction),
+        subject: `Handover for ${unit!.name} submitted — ${items.length} items to acknowledge`,
+        text: [
+          `${submitter?.name ?? 'The outgoing crew'} submitted the handover for ${unit!.name}, shift change ${stationLocalLabel(h.handoverAt, settings.timeZone)} (${settings.timeZone}).`,
+          `${items.length} items, ${high.length} of high priority:`,
+          ...items.map((i) => `- [${i.priority}] ${i.title}`),
+          '',
+          `Acknowledge each item on the board: ${publicUrl}/handover?unit=${h.unitId}`,
+        ].join('\n'),
+      },
+      transaction,
+    );
+    if (queued) wakeAfterCommit(transaction);
   }
 
-  /** Sends what is due at `now`; each notice once. Called every minute by the server. */
-  async function sendDue(now = new Date()): Promise<number> {
-    let sent = 0;
+  /**
+   * Writes the reminders due at `now` to the outbox, each once: the record's "sent" mark is set by a
+   * guarded UPDATE in the same transaction as the notice, so two servers checking at once write one.
+   * Called every minute by the server; returns how many were written.
+   */
+  async function queueDue(now = new Date()): Promise<number> {
+    let queued = 0;
     const late = await Handover.findAll({
       where: { status: { [Op.ne]: 'accepted' }, reminderSentAt: null, handoverAt: { [Op.lte]: new Date(now.getTime() - 30 * 60_000) } },
+      attributes: ['id', 'unitId', 'status', 'incomingCrewId'],
       limit: 50,
     });
     for (const h of late) {
       const unit = await PlantUnit.findByPk(h.unitId);
-      await mailer.send({
-        to: await crewAddresses(h.incomingCrewId, ['shift_lead']),
-        subject: `Handover for ${unit!.name} not yet accepted`,
-        text: `The handover for ${unit!.name} is ${h.status === 'draft' ? 'still a draft' : 'submitted but not accepted'} 30 minutes into the shift.\n${publicUrl}/handover?unit=${h.unitId}`,
-      });
-      await h.update({ reminderSentAt: now });
-      sent += 1;
+      const to = await crewAddresses(h.incomingCrewId, ['shift_lead']);
+      const wrote = await unitOfWork(sequelize, async (transaction) => {
+        const [, marked] = await sequelize.query('UPDATE handovers SET reminder_sent_at = ? WHERE id = ? AND reminder_sent_at IS NULL', {
+          replacements: [now, h.id],
+          type: QueryTypes.UPDATE,
+          transaction,
+        });
+        if (!Number(marked)) return false;
+        return enqueueNotice(
+          {
+            kind: 'handover_late',
+            refId: h.id,
+            to,
+            subject: `Handover for ${unit!.name} not yet accepted`,
+            text: `The handover for ${unit!.name} is ${h.status === 'draft' ? 'still a draft' : 'submitted but not accepted'} 30 minutes into the shift.\n${publicUrl}/handover?unit=${h.unitId}`,
+          },
+          transaction,
+        );
+      }, 'queue late-acceptance reminder');
+      if (wrote) queued += 1;
     }
     const expired = await Condition.findAll({ where: { closedAt: null, expiryNoticeSentAt: null, limitAt: { [Op.lte]: now } }, limit: 50 });
     for (const c of expired) {
@@ -62,16 +96,29 @@ export function makeNotices(mailer: Mailer, publicUrl: string) {
       const change = await shiftChangeAt(unit!.stationId, now);
       const leads = await crewAddresses(change.outgoingCrewId, ['shift_lead']);
       const owner = await User.findByPk(c.ownerId);
-      await mailer.send({
-        to: [...new Set([...leads, ...(owner ? [owner.email] : [])])],
-        subject: `Deadline passed: ${c.title}`,
-        text: `The time limit of “${c.title}” on ${unit!.name} passed at ${stationLocalLabel(c.limitAt, change.settings.timeZone)}.\nRequired action: ${c.requiredAction}\n${publicUrl}/log?unit=${c.unitId}`,
-      });
-      await c.update({ expiryNoticeSentAt: now });
-      sent += 1;
+      const wrote = await unitOfWork(sequelize, async (transaction) => {
+        const [, marked] = await sequelize.query('UPDATE conditions SET expiry_notice_sent_at = ? WHERE id = ? AND expiry_notice_sent_at IS NULL AND closed_at IS NULL', {
+          replacements: [now, c.id],
+          type: QueryTypes.UPDATE,
+          transaction,
+        });
+        if (!Number(marked)) return false;
+        return enqueueNotice(
+          {
+            kind: 'condition_deadline',
+            refId: c.id,
+            to: [...new Set([...leads, ...(owner ? [owner.email] : [])])],
+            subject: `Deadline passed: ${c.title}`,
+            text: `The time limit of “${c.title}” on ${unit!.name} passed at ${stationLocalLabel(c.limitAt, change.settings.timeZone)}.\nRequired action: ${c.requiredAction}\n${publicUrl}/log?unit=${c.unitId}`,
+          },
+          transaction,
+        );
+      }, 'queue deadline notice');
+      if (wrote) queued += 1;
     }
-    return sent;
+    if (queued) void outbox.wake();
+    return queued;
   }
 
-  return { handoverSubmitted, sendDue };
+  return { handoverSubmitted, queueDue };
 }

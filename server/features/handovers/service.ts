@@ -220,12 +220,10 @@ export function makeHandoverService(sequelize: Sequelize, notices: Notices) {
         // What the outgoing crew saw of the condenser, kept with the record as it stood at submit.
         const condenserSnapshot = await freezeCondenserState(sequelize, h, now, transaction);
         await h.update({ status: 'submitted', submittedBy: actor.id, submittedAt: now, condenserSnapshot }, { transaction });
+        // The incoming crew's e-mail goes to the outbox with the submit: sent once it commits, never for a rollback.
+        await notices.handoverSubmitted(id, transaction);
         await recordAudit({ actorId: actor.id, action: 'handover.submit', entity: 'handover', entityId: id }, transaction);
         changed(transaction, h);
-        // After the commit; a mail failure must not undo the submit.
-        transaction.afterCommit(() => {
-          notices.handoverSubmitted(id).catch((error: unknown) => console.error('[mail] submit notice failed', error));
-        });
         return true;
       },
       'submit handover',

@@ -52,7 +52,7 @@ export function importRoutes(imports: ImportService): Router {
     res.json({ timeZone: analysis.timeZone, counts: analysis.counts, rows: analysis.reports.slice(0, 1000) });
   });
 
-  /** Step 3: store the valid rows in one transaction and report the rest. */
+  /** Step 3: store the valid rows, a batch per transaction, and report the rest. */
   router.post('/units/:unitId/imports', ...withFile, async (req, res) => {
     const result = await imports.commit(req.user!, parseId(req.params.unitId, 'unitId'), fileOf(req), mappingOf(req.body));
     res.status(201).json(result);

@@ -1,17 +1,19 @@
-// Historian CSV import: map columns, preview every row, then store the valid ones in one transaction.
-import { Op, type Sequelize } from 'sequelize';
+// Historian CSV import: map columns, preview every row, then store the valid ones in batches.
+import { Op, type Sequelize, type Transaction } from 'sequelize';
 import type { ReadingSetSi } from '../../../shared/calc/evaluate';
 import { importFields, type ImportField, type ImportMapping, type ImportRowReport } from '../../../shared/schemas/imports';
 import { readingSetInputSchema, type ReadingSetInput } from '../../../shared/schemas/reading-set';
 import { publish } from '../../lib/live';
 import { recordAudit } from '../../lib/audit';
 import { convertReadingSet } from '../../lib/convert-readings';
-import { ValidationError, fieldErrorsFromZod } from '../../lib/errors';
+import { HttpError, ValidationError, fieldErrorsFromZod } from '../../lib/errors';
+import { unitOfWork } from '../../lib/unit-of-work';
+import { takeFlagTurn } from '../flags/automatic';
 import { requireUnit, unjudgedReason, versionStarts } from '../plant/versions';
 import { settingsForStation } from '../stations/settings';
 import { parseStationTime } from '../../../shared/station-time';
 import { ReadingSet } from '../readings/model';
-import { checkTakenAt, storeReading } from '../readings/service';
+import { checkTakenAt, storeImportBatch } from '../readings/service';
 import { ImportMappingRow } from './model';
 import { parseCsv } from './parse-csv';
 
@@ -97,6 +99,8 @@ export type ImportAnalysis = {
   reports: ImportRowReport[];
   valid: ValidRow[];
   counts: { rows: number; valid: number; invalid: number; duplicate: number };
+  /** Of the duplicates, rows stored by an earlier import (the rest repeat an earlier row of this file). */
+  alreadyImported: number;
   /** The station's zone, in which times without an offset were read. */
   timeZone: string;
 };
@@ -170,44 +174,104 @@ export async function analyseImport(unitId: number, buffer: Buffer, mapping: Imp
     }
   }
   const count = (status: ImportRowReport['status']) => reports.filter((r) => r.status === status).length;
-  return { reports, valid, counts: { rows: rows.length, valid: count('valid'), invalid: count('invalid'), duplicate: count('duplicate') }, timeZone };
+  return {
+    reports,
+    valid,
+    counts: { rows: rows.length, valid: count('valid'), invalid: count('invalid'), duplicate: count('duplicate') },
+    alreadyImported: candidates.length - valid.length,
+    timeZone,
+  };
 }
 
-export function makeImportService(sequelize: Sequelize) {
-  async function commit(actor: { id: number; role: string }, unitId: number, buffer: Buffer, mapping: ImportMapping) {
-    const analysis = await analyseImport(unitId, buffer, mapping);
-    let flagsRaised = 0;
-    let outsidePlausible = 0;
-    // All valid rows or none: a failure part-way leaves nothing half-imported.
-    await sequelize.transaction(async (transaction) => {
-      for (const row of analysis.valid) {
-        const stored = await storeReading(
-          // History is taken as the historian kept it: a row outside the plausible range is stored
-          // marked (and its derived checks withheld) rather than refused, as nobody is there to confirm it.
-          { unitId, takenAt: row.takenAt, raw: row.raw, si: row.si, actor, source: 'import', importKey: row.takenAt.toISOString(), confirmed: 'all' },
+/** Rows per transaction: a round on the same unit waits for at most one batch. */
+export const IMPORT_BATCH_ROWS = 100;
+
+export function makeImportService(sequelize: Sequelize, options: { batchRows?: number } = {}) {
+  const batchRows = options.batchRows ?? IMPORT_BATCH_ROWS;
+
+  async function rememberMapping(actor: { id: number }, unitId: number, mapping: ImportMapping, transaction: Transaction) {
+    const [mappingRow, created] = await ImportMappingRow.findOrCreate({
+      where: { unitId, source: mapping.source },
+      defaults: { unitId, source: mapping.source, mapping, updatedBy: actor.id, updatedAt: new Date() },
+      transaction,
+    });
+    if (!created) await mappingRow.update({ mapping, updatedBy: actor.id, updatedAt: new Date() }, { transaction });
+  }
+
+  /**
+   * Stores one batch as one unit of work. It takes the unit's turn first (rounds that may open a
+   * flag take the same one, so neither deadlocks the other), then skips rows stored meanwhile by
+   * another import of the same file: with the turn held, that check cannot go stale.
+   */
+  async function storeBatch(actor: { id: number; role: string }, unitId: number, rows: ValidRow[], first: boolean, mapping: ImportMapping, counts: ImportAnalysis['counts']) {
+    return unitOfWork(
+      sequelize,
+      async (transaction) => {
+        await takeFlagTurn(unitId, transaction);
+        const keys = rows.map((r) => r.takenAt.toISOString());
+        const there = new Set(
+          (await ReadingSet.findAll({ where: { unitId, importKey: keys }, attributes: ['importKey'], transaction })).map((r) => r.importKey!),
+        );
+        const fresh = rows.filter((r) => !there.has(r.takenAt.toISOString())).map((r) => ({ ...r, importKey: r.takenAt.toISOString() }));
+        const { flagsRaised, outsidePlausible } = await storeImportBatch(unitId, actor, fresh, transaction);
+        const stored = fresh.length;
+        if (first) await rememberMapping(actor, unitId, mapping, transaction);
+        await recordAudit(
+          {
+            actorId: actor.id,
+            action: 'import.batch',
+            entity: 'unit',
+            entityId: unitId,
+            after: { source: mapping.source, firstRow: rows[0]?.row ?? null, lastRow: rows.at(-1)?.row ?? null, stored, alreadyThere: there.size, ...(first ? { file: counts } : {}) },
+          },
           transaction,
         );
-        flagsRaised += stored.flagsRaised;
-        if (stored.reading.outsidePlausible.length) outsidePlausible += 1;
+        publish(transaction, { entity: 'import', id: unitId, unitId });
+        return { stored, alreadyThere: there.size, flagsRaised, outsidePlausible };
+      },
+      'import batch',
+    );
+  }
+
+  /**
+   * Stores the valid rows in batches of `batchRows`, each its own transaction. A failure part-way
+   * keeps the batches already written, whole, and says so; importing the same file again stores
+   * only the rest, since rows are keyed by unit and time.
+   */
+  async function commit(actor: { id: number; role: string }, unitId: number, buffer: Buffer, mapping: ImportMapping) {
+    const analysis = await analyseImport(unitId, buffer, mapping);
+    const totals = { stored: 0, alreadyThere: analysis.alreadyImported, flagsRaised: 0, outsidePlausible: 0, batches: 0 };
+    const batches: ValidRow[][] = [];
+    for (let i = 0; i < analysis.valid.length; i += batchRows) batches.push(analysis.valid.slice(i, i + batchRows));
+    if (batches.length === 0) batches.push([]);
+    for (const [index, batch] of batches.entries()) {
+      try {
+        const done = await storeBatch(actor, unitId, batch, index === 0, mapping, analysis.counts);
+        totals.stored += done.stored;
+        totals.alreadyThere += done.alreadyThere;
+        totals.flagsRaised += done.flagsRaised;
+        totals.outsidePlausible += done.outsidePlausible;
+        totals.batches += 1;
+      } catch (error) {
+        if (totals.batches === 0 || error instanceof HttpError) throw error;
+        console.error(`[import] unit ${unitId}: batch ${index + 1} of ${batches.length} failed`, error);
+        throw new HttpError(
+          500,
+          'IMPORT_INCOMPLETE',
+          `The import stopped at file row ${batch[0]!.row}: ${totals.stored} rows were stored (${totals.batches} whole batches of up to ${batchRows} rows) and nothing of the batch that failed. ` +
+            'Import the same file again to add the rest; rows already stored are skipped.',
+        );
       }
-      const [mappingRow] = await ImportMappingRow.findOrCreate({
-        where: { unitId, source: mapping.source },
-        defaults: { unitId, source: mapping.source, mapping, updatedBy: actor.id, updatedAt: new Date() },
-        transaction,
-      });
-      await mappingRow.update({ mapping, updatedBy: actor.id, updatedAt: new Date() }, { transaction });
-      await recordAudit(
-        { actorId: actor.id, action: 'import.commit', entity: 'unit', entityId: unitId, after: { source: mapping.source, ...analysis.counts, outsidePlausible } },
-        transaction,
-      );
-      publish(transaction, { entity: 'import', id: unitId, unitId });
-    });
+    }
     return {
       timeZone: analysis.timeZone,
-      imported: analysis.valid.length,
+      imported: totals.stored,
+      alreadyThere: totals.alreadyThere,
+      batches: totals.batches,
+      batchRows,
+      flagsRaised: totals.flagsRaised,
       /** Rows stored marked "outside plausible range". */
-      outsidePlausible,
-      flagsRaised,
+      outsidePlausible: totals.outsidePlausible,
       counts: analysis.counts,
       problems: analysis.reports.filter((r) => r.status !== 'valid').slice(0, 500),
     };

@@ -128,31 +128,49 @@ function sourceSql(kind: DocumentKind, ids: readonly number[] | null) {
   return sources[kind].replace(/\{ids:([a-z]\.id)\}/, (_m, column: string) => (ids ? `${column} IN (${ids.map((id) => Number(id)).join(',')})` : 'TRUE'));
 }
 
-/** Writes (or refreshes) the documents of `kind` for these source ids; all of them when `ids` is null. */
+type DocumentRow = Record<Column | 'terms', unknown>;
+
+/**
+ * Writes (or refreshes) the documents of `kind` for these source ids; all of them when `ids` is null.
+ *
+ * A refresh runs inside the writer's transaction, beside other writers on the same unit, so it
+ * reads its source with a plain (non-locking) SELECT and then writes the rows it got with one
+ * INSERT … VALUES. As a single INSERT … SELECT it took shared next-key locks on every source row
+ * and index range it read (the gap after a round's values blocked the next round's) and InnoDB's
+ * table-wide auto-increment lock for an insert of unknown size: concurrent rounds deadlocked in
+ * it, some reported as "Failed to read auto-increment value". The whole rebuild keeps the single
+ * statement: it runs alone.
+ */
 export async function indexDocuments(sequelize: Sequelize, kind: DocumentKind, ids: readonly number[] | null, transaction?: Transaction | null) {
   if (ids && ids.length === 0) return;
-  await sequelize.query(
-    `INSERT INTO logbook_documents (${COLUMNS.join(', ')}, terms) SELECT src.*, ${JOINED_TERMS} FROM (${sourceSql(kind, ids)}) src ${upsert}`,
-    { transaction: transaction ?? undefined },
-  );
-  // A round back inside limits and never amended is no longer a document.
-  if (kind === 'round' && ids) {
+  const t = transaction ?? undefined;
+  if (!ids) {
+    await sequelize.query(`INSERT INTO logbook_documents (${COLUMNS.join(', ')}, terms) SELECT src.*, ${JOINED_TERMS} FROM (${sourceSql(kind, null)}) src ${upsert}`, { transaction: t });
+    await assignShiftsAndCrews(sequelize, transaction, null);
+    return;
+  }
+  const rows = await sequelize.query<DocumentRow>(`SELECT src.*, ${JOINED_TERMS} AS terms FROM (${sourceSql(kind, ids)}) src`, { type: QueryTypes.SELECT, transaction: t });
+  if (rows.length) {
+    const columns = [...COLUMNS, 'terms'] as const;
     await sequelize.query(
-      `DELETE d FROM logbook_documents d JOIN reading_sets r ON r.id = d.ref_id
-       WHERE d.kind = 'round' AND d.ref_id IN (${ids.map(Number).join(',')}) AND r.worst_status NOT IN ('watch', 'alarm') AND JSON_LENGTH(r.outside_plausible) = 0
-         AND NOT EXISTS (SELECT 1 FROM reading_amendments a WHERE a.reading_set_id = r.id)`,
-      { transaction: transaction ?? undefined },
+      `INSERT INTO logbook_documents (${columns.join(', ')}) VALUES ${rows.map(() => `(${columns.map(() => '?').join(', ')})`).join(', ')} ${upsert}`,
+      { replacements: rows.flatMap((row) => columns.map((c) => row[c] ?? null)), transaction: t },
     );
   }
-  // A draft item taken off the handover is no longer a document.
-  if (kind === 'handover_item' && ids) {
-    await sequelize.query(
-      `DELETE d FROM logbook_documents d JOIN handover_items i ON i.id = d.ref_id
-       WHERE d.kind = 'handover_item' AND d.ref_id IN (${ids.map(Number).join(',')}) AND i.removed_at IS NOT NULL`,
-      { transaction: transaction ?? undefined },
-    );
+  // A round back inside limits and never amended, or a draft item taken off the handover, is no longer a document.
+  const gone = new Set(ids.map(Number));
+  for (const row of rows) gone.delete(Number(row.ref_id));
+  if ((kind === 'round' || kind === 'handover_item') && gone.size) {
+    // Deleted by primary key, and only rows that exist: a DELETE by (kind, ref_id) that finds
+    // nothing locks the gap where the next round's document goes.
+    const stale = await sequelize.query<{ id: number }>(`SELECT id FROM logbook_documents WHERE kind = ? AND ref_id IN (${[...gone].join(',')})`, {
+      replacements: [kind],
+      type: QueryTypes.SELECT,
+      transaction: t,
+    });
+    if (stale.length) await sequelize.query(`DELETE FROM logbook_documents WHERE id IN (${stale.map((r) => Number(r.id)).join(',')})`, { transaction: t });
   }
-  await assignShiftsAndCrews(sequelize, transaction, ids ? { kind, ids } : null);
+  await assignShiftsAndCrews(sequelize, transaction, { kind, ids });
 }
 
 /**

@@ -4,6 +4,8 @@ import { checkKeys } from '../../../shared/calc/check-catalog';
 import { evaluateReadingSet, type Evaluation, type ReadingSetSi } from '../../../shared/calc/evaluate';
 import type { Status } from '../../../shared/calc/limits';
 import type { UnitDesign } from '../../../shared/schemas/plant';
+import { startingPlausibleRanges } from '../../../shared/calc/plausibility';
+import { LimitSetVersion, PlausibleRangeVersion, UnitDesignVersion } from '../plant/model';
 import { designInForce, limitsInForce, plausibleInForce } from '../plant/versions';
 
 export type Judged = {
@@ -40,6 +42,46 @@ export async function judgeAt(unitId: number, takenAt: Date, si: ReadingSetSi, t
     limitVersionId: limits.id,
     plausibleVersionId: plausible.versionId,
     worstStatus: worstOf(evaluation),
+  };
+}
+
+/** The newest version with `effectiveFrom <= at` (ties: the later id), as `designInForce` asks SQL. */
+function inForceAt<V extends { id: number; effectiveFrom: Date }>(versions: V[], at: Date): V | undefined {
+  let best: V | undefined;
+  for (const v of versions) {
+    if (v.effectiveFrom > at) continue;
+    if (!best || v.effectiveFrom > best.effectiveFrom || (v.effectiveFrom.getTime() === best.effectiveFrom.getTime() && v.id > best.id)) best = v;
+  }
+  return best;
+}
+
+/**
+ * `judgeAt` for many readings of one unit (an import batch): the unit's versions are read once and
+ * each reading is judged by those in force when it was taken. Versions are append-only, so a list
+ * read inside the batch's transaction stays right for the whole batch.
+ */
+export async function judgeManyAt(unitId: number, transaction: Transaction): Promise<(takenAt: Date, si: ReadingSetSi) => Judged> {
+  const [designs, limitSets, plausibleSets] = await Promise.all([
+    UnitDesignVersion.findAll({ where: { unitId }, transaction }),
+    LimitSetVersion.findAll({ where: { unitId }, transaction }),
+    PlausibleRangeVersion.findAll({ where: { unitId }, transaction }),
+  ]);
+  return (takenAt, si) => {
+    const design = inForceAt(designs, takenAt);
+    const limits = inForceAt(limitSets, takenAt);
+    // The import's analysis refuses rows from before the first versions; this is the last word.
+    if (!design || !limits) throw new Error(`no design data or limits in force for unit ${unitId} at ${takenAt.toISOString()}`);
+    // A unit without a plausible-range version of its own uses the starting ranges, as `plausibleInForce` does.
+    const plausible = inForceAt(plausibleSets, takenAt);
+    const evaluation = evaluateReadingSet(si, design.data, limits.limits, plausible?.ranges ?? startingPlausibleRanges);
+    return {
+      evaluation,
+      design: design.data,
+      designVersionId: design.id,
+      limitVersionId: limits.id,
+      plausibleVersionId: plausible?.id ?? null,
+      worstStatus: worstOf(evaluation),
+    };
   };
 }
 

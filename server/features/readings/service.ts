@@ -10,11 +10,11 @@ import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
 import { ConfirmationRequired, Conflict, Forbidden, NotFound, ValidationError } from '../../lib/errors';
 import { convertReadingSet } from '../../lib/convert-readings';
-import { refreshAutomaticFlags } from '../flags/automatic';
+import { refreshAutomaticFlags, takeFlagTurn } from '../flags/automatic';
 import { requireUnit, unjudgedReason, versionStarts } from '../plant/versions';
 import { settingsForStation } from '../stations/settings';
 import { User } from '../users/model';
-import { judgeAt, valueRows, type Judged } from './evaluate-at';
+import { judgeAt, judgeManyAt, valueRows, type Judged } from './evaluate-at';
 import { ReadingAmendment, ReadingCountersign, ReadingSet, ReadingValue, type ReadingSource } from './model';
 
 const FUTURE_TOLERANCE_MS = 5 * 60 * 1000;
@@ -66,6 +66,7 @@ function confirmedOutsidePlausible(judged: Judged, raw: ReadingSetInput, si: Rea
 export async function storeReading(r: StoreReading, transaction: Transaction): Promise<{ reading: ReadingSet; flagsRaised: number }> {
   const judged = await judgeAt(r.unitId, r.takenAt, r.si, transaction);
   const outsidePlausible = confirmedOutsidePlausible(judged, r.raw, r.si, r.confirmed);
+  await takeFlagTurn(r.unitId, transaction, judged.evaluation);
   const reading = await ReadingSet.create(
     {
       unitId: r.unitId,
@@ -89,6 +90,51 @@ export async function storeReading(r: StoreReading, transaction: Transaction): P
   await ReadingValue.bulkCreate(valueRows(reading.id, r.unitId, r.takenAt, judged.evaluation), { transaction });
   const flagsRaised = await refreshAutomaticFlags(r.unitId, reading.id, r.takenAt, judged.evaluation, transaction);
   return { reading, flagsRaised };
+}
+
+/**
+ * An import batch: the same rows as `storeReading` one by one (in the same order, so flags open
+ * and refresh as they would), in a handful of statements instead of several per row, so that the
+ * batch, and the unit's turn it holds, is short. Every row carries its import key.
+ */
+export async function storeImportBatch(unitId: number, actor: Actor, rows: { takenAt: Date; raw: ReadingSetInput; si: ReadingSetSi; importKey: string }[], transaction: Transaction) {
+  if (!rows.length) return { flagsRaised: 0, outsidePlausible: 0 };
+  const judge = await judgeManyAt(unitId, transaction);
+  const judged = rows.map((r) => judge(r.takenAt, r.si));
+  const recordedAt = new Date();
+  await ReadingSet.bulkCreate(
+    rows.map((r, i) => ({
+      unitId,
+      takenAt: r.takenAt,
+      recordedAt,
+      recordedBy: actor.id,
+      recordedAsTrainee: actor.role === 'trainee',
+      source: 'import' as const,
+      importKey: r.importKey,
+      designVersionId: judged[i]!.designVersionId,
+      limitVersionId: judged[i]!.limitVersionId,
+      plausibleVersionId: judged[i]!.plausibleVersionId,
+      raw: r.raw,
+      si: r.si,
+      results: judged[i]!.evaluation,
+      worstStatus: judged[i]!.worstStatus,
+      // History is taken as the historian kept it: a row outside the plausible range is stored marked
+      // (and its derived checks withheld) rather than refused, as nobody is there to confirm it.
+      outsidePlausible: judged[i]!.evaluation.implausible.map((item) => item.key),
+    })),
+    { transaction },
+  );
+  // Read back by the unique (unit, import key) rather than trusting consecutive auto-increment ids.
+  const ids = new Map(
+    (await ReadingSet.findAll({ where: { unitId, importKey: rows.map((r) => r.importKey) }, attributes: ['id', 'importKey'], transaction })).map((r) => [r.importKey!, r.id]),
+  );
+  await ReadingValue.bulkCreate(
+    rows.flatMap((r, i) => valueRows(ids.get(r.importKey)!, unitId, r.takenAt, judged[i]!.evaluation)),
+    { transaction },
+  );
+  let flagsRaised = 0;
+  for (const [i, r] of rows.entries()) flagsRaised += await refreshAutomaticFlags(unitId, ids.get(r.importKey)!, r.takenAt, judged[i]!.evaluation, transaction);
+  return { flagsRaised, outsidePlausible: judged.filter((j) => j.evaluation.implausible.length > 0).length };
 }
 
 async function names(ids: (number | null | undefined)[]): Promise<Map<number, string>> {
@@ -135,6 +181,7 @@ export function makeReadingService(sequelize: Sequelize) {
       // Judged by the versions in force when the reading was taken, not today's.
       const judged = await judgeAt(original.unitId, original.takenAt, si, transaction);
       const outsidePlausible = confirmedOutsidePlausible(judged, raw, si, input.confirmOutsidePlausible ?? []);
+      await takeFlagTurn(original.unitId, transaction, judged.evaluation);
       const amendment = await ReadingAmendment.create(
         { readingSetId, amendedBy: actor.id, amendedAt: new Date(), reason: input.reason, raw, si, results: judged.evaluation, worstStatus: judged.worstStatus, outsidePlausible },
         { transaction },

@@ -33,16 +33,20 @@ const opened: BuiltApp[] = [];
  * The app as configured for a test. Every test file signs in from the same address, so its ceiling
  * of failures is lifted unless a test sets one; the per-account lock-out keeps its shipped settings.
  */
-export function buildApp(options: { signInLimits?: Partial<SignInLimits>; anonymousTokenLimit?: number; smtpUrl?: string } = {}): BuiltApp {
-  const built = createApp(db(), {
-    sessionSecret: SECRET,
-    production: false,
-    behindHttpsProxy: false,
-    signInLimits: { ...defaultSignInLimits, addressFailures: 10_000, ...options.signInLimits },
-    anonymousTokenLimit: options.anonymousTokenLimit ?? 10_000,
-    smtpUrl: options.smtpUrl,
-    publicUrl: 'http://127.0.0.1:5180',
-  });
+export function buildApp(options: { signInLimits?: Partial<SignInLimits>; anonymousTokenLimit?: number; smtpUrl?: string; importBatchRows?: number } = {}): BuiltApp {
+  const built = createApp(
+    db(),
+    {
+      sessionSecret: SECRET,
+      production: false,
+      behindHttpsProxy: false,
+      signInLimits: { ...defaultSignInLimits, addressFailures: 10_000, ...options.signInLimits },
+      anonymousTokenLimit: options.anonymousTokenLimit ?? 10_000,
+      smtpUrl: options.smtpUrl,
+      publicUrl: 'http://127.0.0.1:5180',
+    },
+    { importBatchRows: options.importBatchRows },
+  );
   opened.push(built);
   return built;
 }

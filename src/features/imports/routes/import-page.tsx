@@ -4,12 +4,14 @@ import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-p
 import { Button } from '../../../components/ui/button';
 import { CautionNote, Notice } from '../../../components/ui/notice';
 import { ApiError } from '../../../lib/api-client';
-import { useCommitImport, useInspect, usePreview, useRememberedMappings } from '../api/imports';
+import { importIsIncomplete, useCommitImport, useInspect, usePreview, useRememberedMappings } from '../api/imports';
 import { ProblemRows } from '../components/problem-rows';
 import { useWatchUnit } from '../../../app/use-live-updates';
 
 const selectClass = 'rounded-md border border-line bg-field px-2 py-1';
 const fieldKeys = Object.keys(importFields) as ImportField[];
+
+const rows = (n: number) => `${n} ${n === 1 ? 'row' : 'rows'}`;
 
 function errorText(error: Error | null) {
   if (!error) return null;
@@ -137,7 +139,8 @@ export function ImportPage() {
           <Notice kind="info">
             <span data-testid="import-time-zone">Times without an offset are read as station time ({preview.data.timeZone}); times with an offset or Z keep it.</span>{' '}
             {preview.data.counts.valid} rows ready to import · {preview.data.counts.invalid} with problems · {preview.data.counts.duplicate} already imported or
-            repeated. A value outside its physical range is a row problem; one outside the unit’s plausible range is imported, marked.
+            repeated. A value outside its physical range is a row problem; one outside the unit’s plausible range is imported, marked. repeated. Rows are stored in batches: if the import stops part-way, the batches already stored stay, and importing the same file again adds
+            only the rest.
           </Notice>
           <ProblemRows rows={preview.data.rows} timeZone={preview.data.timeZone} />
           <Button disabled={!preview.data.counts.valid || commit.isPending || commit.isSuccess} onClick={() => file && commit.mutate({ file, mapping })}>
@@ -145,10 +148,21 @@ export function ImportPage() {
           </Button>
         </div>
       ) : null}
-      {commit.error ? <Notice kind="error">{errorText(commit.error)} Nothing was imported.</Notice> : null}
+      {commit.error ? (
+        <Notice kind="error">
+          {importIsIncomplete(commit.error) ? (
+            <span data-testid="import-incomplete">{commit.error.message}</span>
+          ) : (
+            <>{errorText(commit.error)} Nothing was imported.</>
+          )}
+        </Notice>
+      ) : null}
       {commit.data ? (
         <Notice kind="success">
-          Imported {commit.data.imported} rows; {commit.data.flagsRaised} new flag(s) raised.
+          <span data-testid="import-result">
+            Stored {rows(commit.data.imported)} in {commit.data.batches} {commit.data.batches === 1 ? 'batch' : 'batches'} of up to {commit.data.batchRows};{' '}
+            {rows(commit.data.alreadyThere)} already there from an earlier import, skipped; {commit.data.flagsRaised} new flag(s) raised.
+          </span>
           {commit.data.outsidePlausible
             ? ` ◇ ${commit.data.outsidePlausible} row(s) lie outside the unit’s plausible range: stored marked “outside plausible range”, with the checks computed from them withheld.`
             : ''}
