@@ -5,7 +5,10 @@ import { shortestShiftMinutes } from '../../shared/schemas/log';
 import { startingLimits } from '../../shared/calc/limits';
 import { demoCondenserDesign } from '../../server/db/seed/demo-plant';
 import { hashPassword } from '../../server/lib/auth';
-import { Crew, LimitSetVersion, PlantUnit, Station, UnitDesignVersion } from '../../server/features/plant/model';
+import { Crew, LimitSetVersion, PlantUnit, PlausibleRangeVersion, Station, UnitDesignVersion } from '../../server/features/plant/model';
+import { plausibleCatalog, plausibleKeys, type PlausibleRanges } from '../../shared/calc/plausibility';
+
+const widestRanges = Object.fromEntries(plausibleKeys.map((key) => [key, plausibleCatalog[key].settable])) as PlausibleRanges;
 import { User } from '../../server/features/users/model';
 
 const PASSWORD = 'fault-test pass phrase 7';
@@ -51,6 +54,8 @@ export async function buildWorld(submitUnits: number): Promise<World> {
     const u = await PlantUnit.create({ stationId: station.id, code, name: `Drill unit ${code}` });
     await UnitDesignVersion.create({ unitId: u.id, effectiveFrom: since, data: demoCondenserDesign, note: 'fault drill', createdBy: null });
     await LimitSetVersion.create({ unitId: u.id, effectiveFrom: since, limits: startingLimits, note: 'fault drill', createdBy: null });
+    // The drill's rounds are about faults, not plausibility: nothing they carry is to be refused as odd.
+    await PlausibleRangeVersion.create({ unitId: u.id, effectiveFrom: since, ranges: widestRanges, note: 'fault drill', createdBy: null });
     return u.id;
   };
   const unitId = await unit('D1');

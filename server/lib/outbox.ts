@@ -4,6 +4,7 @@
 // UPDATE, so of several senders, in one process or many, exactly one holds each row; it sends,
 // marks the row sent, and on failure puts it back with a growing delay and the error.
 import { randomUUID } from 'node:crypto';
+import { isRetryable } from './unit-of-work';
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import type { Mailer } from './mailer';
 
@@ -76,12 +77,25 @@ export function makeOutboxSender(sequelize: Sequelize, mailer: Mailer, options: 
   async function sendDue(now = new Date()): Promise<{ sent: number; failed: number }> {
     await writeMarks();
     const token = randomUUID();
-    const [, claimed] = await sequelize.query(
-      `UPDATE outbox SET claim_token = ?, claimed_until = ?, attempts = attempts + 1
-       WHERE sent_at IS NULL AND due_at <= ? AND (claim_token IS NULL OR claimed_until < ?)
-       ORDER BY due_at, id LIMIT ?`,
-      { replacements: [token, new Date(now.getTime() + leaseMs), now, now, batch], type: QueryTypes.UPDATE },
-    );
+    const claim = () =>
+      sequelize.query(
+        `UPDATE outbox SET claim_token = ?, claimed_until = ?, attempts = attempts + 1
+         WHERE sent_at IS NULL AND due_at <= ? AND (claim_token IS NULL OR claimed_until < ?)
+         ORDER BY due_at, id LIMIT ?`,
+        { replacements: [token, new Date(now.getTime() + leaseMs), now, now, batch], type: QueryTypes.UPDATE },
+      );
+    // Two senders claiming at once may deadlock on the rows they scan; the loser claims again.
+    let result;
+    for (let attempt = 1; ; attempt++) {
+      try {
+        result = await claim();
+        break;
+      } catch (error) {
+        if (!isRetryable(error) || attempt >= 4) throw error;
+        await new Promise((resolve) => setTimeout(resolve, 5 + Math.random() * 20 * attempt));
+      }
+    }
+    const [, claimed] = result;
     if (!Number(claimed)) return { sent: 0, failed: 0 };
     const rows = await sequelize.query<Claimed>('SELECT id, recipients, subject, body, attempts FROM outbox WHERE claim_token = ? ORDER BY id', {
       replacements: [token],

@@ -13,7 +13,8 @@ const RETRYABLE = new Set([
 ]);
 const MAX_TRIES = 4;
 
-function isRetryable(error: unknown): boolean {
+/** A deadlock or lock timeout: the statement (or the whole unit of work) may simply be run again. */
+export function isRetryable(error: unknown): boolean {
   if (!(error instanceof DatabaseError)) return false;
   const errno = (error.parent as { errno?: number } | undefined)?.errno;
   return errno !== undefined && RETRYABLE.has(errno);

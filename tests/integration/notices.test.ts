@@ -1,12 +1,13 @@
 import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from 'vitest';
 import { Condition } from '../../server/features/conditions/model';
 import { Handover, HandoverItem } from '../../server/features/handovers/model';
-import { buildApp, closeAll, makeStation, makeUser, signedInAgent } from './support/test-app';
+import { buildApp, closeAll, makeStation, makeUser, signedInAgent, clearOutbox } from './support/test-app';
 import { startCatcher, waitForMail, waitForMessage, type Catcher } from './support/mail';
 
 let catcher: Catcher;
 let built: ReturnType<typeof buildApp>;
 beforeAll(async () => {
+  await clearOutbox();
   catcher = await startCatcher();
   built = buildApp({ smtpUrl: catcher.smtpUrl });
 });

@@ -13,7 +13,7 @@ import { unitOfWork } from '../../server/lib/unit-of-work';
 // @ts-expect-error plain JS helper shared with the bootstrap scripts
 import { startMailCatcher } from '../../scripts/lib/mail-catcher.mjs';
 import { startCatcher, waitForMail, type Catcher } from './support/mail';
-import { buildApp, closeAll, db, makeStation, makeUser, signedInAgent, type Agent } from './support/test-app';
+import { buildApp, closeAll, db, makeStation, makeUser, signedInAgent, type Agent, clearOutbox } from './support/test-app';
 
 type Row = { id: number; kind: string; ref_id: number; attempts: number; last_error: string | null; sent_at: Date | null; due_at: Date; claim_token: string | null };
 const rowsOf = (kind: string, refIds: number[]) =>
@@ -25,6 +25,7 @@ const rowsOf = (kind: string, refIds: number[]) =>
 let catcher: Catcher;
 let built: ReturnType<typeof buildApp>;
 beforeAll(async () => {
+  await clearOutbox();
   catcher = await startCatcher();
   built = buildApp({ smtpUrl: catcher.smtpUrl });
 });

@@ -136,3 +136,11 @@ export async function makeStation(crews = 2, options: { plausible?: PlausibleOpt
   for (let i = 0; i < crews; i++) crewRows.push(await Crew.create({ stationId: station.id, name: String.fromCharCode(65 + i) }));
   return { station, unit, crews: crewRows };
 }
+
+/**
+ * Notices other files queued and nobody sent (their apps run no sender) are marked sent, so a file
+ * that tests the outbox sees only its own. Test set-up only: it writes the shared test database.
+ */
+export async function clearOutbox() {
+  await db().query('UPDATE outbox SET sent_at = NOW(3), claim_token = NULL, claimed_until = NULL WHERE sent_at IS NULL');
+}
