@@ -75,16 +75,32 @@ export function makeOutboxSender(sequelize: Sequelize, mailer: Mailer, options: 
 
   /** One pass: claims what is due at `now`, sends it, marks it. Returns how many were sent and failed. */
   async function sendDue(now = new Date()): Promise<{ sent: number; failed: number }> {
+    const { sent, failed } = await pass(now);
+    return { sent, failed };
+  }
+
+  /** `more`: the pass found a full batch due, so there may be more behind it. */
+  async function pass(now: Date): Promise<{ sent: number; failed: number; more: boolean }> {
     await writeMarks();
     const token = randomUUID();
+    // Two steps, so senders never lock rows they do not take: a plain read (no locks) picks the
+    // candidates, then an UPDATE by primary key takes those still free. A row another sender took
+    // in between fails the guard and is skipped; a single UPDATE … ORDER BY … LIMIT locked every row
+    // it scanned and two senders deadlocked on the index.
+    const candidates = await sequelize.query<{ id: number }>(
+      `SELECT id FROM outbox WHERE sent_at IS NULL AND due_at <= ? AND (claim_token IS NULL OR claimed_until < ?) ORDER BY due_at, id LIMIT ?`,
+      { replacements: [now, now, batch], type: QueryTypes.SELECT },
+    );
+    if (candidates.length === 0) return { sent: 0, failed: 0, more: false };
+    const more = candidates.length >= batch;
+    const ids = candidates.map((c) => Number(c.id)).sort((a, b) => a - b);
     const claim = () =>
       sequelize.query(
         `UPDATE outbox SET claim_token = ?, claimed_until = ?, attempts = attempts + 1
-         WHERE sent_at IS NULL AND due_at <= ? AND (claim_token IS NULL OR claimed_until < ?)
-         ORDER BY due_at, id LIMIT ?`,
-        { replacements: [token, new Date(now.getTime() + leaseMs), now, now, batch], type: QueryTypes.UPDATE },
+         WHERE id IN (${ids.map(() => '?').join(',')}) AND sent_at IS NULL AND (claim_token IS NULL OR claimed_until < ?)`,
+        { replacements: [token, new Date(now.getTime() + leaseMs), ...ids, now], type: QueryTypes.UPDATE },
       );
-    // Two senders claiming at once may deadlock on the rows they scan; the loser claims again.
+    // Rows locked in key order by both sides cannot deadlock; a lock wait timeout still can happen.
     let result;
     for (let attempt = 1; ; attempt++) {
       try {
@@ -96,7 +112,7 @@ export function makeOutboxSender(sequelize: Sequelize, mailer: Mailer, options: 
       }
     }
     const [, claimed] = result;
-    if (!Number(claimed)) return { sent: 0, failed: 0 };
+    if (!Number(claimed)) return { sent: 0, failed: 0, more };
     const rows = await sequelize.query<Claimed>('SELECT id, recipients, subject, body, attempts FROM outbox WHERE claim_token = ? ORDER BY id', {
       replacements: [token],
       type: QueryTypes.SELECT,
@@ -118,7 +134,7 @@ export function makeOutboxSender(sequelize: Sequelize, mailer: Mailer, options: 
       sent += 1;
     }
     await writeMarks();
-    return { sent, failed };
+    return { sent, failed, more };
   }
 
   // One pass at a time per process; a wake during a pass asks for another one after it.
@@ -133,9 +149,9 @@ export function makeOutboxSender(sequelize: Sequelize, mailer: Mailer, options: 
       do {
         again = false;
         try {
-          let pass;
-          do pass = await sendDue();
-          while (pass.sent + pass.failed >= batch);
+          let result;
+          do result = await pass(new Date());
+          while (result.more);
         } catch (error) {
           console.error('[mail] outbox pass failed (will try again):', (error as Error).message);
         }

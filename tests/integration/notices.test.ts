@@ -82,4 +82,30 @@ describe('e-mail notices', () => {
     await condition.reload();
     expect(condition.expiryNoticeSentAt).not.toBeNull();
   });
+  it('reminds every late handover in one check, however many are late (not only the first page)', async () => {
+    const { unit, crews } = await makeStation(2);
+    const lead = await makeUser('shift_lead', { crewId: crews[1]!.id });
+    // Sixty shifts of this unit, each left as a draft; every one is more than 30 minutes past its change.
+    const first = Date.UTC(2020, 0, 1, 6);
+    await Handover.bulkCreate(
+      Array.from({ length: 60 }, (_, i) => ({
+        unitId: unit.id,
+        shiftStart: new Date(first + i * 12 * 3_600_000),
+        handoverAt: new Date(first + (i + 1) * 12 * 3_600_000),
+        outgoingCrewId: crews[0]!.id,
+        incomingCrewId: crews[1]!.id,
+        notesHtml: '',
+        status: 'draft' as const,
+        createdBy: lead.id,
+        createdAt: new Date(first),
+      })),
+    );
+    await built.notices.queueDue(new Date());
+    const left = await Handover.count({ where: { unitId: unit.id, reminderSentAt: null } });
+    expect(left).toBe(0);
+    await waitForMail(catcher, 0);
+    const mine = () => catcher.messages.filter((m) => m.subject === `Handover for ${unit.name} not yet accepted`);
+    for (let waited = 0; mine().length < 60 && waited < 10_000; waited += 100) await new Promise((r) => setTimeout(r, 100));
+    expect(mine()).toHaveLength(60);
+  });
 });

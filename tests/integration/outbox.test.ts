@@ -97,6 +97,16 @@ describe('two senders at once', () => {
       const mailer = createMailer(catcher.smtpUrl);
       // Separate connection pools, as two server processes would have; small batches, so they meet often.
       const senders = [makeOutboxSender(db(), mailer, { batch: 3 }), makeOutboxSender(other, mailer, { batch: 3 })];
+      // A used outbox, as in a station that has run for a while (and as the shared test database is
+      // by the time this file runs): thousands of sent rows beside the due ones.
+      const stamp = Date.now();
+      for (let chunk = 0; chunk < 5; chunk++) {
+        const values = Array.from({ length: 1000 }, (_, i) => `('test_sent', ${stamp + chunk * 1000 + i}, '[]', 'Old', 'Sent', NOW(3), NOW(3), 1, NOW(3))`);
+        await db().query(`INSERT INTO outbox (kind, ref_id, recipients, subject, body, created_at, due_at, attempts, sent_at) VALUES ${values.join(',')}`);
+      }
+      // …and notices waiting for a later try (a mail server that was down), not due yet.
+      const later = Array.from({ length: 300 }, (_, i) => `('test_later', ${stamp + i}, '[]', 'Later', 'Later', NOW(3), NOW(3) + INTERVAL 1 DAY, 1)`);
+      await db().query(`INSERT INTO outbox (kind, ref_id, recipients, subject, body, created_at, due_at, attempts) VALUES ${later.join(',')}`);
       const base = Date.now();
       for (let run = 0; run < 10; run++) {
         const refIds = Array.from({ length: 6 }, (_, i) => base + run * 10 + i);
@@ -113,6 +123,7 @@ describe('two senders at once', () => {
       expect(ids).toHaveLength(60);
       expect(new Set(ids).size).toBe(60);
     } finally {
+      await db().query("DELETE FROM outbox WHERE kind IN ('test_sent', 'test_later')");
       await other.close();
     }
   });

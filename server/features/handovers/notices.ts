@@ -14,6 +14,8 @@ import { User } from '../users/model';
 import { Handover, HandoverItem } from './model';
 
 const crewRoles = ['trainee', 'operator', 'shift_lead'];
+/** Late records read at a time by the reminder check. */
+const PAGE = 50;
 
 async function crewAddresses(crewId: number | null, roles: string[], transaction?: Transaction) {
   if (!crewId) return [];
@@ -62,59 +64,74 @@ export function makeNotices(sequelize: Sequelize, outbox: Pick<OutboxSender, 'wa
    */
   async function queueDue(now = new Date()): Promise<number> {
     let queued = 0;
-    const late = await Handover.findAll({
-      where: { status: { [Op.ne]: 'accepted' }, reminderSentAt: null, handoverAt: { [Op.lte]: new Date(now.getTime() - 30 * 60_000) } },
-      attributes: ['id', 'unitId', 'status', 'incomingCrewId'],
-      limit: 50,
-    });
-    for (const h of late) {
-      const unit = await PlantUnit.findByPk(h.unitId);
-      const to = await crewAddresses(h.incomingCrewId, ['shift_lead']);
-      const wrote = await unitOfWork(sequelize, async (transaction) => {
-        const [, marked] = await sequelize.query('UPDATE handovers SET reminder_sent_at = ? WHERE id = ? AND reminder_sent_at IS NULL', {
-          replacements: [now, h.id],
-          type: QueryTypes.UPDATE,
-          transaction,
-        });
-        if (!Number(marked)) return false;
-        return enqueueNotice(
-          {
-            kind: 'handover_late',
-            refId: h.id,
-            to,
-            subject: `Handover for ${unit!.name} not yet accepted`,
-            text: `The handover for ${unit!.name} is ${h.status === 'draft' ? 'still a draft' : 'submitted but not accepted'} 30 minutes into the shift.\n${publicUrl}/handover?unit=${h.unitId}`,
-          },
-          transaction,
-        );
-      }, 'queue late-acceptance reminder');
-      if (wrote) queued += 1;
+    // In pages, oldest first, until none is left: each one looked at is marked (told or not), so the
+    // next page starts after it. One page only left the 51st late handover for the next minute.
+    for (let after = 0; ; ) {
+      const late = await Handover.findAll({
+        where: { id: { [Op.gt]: after }, status: { [Op.ne]: 'accepted' }, reminderSentAt: null, handoverAt: { [Op.lte]: new Date(now.getTime() - 30 * 60_000) } },
+        attributes: ['id', 'unitId', 'status', 'incomingCrewId'],
+        order: [['id', 'ASC']],
+        limit: PAGE,
+      });
+      for (const h of late) {
+        after = Number(h.id);
+        const unit = await PlantUnit.findByPk(h.unitId);
+        const to = await crewAddresses(h.incomingCrewId, ['shift_lead']);
+        const wrote = await unitOfWork(sequelize, async (transaction) => {
+          const [, marked] = await sequelize.query('UPDATE handovers SET reminder_sent_at = ? WHERE id = ? AND reminder_sent_at IS NULL', {
+            replacements: [now, h.id],
+            type: QueryTypes.UPDATE,
+            transaction,
+          });
+          if (!Number(marked)) return false;
+          return enqueueNotice(
+            {
+              kind: 'handover_late',
+              refId: h.id,
+              to,
+              subject: `Handover for ${unit!.name} not yet accepted`,
+              text: `The handover for ${unit!.name} is ${h.status === 'draft' ? 'still a draft' : 'submitted but not accepted'} 30 minutes into the shift.\n${publicUrl}/handover?unit=${h.unitId}`,
+            },
+            transaction,
+          );
+        }, 'queue late-acceptance reminder');
+        if (wrote) queued += 1;
+      }
+      if (late.length < PAGE) break;
     }
-    const expired = await Condition.findAll({ where: { closedAt: null, expiryNoticeSentAt: null, limitAt: { [Op.lte]: now } }, limit: 50 });
-    for (const c of expired) {
-      const unit = await PlantUnit.findByPk(c.unitId);
-      const change = await shiftChangeAt(unit!.stationId, now);
-      const leads = await crewAddresses(change.outgoingCrewId, ['shift_lead']);
-      const owner = await User.findByPk(c.ownerId);
-      const wrote = await unitOfWork(sequelize, async (transaction) => {
-        const [, marked] = await sequelize.query('UPDATE conditions SET expiry_notice_sent_at = ? WHERE id = ? AND expiry_notice_sent_at IS NULL AND closed_at IS NULL', {
-          replacements: [now, c.id],
-          type: QueryTypes.UPDATE,
-          transaction,
-        });
-        if (!Number(marked)) return false;
-        return enqueueNotice(
-          {
-            kind: 'condition_deadline',
-            refId: c.id,
-            to: [...new Set([...leads, ...(owner ? [owner.email] : [])])],
-            subject: `Deadline passed: ${c.title}`,
-            text: `The time limit of “${c.title}” on ${unit!.name} passed at ${stationLocalLabel(c.limitAt, change.settings.timeZone)}.\nRequired action: ${c.requiredAction}\n${publicUrl}/log?unit=${c.unitId}`,
-          },
-          transaction,
-        );
-      }, 'queue deadline notice');
-      if (wrote) queued += 1;
+    for (let after = 0; ; ) {
+      const expired = await Condition.findAll({
+        where: { id: { [Op.gt]: after }, closedAt: null, expiryNoticeSentAt: null, limitAt: { [Op.lte]: now } },
+        order: [['id', 'ASC']],
+        limit: PAGE,
+      });
+      for (const c of expired) {
+        after = Number(c.id);
+        const unit = await PlantUnit.findByPk(c.unitId);
+        const change = await shiftChangeAt(unit!.stationId, now);
+        const leads = await crewAddresses(change.outgoingCrewId, ['shift_lead']);
+        const owner = await User.findByPk(c.ownerId);
+        const wrote = await unitOfWork(sequelize, async (transaction) => {
+          const [, marked] = await sequelize.query('UPDATE conditions SET expiry_notice_sent_at = ? WHERE id = ? AND expiry_notice_sent_at IS NULL AND closed_at IS NULL', {
+            replacements: [now, c.id],
+            type: QueryTypes.UPDATE,
+            transaction,
+          });
+          if (!Number(marked)) return false;
+          return enqueueNotice(
+            {
+              kind: 'condition_deadline',
+              refId: c.id,
+              to: [...new Set([...leads, ...(owner ? [owner.email] : [])])],
+              subject: `Deadline passed: ${c.title}`,
+              text: `The time limit of “${c.title}” on ${unit!.name} passed at ${stationLocalLabel(c.limitAt, change.settings.timeZone)}.\nRequired action: ${c.requiredAction}\n${publicUrl}/log?unit=${c.unitId}`,
+            },
+            transaction,
+          );
+        }, 'queue deadline notice');
+        if (wrote) queued += 1;
+      }
+      if (expired.length < PAGE) break;
     }
     if (queued) void outbox.wake();
     return queued;
