@@ -69,7 +69,14 @@ export function fieldErrorsFromZod(error: ZodError): FieldErrors {
 
 type BodyParserError = Error & { type?: string; status?: number };
 
-export const errorMiddleware: ErrorRequestHandler = (error, _req, res, _next) => {
+export const errorMiddleware: ErrorRequestHandler = (error, _req, res, next) => {
+  // An error after the answer began (a stream cut off): too late for a JSON reply; Express's own
+  // handler closes the connection. Answering again threw ERR_HTTP_HEADERS_SENT.
+  if (res.headersSent) {
+    console.error(error);
+    next(error);
+    return;
+  }
   if (error instanceof ZodError) {
     const fields = fieldErrorsFromZod(error);
     res.status(400).json({ error: { code: 'VALIDATION', message: summaryOf(fields), fields } });

@@ -30,10 +30,10 @@ async function syncDraftsOf(unitIds: number[], transaction: Transaction | null |
 }
 
 export function registerHandoverDraftHooks() {
-  const watch = <M extends Model>(model: ModelStatic<M>, unitsOf: (row: M) => Promise<number[]> | number[], fieldsThatMatter?: string[]) => {
+  const watch = <M extends Model>(model: ModelStatic<M>, unitsOf: (row: M, transaction: Transaction | null | undefined) => Promise<number[]> | number[], fieldsThatMatter?: string[]) => {
     const matters = (options: Options) => !fieldsThatMatter || !options.fields || options.fields.some((f) => fieldsThatMatter.includes(f));
     const run = async (row: M, options: Options) => {
-      if (matters(options)) await syncDraftsOf(await unitsOf(row), options.transaction);
+      if (matters(options) && options.transaction) await syncDraftsOf(await unitsOf(row, options.transaction), options.transaction);
     };
     for (const type of ['afterCreate', 'afterUpdate'] as const) {
       model.removeHook(type, HOOK);
@@ -44,5 +44,6 @@ export function registerHandoverDraftHooks() {
   watch(Flag, (f) => [f.unitId], ['severity', 'status']);
   watch(Condition, (c) => [c.unitId], ['title', 'requiredAction', 'closedAt']);
   watch(LogEntry, (e) => (e.carryToHandover ? [e.unitId] : []));
-  watch(StandingOrder, async (o) => (await PlantUnit.findAll({ where: { stationId: o.stationId }, attributes: ['id'] })).map((u) => u.id));
+  // Read in the writer's transaction: a query outside it would hold a second connection meanwhile.
+  watch(StandingOrder, async (o, transaction) => (await PlantUnit.findAll({ where: { stationId: o.stationId }, attributes: ['id'], transaction })).map((u) => u.id));
 }
