@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
-import { HandoverAmendment, HandoverAttachment, HandoverItem } from '../../server/features/handovers/model';
+import { HandoverAmendment, HandoverItem } from '../../server/features/handovers/model';
+import { HandoverAttachment } from '../../server/features/attachments/model';
 import { createApp } from '../../server/app';
 import { s3Storage } from '../../server/lib/storage';
 import { SECRET, anonymousAgent, closeAll, db, makeStation, makeUser, signedInAgent, type Agent } from './support/test-app';

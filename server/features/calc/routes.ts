@@ -4,7 +4,7 @@ import { readingSetInputSchema } from '../../../shared/schemas/reading-set';
 import { signedIn } from '../../lib/auth';
 import { convertReadingSet } from '../../lib/convert-readings';
 import { parseId, parseInput } from '../../lib/validate';
-import { designInForce, limitsInForce, plausibleInForce, requireUnit } from '../plant/versions';
+import { designInForce, limitsInForce, plausibleInForce, requireUnit } from '../plant/index';
 
 export function calcRoutes(): Router {
   const router = Router();

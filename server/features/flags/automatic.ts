@@ -4,7 +4,7 @@ import type { Transaction } from 'sequelize';
 import { checkKeys } from '../../../shared/calc/check-catalog';
 import type { Evaluation } from '../../../shared/calc/evaluate';
 import { publish } from '../../lib/live';
-import { PlantUnit } from '../plant/model';
+import { PlantUnit } from '../plant/index';
 import { Flag, notYetFollowedUp } from './model';
 
 const brokenChecks = (evaluation: Evaluation) => checkKeys.map((k) => evaluation.checks[k]).filter((c) => c.status === 'watch' || c.status === 'alarm');

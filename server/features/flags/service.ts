@@ -5,9 +5,9 @@ import { recordAudit } from '../../lib/audit';
 import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
 import { Conflict, NotFound, ValidationError } from '../../lib/errors';
-import { requireUnit } from '../plant/versions';
-import { ReadingSet } from '../readings/model';
-import { User } from '../users/model';
+import { requireUnit } from '../plant/index';
+import { ReadingSet } from '../readings/index';
+import { User } from '../users/index';
 import { Flag, notYetFollowedUp } from './model';
 
 const auditView = (f: Flag) => ({ status: f.status, severity: f.severity, assignedTo: f.assignedTo, followUp: f.followUp, clearComment: f.clearComment });
@@ -57,6 +57,20 @@ export async function listFlags(
   }
   const flags = await Flag.findAll({ where, order: [['severity', 'DESC'], ['raisedAt', 'DESC']], limit: q.limit });
   return presentFlags(flags);
+}
+
+/** Flags on these parameters that were open at some time between `from` and `to` (trend markers). */
+export function flagsRaisedBetween(unitId: number, parameters: string[], from: Date, to: Date) {
+  return Flag.findAll({
+    where: { unitId, parameter: parameters, raisedAt: { [Op.lte]: to }, [Op.or]: [{ clearedAt: null }, { clearedAt: { [Op.gte]: from } }] },
+    order: [['raisedAt', 'ASC']],
+    limit: 500,
+  });
+}
+
+/** Flags of a unit open at some time in [start, end) (a past shift's view). */
+export function flagsOpenDuring(unitId: number, start: Date, end: Date) {
+  return Flag.findAll({ where: { unitId, raisedAt: { [Op.lt]: end }, [Op.or]: [{ clearedAt: null }, { clearedAt: { [Op.gte]: start } }] }, order: [['raisedAt', 'ASC']] });
 }
 
 export function makeFlagService(sequelize: Sequelize) {

@@ -5,11 +5,11 @@
 // "— alarm" item). An item the crew removed stays removed.
 import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
 import { checkCatalog, type CheckKey } from '../../../shared/calc/check-catalog';
-import { Condition } from '../conditions/model';
-import { Flag } from '../flags/model';
-import { LogEntry } from '../log/model';
-import { PlantUnit } from '../plant/model';
-import { StandingOrder } from '../standing-orders/model';
+import { Condition } from '../conditions/index';
+import { Flag } from '../flags/index';
+import { LogEntry } from '../log/index';
+import { PlantUnit } from '../plant/index';
+import { StandingOrder } from '../standing-orders/index';
 import { HandoverItem, type Handover, type ItemKind } from './model';
 
 type Wanted = { kind: ItemKind; sourceId: number; title: string; detail: string | null; priority: 'normal' | 'high' };

@@ -4,11 +4,11 @@
 // the board never writes; these writes do.
 import { Op, type Model, type ModelStatic, type Transaction } from 'sequelize';
 import { publish } from '../../lib/live';
-import { Condition } from '../conditions/model';
-import { Flag } from '../flags/model';
-import { LogEntry } from '../log/model';
-import { PlantUnit } from '../plant/model';
-import { StandingOrder } from '../standing-orders/model';
+import { Condition } from '../conditions/index';
+import { Flag } from '../flags/index';
+import { LogEntry } from '../log/index';
+import { PlantUnit } from '../plant/index';
+import { StandingOrder } from '../standing-orders/index';
 import { syncAutomaticItems } from './auto-items';
 import { Handover } from './model';
 

@@ -6,11 +6,11 @@ import { Op, QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { stationLocalLabel } from '../../../shared/shift-time';
 import { enqueueNotice, type OutboxSender } from '../../lib/outbox';
 import { unitOfWork } from '../../lib/unit-of-work';
-import { Condition } from '../conditions/model';
-import { PlantUnit } from '../plant/model';
-import { shiftChangeAt } from '../shifts/crews';
-import { settingsForStation } from '../stations/settings';
-import { User } from '../users/model';
+import { Condition } from '../conditions/index';
+import { PlantUnit } from '../plant/index';
+import { shiftChangeAt } from '../shifts/index';
+import { settingsForStation } from '../stations/index';
+import { User } from '../users/index';
 import { Handover, HandoverItem } from './model';
 
 const crewRoles = ['trainee', 'operator', 'shift_lead'];

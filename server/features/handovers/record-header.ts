@@ -7,9 +7,9 @@ import { stationLocalLabel } from '../../../shared/shift-time';
 import { signedIn } from '../../lib/auth';
 import { NotFound } from '../../lib/errors';
 import { parseId } from '../../lib/validate';
-import { Crew, PlantUnit, Station } from '../plant/model';
-import { stationShiftSetup } from '../stations/settings';
-import { User } from '../users/model';
+import { Crew, PlantUnit, Station } from '../plant/index';
+import { stationShiftSetup } from '../stations/index';
+import { User } from '../users/index';
 import { Handover } from './model';
 
 const crewRoles = ['trainee', 'operator', 'shift_lead'];

@@ -12,14 +12,14 @@ import { Conflict, Forbidden, HttpError, NotFound, ValidationError } from '../..
 import { publish, publishCommitted } from '../../lib/live';
 import { sanitizeRichText } from '../../lib/rich-text';
 import { unitOfWork } from '../../lib/unit-of-work';
-import { PlantUnit } from '../plant/model';
-import { shiftChangeAt } from '../shifts/crews';
-import { settingsForStation } from '../stations/settings';
+import { PlantUnit } from '../plant/index';
+import { shiftChangeAt } from '../shifts/index';
+import { settingsForStation } from '../stations/index';
 import { syncAutomaticItems } from './auto-items';
 import { Handover, HandoverAmendment, HandoverItem, HandoverQuery } from './model';
 import type { Notices } from './notices';
 import { viewHandover } from './view';
-import { freezeCondenserState } from '../shift-condenser/snapshot';
+import { freezeCondenserState } from '../shift-condenser/index';
 
 type Actor = Express.User;
 const asActor = (user: Actor): HandoverActor => ({ id: user.id, role: user.role, crewId: user.crewId });

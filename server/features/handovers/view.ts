@@ -4,10 +4,11 @@ import { Op } from 'sequelize';
 import { remainingTime } from '../../../shared/conditions';
 import { shiftRoles } from '../../../shared/policies/handover';
 import { NotFound } from '../../lib/errors';
-import { Condition } from '../conditions/model';
-import { Flag } from '../flags/model';
-import { User } from '../users/model';
-import { Handover, HandoverAck, HandoverAmendment, HandoverAttachment, HandoverItem, HandoverQuery } from './model';
+import { Condition } from '../conditions/index';
+import { Flag } from '../flags/index';
+import { User } from '../users/index';
+import { attachmentsOfItems } from '../attachments/index';
+import { Handover, HandoverAck, HandoverAmendment, HandoverItem, HandoverQuery } from './model';
 
 /** The incoming crew whose acknowledgements the turnover waits for. */
 export const incomingCrewOf = (h: Handover) =>
@@ -23,7 +24,7 @@ export async function viewHandover(id: number) {
     itemIds.length ? HandoverQuery.findAll({ where: { itemId: itemIds }, order: [['id', 'ASC']] }) : [],
     HandoverAmendment.findAll({ where: { handoverId: id }, order: [['id', 'ASC']] }),
     incomingCrewOf(h),
-    itemIds.length ? HandoverAttachment.findAll({ where: { itemId: itemIds }, order: [['id', 'ASC']] }) : [],
+    attachmentsOfItems(itemIds),
   ]);
   // Items that mirror a flag or condition show that record's state now, not as it was when attached.
   const flagIds = items.filter((i) => i.kind === 'abnormal_reading' && i.sourceId).map((i) => i.sourceId!);

@@ -4,7 +4,7 @@ import { allow } from '../../lib/auth';
 import { ValidationError } from '../../lib/errors';
 import { singleFileUpload } from '../../lib/upload';
 import { parseId, parseInput } from '../../lib/validate';
-import { requireUnit } from '../plant/versions';
+import { requireUnit } from '../plant/index';
 import { MAX_IMPORT_BYTES, parseCsv } from './parse-csv';
 import { analyseImport, rememberedMappings, type ImportService } from './service';
 

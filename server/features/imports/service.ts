@@ -8,12 +8,12 @@ import { recordAudit } from '../../lib/audit';
 import { convertReadingSet } from '../../lib/convert-readings';
 import { HttpError, ValidationError, fieldErrorsFromZod } from '../../lib/errors';
 import { unitOfWork } from '../../lib/unit-of-work';
-import { takeFlagTurn } from '../flags/automatic';
-import { requireUnit, unjudgedReason, versionStarts } from '../plant/versions';
-import { settingsForStation } from '../stations/settings';
+import { takeFlagTurn } from '../flags/index';
+import { requireUnit, unjudgedReason, versionStarts } from '../plant/index';
+import { settingsForStation } from '../stations/index';
 import { parseStationTime } from '../../../shared/station-time';
-import { ReadingSet } from '../readings/model';
-import { checkTakenAt, storeImportBatch } from '../readings/service';
+import { ReadingSet } from '../readings/index';
+import { checkTakenAt, storeImportBatch } from '../readings/index';
 import { ImportMappingRow } from './model';
 import { parseCsv } from './parse-csv';
 

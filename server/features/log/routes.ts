@@ -3,7 +3,7 @@ import { amendLogEntrySchema, logQuerySchema, newLogEntrySchema, signReviewSchem
 import { recentShiftStarts, stationLocalLabel } from '../../../shared/shift-time';
 import { allow, signedIn } from '../../lib/auth';
 import { parseId, parseInput } from '../../lib/validate';
-import { settingsForUnit } from '../stations/settings';
+import { settingsForUnit } from '../stations/index';
 import { listEntries, reviewsFor, type LogService } from './service';
 
 

@@ -8,12 +8,12 @@ import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
 import { recordAudit } from '../../lib/audit';
 import { mayAmendLogEntry, whyNotAmendLogEntry, type LogActor } from '../../../shared/policies/log';
-import { Equipment, PlantUnit } from '../plant/model';
-import { ReadingSet } from '../readings/model';
-import { Flag } from '../flags/model';
-import { User } from '../users/model';
-import { crewsOnShifts } from '../shifts/crews';
-import { requireKnown, settingsForUnit, stationShiftSetup } from '../stations/settings';
+import { Equipment, PlantUnit } from '../plant/index';
+import { ReadingSet } from '../readings/index';
+import { Flag } from '../flags/index';
+import { User } from '../users/index';
+import { crewsOnShifts } from '../shifts/index';
+import { requireKnown, settingsForUnit, stationShiftSetup } from '../stations/index';
 import { LogAmendment, LogEntry, LogReview } from './model';
 
 const FUTURE_TOLERANCE_MS = 2 * 60 * 1000;

@@ -5,9 +5,9 @@
 // definition of what a document holds. The crew and shift come from the station's rotation.
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { shiftStartFor } from '../../../shared/shift-time';
-import { stationShiftSetup } from '../stations/settings';
-import { CrewSwap } from '../shifts/model';
-import { crewFromRotation } from '../shifts/crews';
+import { stationShiftSetup } from '../stations/index';
+import { CrewSwap } from '../shifts/index';
+import { crewFromRotation } from '../shifts/index';
 import { checkCatalog } from '../../../shared/calc/check-catalog';
 import { plausibleCatalog } from '../../../shared/calc/plausibility';
 

@@ -6,7 +6,7 @@ import { NotFound } from '../../lib/errors';
 import { recordAudit } from '../../lib/audit';
 import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
-import { User } from '../users/model';
+import { User } from '../users/index';
 import { ReviewComment } from './model';
 import type { ReviewCommentView } from '../../../shared/schemas/logbook';
 

@@ -6,7 +6,7 @@ import { Op, type Sequelize } from 'sequelize';
 import { remainingTime } from '../../../shared/conditions';
 import type { Overview, OverviewHandover, OverviewUnit } from '../../../shared/schemas/overview';
 import { stationLocalLabel } from '../../../shared/shift-time';
-import { User } from '../users/model';
+import { User } from '../users/index';
 import { shiftNow } from './shift-now';
 import { currentHandovers, latestRounds, openConditions, openFlags, type CurrentHandovers } from './unit-state';
 import { handoverItemsFor, handoverQuestionsFor, handoversToAcceptFor, reviewCommentsFor, standingOrdersFor, trainingEntriesFor, traineeRoundsFor, type ReviewCommentsFor } from './waiting';

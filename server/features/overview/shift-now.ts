@@ -2,10 +2,10 @@
 // changes and who comes in. A fixed number of reads whatever the number of units or stations.
 import { nextShiftStart, shiftStartFor } from '../../../shared/shift-time';
 import type { StationSettings } from '../../../shared/schemas/log';
-import { Crew, PlantUnit, Station } from '../plant/model';
-import { crewsOnShifts, type CrewRotation } from '../shifts/crews';
-import { StationSettingsRow } from '../stations/model';
-import { defaultStationSettings, settingsFromRow } from '../stations/settings';
+import { Crew, PlantUnit, Station } from '../plant/index';
+import { crewsOnShifts, type CrewRotation } from '../shifts/index';
+import { StationSettingsRow } from '../stations/index';
+import { defaultStationSettings, settingsFromRow } from '../stations/index';
 
 export type StationNow = {
   stationId: number;

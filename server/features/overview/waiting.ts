@@ -5,9 +5,9 @@ import { Op, literal } from 'sequelize';
 import type { ReviewCommentView } from '../../../shared/schemas/logbook';
 import type { WaitingOnYou } from '../../../shared/schemas/overview';
 import { can } from '../../../shared/policies/permissions';
-import { ReadingSet } from '../readings/model';
-import { pendingFor } from '../standing-orders/service';
-import { countersignQueue } from '../training/service';
+import { ReadingSet } from '../readings/index';
+import { pendingFor } from '../standing-orders/index';
+import { countersignQueue } from '../training/index';
 import type { CurrentHandovers } from './unit-state';
 
 const LIST_LIMIT = 10;

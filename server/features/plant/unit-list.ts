@@ -1,6 +1,6 @@
 import type { UnitSummary } from '../../../shared/schemas/plant';
-import { StationSettingsRow } from '../stations/model';
-import { defaultStationSettings } from '../stations/settings';
+import { StationSettingsRow } from '../stations/index';
+import { defaultStationSettings } from '../stations/index';
 import { PlantUnit, Station } from './model';
 
 /** Every unit with its station's name and time zone (the default zone for a station without settings). */

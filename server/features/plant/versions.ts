@@ -30,6 +30,11 @@ export async function limitsInForce(unitId: number, at = new Date(), transaction
   return version;
 }
 
+/** Every limit set that came into force up to `to`, oldest first (trends draw their bands from them). */
+export function limitVersionsUpTo(unitId: number, to: Date) {
+  return LimitSetVersion.findAll({ where: { unitId, effectiveFrom: { [Op.lte]: to } }, order: [['effectiveFrom', 'ASC'], ['id', 'ASC']] });
+}
+
 export type PlausibleInForce = { versionId: number | null; ranges: PlausibleRanges };
 
 /**

@@ -5,8 +5,8 @@ import { evaluateReadingSet, type Evaluation, type ReadingSetSi } from '../../..
 import type { Status } from '../../../shared/calc/limits';
 import type { UnitDesign } from '../../../shared/schemas/plant';
 import { startingPlausibleRanges } from '../../../shared/calc/plausibility';
-import { LimitSetVersion, PlausibleRangeVersion, UnitDesignVersion } from '../plant/model';
-import { designInForce, limitsInForce, plausibleInForce } from '../plant/versions';
+import { LimitSetVersion, PlausibleRangeVersion, UnitDesignVersion } from '../plant/index';
+import { designInForce, limitsInForce, plausibleInForce } from '../plant/index';
 
 export type Judged = {
   evaluation: Evaluation;

@@ -3,7 +3,7 @@ import { z } from 'zod';
 import { amendReadingSchema, recordReadingSchema } from '../../../shared/schemas/readings';
 import { allow, signedIn } from '../../lib/auth';
 import { parseId, parseInput } from '../../lib/validate';
-import { requireUnit } from '../plant/versions';
+import { requireUnit } from '../plant/index';
 import { getReading, listReadings, type ReadingService } from './service';
 
 const listQuery = z.object({

@@ -10,10 +10,10 @@ import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
 import { ConfirmationRequired, Conflict, Forbidden, NotFound, ValidationError } from '../../lib/errors';
 import { convertReadingSet } from '../../lib/convert-readings';
-import { refreshAutomaticFlags, takeFlagTurn } from '../flags/automatic';
-import { requireUnit, unjudgedReason, versionStarts } from '../plant/versions';
-import { settingsForStation } from '../stations/settings';
-import { User } from '../users/model';
+import { refreshAutomaticFlags, takeFlagTurn } from '../flags/index';
+import { requireUnit, unjudgedReason, versionStarts } from '../plant/index';
+import { settingsForStation } from '../stations/index';
+import { namesOf } from '../users/index';
 import { judgeAt, judgeManyAt, valueRows, type Judged } from './evaluate-at';
 import { ReadingAmendment, ReadingCountersign, ReadingSet, ReadingValue, type ReadingSource } from './model';
 
@@ -137,11 +137,16 @@ export async function storeImportBatch(unitId: number, actor: Actor, rows: { tak
   return { flagsRaised, outsidePlausible: judged.filter((j) => j.evaluation.implausible.length > 0).length };
 }
 
-async function names(ids: (number | null | undefined)[]): Promise<Map<number, string>> {
-  const wanted = [...new Set(ids.filter((id): id is number => typeof id === 'number'))];
-  if (!wanted.length) return new Map();
-  const users = await User.findAll({ where: { id: wanted }, attributes: ['id', 'name'] });
-  return new Map(users.map((u) => [u.id, u.name]));
+const names = (ids: (number | null | undefined)[]) => namesOf(ids);
+
+/** A round's id and unit, or null (other records point at rounds). */
+export function findRound(id: number) {
+  return ReadingSet.findByPk(id, { attributes: ['id', 'unitId'] });
+}
+
+/** Ids of a unit's rounds taken in [start, end), oldest first. */
+export async function roundIdsBetween(unitId: number, start: Date, end: Date) {
+  return (await ReadingSet.findAll({ where: { unitId, takenAt: { [Op.gte]: start, [Op.lt]: end } }, attributes: ['id'], order: [['takenAt', 'ASC']] })).map((r) => r.id);
 }
 
 export function makeReadingService(sequelize: Sequelize) {

@@ -8,9 +8,9 @@ import type { Status } from '../../../shared/calc/limits';
 import { nextShiftStart, shiftStartFor } from '../../../shared/shift-time';
 import { shiftCondenserChecks, shiftCondenserState, type RoundValues, type ShiftCondenserState } from '../../../shared/shift-condenser';
 import { NotFound, ValidationError } from '../../lib/errors';
-import { PlantUnit, UnitDesignVersion } from '../plant/model';
-import { ReadingAmendment, ReadingSet } from '../readings/model';
-import { stationShiftSetup } from '../stations/settings';
+import { PlantUnit, UnitDesignVersion } from '../plant/index';
+import { ReadingAmendment, ReadingSet } from '../readings/index';
+import { stationShiftSetup } from '../stations/index';
 
 type Row = { id: number; p: CheckKey; t: Date | string; v: number; s: Status };
 

@@ -2,7 +2,7 @@
 // anchor shift), unless a one-off swap says otherwise.
 import { Op } from 'sequelize';
 import { nextShiftStart, shiftStartFor } from '../../../shared/shift-time';
-import { stationShiftSetup } from '../stations/settings';
+import { stationShiftSetup } from '../stations/index';
 import { CrewSwap } from './model';
 
 export type CrewRotation = { anchorShiftStart: string; crewIds: number[] };

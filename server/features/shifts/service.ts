@@ -5,9 +5,9 @@ import { recordAudit } from '../../lib/audit';
 import { Conflict, NotFound, ValidationError } from '../../lib/errors';
 import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
-import { Crew, Station } from '../plant/model';
-import { StationSettingsRow } from '../stations/model';
-import { defaultStationSettings, settingsForStation } from '../stations/settings';
+import { Crew, Station } from '../plant/index';
+import { StationSettingsRow } from '../stations/index';
+import { defaultStationSettings, settingsForStation } from '../stations/index';
 import { CrewSwap } from './model';
 
 async function requireStation(stationId: number) {

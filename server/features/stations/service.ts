@@ -6,7 +6,7 @@ import { recordAudit } from '../../lib/audit';
 import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
 import { NotFound } from '../../lib/errors';
-import { Station } from '../plant/model';
+import { Station } from '../plant/index';
 import { StationSettingsRow } from './model';
 import { settingsForStation } from './settings';
 

@@ -1,6 +1,6 @@
 import type { Transaction } from 'sequelize';
 import type { StationSettings } from '../../../shared/schemas/log';
-import { PlantUnit } from '../plant/model';
+import { PlantUnit } from '../plant/index';
 import { NotFound, ValidationError } from '../../lib/errors';
 import { StationSettingsRow } from './model';
 

@@ -1,5 +1,5 @@
 import type { Sequelize } from 'sequelize';
-import { Op, UniqueConstraintError } from 'sequelize';
+import { UniqueConstraintError } from 'sequelize';
 import argon2 from 'argon2';
 import type { ChangePasswordInput, CreateUserInput, PublicUser, UpdateUserInput } from '../../../shared/schemas/auth';
 import { recordAudit } from '../../lib/audit';
@@ -7,14 +7,11 @@ import { endSocketsOf, publish } from '../../lib/live';
 import { hashPassword } from '../../lib/auth';
 import { Conflict, Forbidden, NotFound, ValidationError, type FieldErrors } from '../../lib/errors';
 import { passwordProblem } from '../../lib/password-policy';
-import { Crew } from '../plant/model';
-import { SessionRow } from '../session/model';
+import { crewNamesOf, findCrew } from '../plant/index';
+import { endSessionsOf } from '../session/index';
 import { User } from './model';
 
-async function crewNames(): Promise<Map<number, string>> {
-  const crews = await Crew.findAll({ attributes: ['id', 'name'] });
-  return new Map(crews.map((c) => [c.id, c.name]));
-}
+const crewNames = () => crewNamesOf();
 
 export function presentUser(user: User, crews: Map<number, string>): PublicUser {
   return {
@@ -55,11 +52,11 @@ export async function listUsers(): Promise<PublicUser[]> {
 
 async function assertCrewExists(crewId: number | null | undefined) {
   if (crewId == null) return;
-  if (!(await Crew.findByPk(crewId))) throw new ValidationError({ crewId: 'No such crew' });
+  if (!(await findCrew(crewId))) throw new ValidationError({ crewId: 'No such crew' });
 }
 
 export function makeUserService(sequelize: Sequelize) {
-  async function create(actorId: number, input: CreateUserInput): Promise<PublicUser> {
+  async function addPerson(actorId: number, input: CreateUserInput): Promise<PublicUser> {
     const problem = passwordProblem(input.temporaryPassword, input);
     if (problem) throw new ValidationError({ temporaryPassword: problem });
     await assertCrewExists(input.crewId);
@@ -111,7 +108,7 @@ export function makeUserService(sequelize: Sequelize) {
     return presentUser(user, await crewNames());
   }
 
-  async function update(actorId: number, id: number, input: UpdateUserInput) {
+  async function changePerson(actorId: number, id: number, input: UpdateUserInput) {
     if (id === actorId && input.role && input.role !== 'admin') {
       throw new Forbidden('You cannot remove your own administrator role');
     }
@@ -137,7 +134,7 @@ export function makeUserService(sequelize: Sequelize) {
       active
         ? undefined
         : async (transaction) => {
-            await SessionRow.destroy({ where: { userId: id }, transaction });
+            await endSessionsOf(id, transaction);
             endSocketsOf(transaction, { userId: id });
           },
     );
@@ -160,7 +157,7 @@ export function makeUserService(sequelize: Sequelize) {
     const passwordHash = await hashPassword(input.newPassword);
     await sequelize.transaction(async (transaction) => {
       await user.update({ passwordHash, mustChangePassword: false, version: user.version + 1 }, { transaction });
-      const ended = await SessionRow.destroy({ where: { userId, sid: { [Op.ne]: keepSessionId } }, transaction });
+      const ended = await endSessionsOf(userId, transaction, keepSessionId);
       await recordAudit(
         { actorId: userId, action: 'user.password_change', entity: 'user', entityId: userId, after: { mustChangePassword: false, otherSessionsEnded: ended } },
         transaction,
@@ -170,6 +167,6 @@ export function makeUserService(sequelize: Sequelize) {
     });
   }
 
-  return { create, update, setActive, changeOwnPassword };
+  return { addPerson, changePerson, setActive, changeOwnPassword };
 }
 export type UserService = ReturnType<typeof makeUserService>;

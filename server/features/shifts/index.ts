@@ -1,0 +1,3 @@
+// The shifts feature as other features see it: import from here, never from its files.
+export { type CrewRotation, crewFromRotation, crewOnShift, crewsOnShifts, shiftChangeAt } from './crews';
+export { CrewSwap } from './model';
