@@ -6,13 +6,13 @@ import { shiftRoles } from '../../../shared/policies/handover';
 import { NotFound } from '../../lib/errors';
 import { Condition } from '../conditions/index';
 import { Flag } from '../flags/index';
-import { User } from '../users/index';
+import { findPeople, namesOf } from '../users/index';
 import { attachmentsOfItems } from '../attachments/index';
 import { Handover, HandoverAck, HandoverAmendment, HandoverItem, HandoverQuery } from './model';
 
 /** The incoming crew whose acknowledgements the turnover waits for. */
 export const incomingCrewOf = (h: Handover) =>
-  h.incomingCrewId ? User.findAll({ where: { crewId: h.incomingCrewId, active: true, role: [...shiftRoles] }, attributes: ['id', 'name', 'role'] }) : Promise.resolve([]);
+  h.incomingCrewId ? findPeople({ crewIds: [h.incomingCrewId], activeOnly: true, roles: shiftRoles }) : Promise.resolve([]);
 
 export async function viewHandover(id: number) {
   const h = await Handover.findByPk(id);
@@ -55,7 +55,7 @@ export async function viewHandover(id: number) {
     ...amendments.map((a) => a.authorId),
     ...items.map((i) => i.createdBy).filter((x): x is number => x !== null),
   ]);
-  const names = new Map((await User.findAll({ where: { id: [...ids] }, attributes: ['id', 'name'] })).map((u) => [u.id, u.name]));
+  const names = await namesOf([...ids]);
   const name = (uid: number | null) => (uid ? (names.get(uid) ?? `#${uid}`) : null);
   const waiting: string[] = [];
   const shownItems = items.map((item) => {

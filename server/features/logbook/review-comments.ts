@@ -6,7 +6,7 @@ import { NotFound } from '../../lib/errors';
 import { recordAudit } from '../../lib/audit';
 import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
-import { User } from '../users/index';
+import { namesOf } from '../users/index';
 import { ReviewComment } from './model';
 import type { ReviewCommentView } from '../../../shared/schemas/logbook';
 
@@ -40,7 +40,7 @@ export async function commentsOn(sequelize: Sequelize, viewer: Express.User, doc
 }
 
 async function present(comments: ReviewComment[], docs: Map<number, DocumentRow>): Promise<ReviewCommentView[]> {
-  const authors = new Map((await User.findAll({ where: { id: [...new Set(comments.map((c) => c.authorId))] }, attributes: ['id', 'name'] })).map((u) => [u.id, u.name]));
+  const authors = await namesOf(comments.map((c) => c.authorId));
   return comments.map((c) => {
     const doc = docs.get(c.documentId)!;
     return {

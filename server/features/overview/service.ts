@@ -2,11 +2,11 @@
 // key checks, open flags and conditions, and the state of the coming handover; and for the person
 // asking, what waits on them. Read-only: nothing here creates, updates or touches a row (the
 // handover board's own "current" route opens a draft; this deliberately does not call it).
-import { Op, type Sequelize } from 'sequelize';
+import type { Sequelize } from 'sequelize';
 import { remainingTime } from '../../../shared/conditions';
 import type { Overview, OverviewHandover, OverviewUnit } from '../../../shared/schemas/overview';
 import { stationLocalLabel } from '../../../shared/shift-time';
-import { User } from '../users/index';
+import { peopleOnCrewsOrIds } from '../users/index';
 import { shiftNow } from './shift-now';
 import { currentHandovers, latestRounds, openConditions, openFlags, type CurrentHandovers } from './unit-state';
 import { handoverItemsFor, handoverQuestionsFor, handoversToAcceptFor, reviewCommentsFor, standingOrdersFor, trainingEntriesFor, traineeRoundsFor, type ReviewCommentsFor } from './waiting';
@@ -35,8 +35,7 @@ export function makeOverviewService(sequelize: Sequelize, deps: { reviewComments
     for (const s of shift.stations.values()) if (s.crewOnShiftId !== null) crewIds.add(s.crewOnShiftId);
     for (const h of handovers.handovers) if (h.incomingCrewId !== null) crewIds.add(h.incomingCrewId);
     const userIds = new Set<number>([...[...rounds.values()].map((r) => r.recordedBy), ...traineeRounds.map((r) => r.recordedBy)]);
-    const anyOf = [...(crewIds.size ? [{ crewId: [...crewIds] }] : []), ...(userIds.size ? [{ id: [...userIds] }] : [])];
-    const people = anyOf.length ? await User.findAll({ where: { [Op.or]: anyOf }, attributes: ['id', 'name', 'role', 'crewId', 'active'] }) : [];
+    const people = await peopleOnCrewsOrIds([...crewIds], [...userIds]);
     const nameOf = (id: number) => people.find((p) => p.id === id)?.name ?? `#${id}`;
     const crewMembers = (crewId: number | null) =>
       crewId === null ? [] : people.filter((p) => p.crewId === crewId && p.active && CREW_ROLES.includes(p.role)).sort((a, b) => (roleOrder[a.role]! - roleOrder[b.role]!) || a.name.localeCompare(b.name));

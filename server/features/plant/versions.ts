@@ -24,6 +24,11 @@ export async function designInForce(unitId: number, at = new Date(), transaction
   return version;
 }
 
+/** The design data in force at a moment, or null before the unit's first. */
+export function designInForceOrNone(unitId: number, at: Date, transaction?: Transaction) {
+  return UnitDesignVersion.findOne({ ...inForce(unitId, at), transaction });
+}
+
 export async function limitsInForce(unitId: number, at = new Date(), transaction?: Transaction): Promise<LimitSetVersion> {
   const version = await LimitSetVersion.findOne({ ...inForce(unitId, at), transaction });
   if (!version) throw new NotFound('A limit set in force for that unit and time');

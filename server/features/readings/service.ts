@@ -1,6 +1,6 @@
 // Rounds: record a reading set, correct it by amendment, countersign a trainee's round.
 import { Op, type Sequelize, type Transaction } from 'sequelize';
-import type { ReadingSetSi } from '../../../shared/calc/evaluate';
+import type { Evaluation, ReadingSetSi } from '../../../shared/calc/evaluate';
 import type { PlausibleKey } from '../../../shared/calc/plausibility';
 import { describeImplausible, noticesByField } from '../../../shared/plausibility-display';
 import type { ReadingSetInput } from '../../../shared/schemas/reading-set';
@@ -140,8 +140,21 @@ export async function storeImportBatch(unitId: number, actor: Actor, rows: { tak
 const names = (ids: (number | null | undefined)[]) => namesOf(ids);
 
 /** A round's id and unit, or null (other records point at rounds). */
-export function findRound(id: number) {
-  return ReadingSet.findByPk(id, { attributes: ['id', 'unitId'] });
+export function findRound(id: number, options: { withResults?: boolean } = {}) {
+  return ReadingSet.findByPk(id, options.withResults ? {} : { attributes: ['id', 'unitId'] });
+}
+
+/** The current evaluation (its latest amendment's, else its own) of a unit's latest round in [from, until]; null without one. */
+export async function latestEvaluationBetween(unitId: number, from: Date, until: Date, transaction?: Transaction): Promise<Evaluation | null> {
+  const latest = await ReadingSet.findOne({
+    where: { unitId, takenAt: { [Op.between]: [from, until] } },
+    order: [['takenAt', 'DESC'], ['id', 'DESC']],
+    attributes: ['id', 'results'],
+    transaction,
+  });
+  if (!latest) return null;
+  const amendment = await ReadingAmendment.findOne({ where: { readingSetId: latest.id }, order: [['id', 'DESC']], attributes: ['results'], transaction });
+  return amendment?.results ?? latest.results;
 }
 
 /** Ids of a unit's rounds taken in [start, end), oldest first. */

@@ -1,3 +1,2 @@
 // The shifts feature as other features see it: import from here, never from its files.
-export { type CrewRotation, crewFromRotation, crewOnShift, crewsOnShifts, shiftChangeAt } from './crews';
-export { CrewSwap } from './model';
+export { type CrewRotation, crewFromRotation, crewOnShift, crewsOnShifts, shiftChangeAt, swapsOfStation } from './crews';

@@ -1,3 +1,2 @@
 // The stations feature as other features see it: import from here, never from its files.
-export { StationSettingsRow } from './model';
-export { defaultStationSettings, requireKnown, settingsForStation, settingsForUnit, settingsFromRow, stationShiftSetup } from './settings';
+export { defaultStationSettings, requireKnown, saveCrewRotation, settingsForStation, settingsForUnit, shiftSetupsByStation, stationShiftSetup, timeZonesByStation } from './settings';

@@ -6,12 +6,12 @@ import { recordAudit } from '../../lib/audit';
 import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
 import { NotFound } from '../../lib/errors';
-import { Station } from '../plant/index';
+import { findStation } from '../plant/index';
 import { StationSettingsRow } from './model';
 import { settingsForStation } from './settings';
 
 export async function requireStation(stationId: number) {
-  const station = await Station.findByPk(stationId);
+  const station = await findStation(stationId);
   if (!station) throw new NotFound('That station');
   return station;
 }
