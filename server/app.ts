@@ -73,7 +73,7 @@ export type BuiltApp = {
 
 export function createApp(
   sequelize: Sequelize,
-  config: Pick<AppConfig, 'sessionSecret' | 'production' | 'behindHttpsProxy' | 'smtpUrl' | 'publicUrl'> & Partial<Pick<AppConfig, 'signInLimits' | 'anonymousTokenLimit'>>,
+  config: Pick<AppConfig, 'sessionSecret' | 'behindHttpsProxy' | 'smtpUrl' | 'publicUrl'> & Partial<Pick<AppConfig, 'signInLimits' | 'anonymousTokenLimit'>>,
   deps: { storage?: Storage; importBatchRows?: number; mailer?: Mailer; outbox?: OutboxOptions } = {},
 ): BuiltApp {
   const app = express();

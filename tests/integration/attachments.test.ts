@@ -22,7 +22,7 @@ beforeAll(async () => {
   s3 = await startFakeS3();
   built = createApp(
     db(),
-    { sessionSecret: SECRET, production: false, behindHttpsProxy: false },
+    { sessionSecret: SECRET, behindHttpsProxy: false },
     { storage: s3Storage({ endpoint: s3.endpoint, bucket: 'hotwell-test', accessKeyId: 'local', secretAccessKey: 'local' }) },
   );
   const { unit, crews } = await makeStation(2);

@@ -7,7 +7,7 @@ import { publish } from '../../lib/live';
 import { Condition } from '../conditions/index';
 import { Flag } from '../flags/index';
 import { LogEntry } from '../log/index';
-import { PlantUnit } from '../plant/index';
+import { unitIdsOfStation } from '../plant/index';
 import { StandingOrder } from '../standing-orders/index';
 import { syncAutomaticItems } from './auto-items';
 import { Handover } from './model';
@@ -44,5 +44,5 @@ export function registerHandoverDraftHooks() {
   watch(Flag, (f) => [f.unitId], ['severity', 'status']);
   watch(Condition, (c) => [c.unitId], ['title', 'requiredAction', 'closedAt']);
   watch(LogEntry, (e) => (e.carryToHandover ? [e.unitId] : []));
-  watch(StandingOrder, async (o) => (await PlantUnit.findAll({ where: { stationId: o.stationId }, attributes: ['id'] })).map((u) => u.id));
+  watch(StandingOrder, (o) => unitIdsOfStation(o.stationId));
 }

@@ -1,9 +1,9 @@
 import type { CondenserSnapshot } from '../../../shared/shift-condenser';
+import type { handoverItemKinds } from '../../../shared/schemas/handovers';
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 
 export type HandoverStatus = 'draft' | 'submitted' | 'accepted';
-export const itemKinds = ['equipment', 'abnormal_reading', 'condition', 'log_entry', 'standing_order', 'work_in_progress', 'chemistry', 'follow_up'] as const;
-export type ItemKind = (typeof itemKinds)[number];
+export type ItemKind = (typeof handoverItemKinds)[number];
 
 export class Handover extends Model<InferAttributes<Handover>, InferCreationAttributes<Handover>> {
   declare id: CreationOptional<number>;

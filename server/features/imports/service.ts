@@ -1,7 +1,7 @@
 // Historian CSV import: map columns, preview every row, then store the valid ones in batches.
 import { Op, type Sequelize, type Transaction } from 'sequelize';
 import type { ReadingSetSi } from '../../../shared/calc/evaluate';
-import { importFields, type ImportField, type ImportMapping, type ImportRowReport } from '../../../shared/schemas/imports';
+import { type ImportField, type ImportMapping, type ImportRowReport } from '../../../shared/schemas/imports';
 import { readingSetInputSchema, type ReadingSetInput } from '../../../shared/schemas/reading-set';
 import { publish } from '../../lib/live';
 import { recordAudit } from '../../lib/audit';
@@ -285,4 +285,3 @@ export async function rememberedMappings(unitId: number) {
   return rows.map((r) => ({ source: r.source, mapping: r.mapping, updatedAt: r.updatedAt.toISOString() }));
 }
 
-export const importFieldList = Object.entries(importFields).map(([key, spec]) => ({ key, ...spec }));

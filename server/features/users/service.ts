@@ -81,14 +81,18 @@ export function makeUserService(sequelize: Sequelize) {
     }
   }
 
-  /** Applies a change to one user under a version check, with its audit row, in one transaction. */
+  /**
+   * Applies a change to one user under a version check, with its audit row, in one transaction.
+   * `alsoInTransaction` runs inside that transaction, before it commits, so what it writes stands or
+   * falls with the change.
+   */
   async function change(
     actorId: number,
     id: number,
     expectedVersion: number,
     action: string,
     mutate: (user: User) => void,
-    afterCommit?: (transaction: import('sequelize').Transaction) => Promise<unknown>,
+    alsoInTransaction?: (transaction: import('sequelize').Transaction) => Promise<unknown>,
   ): Promise<PublicUser> {
     const user = await sequelize.transaction(async (transaction) => {
       const found = await User.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
@@ -102,7 +106,7 @@ export function makeUserService(sequelize: Sequelize) {
       await found.save({ transaction });
       await recordAudit({ actorId, action, entity: 'user', entityId: id, before, after: auditView(found) }, transaction);
       publish(transaction, { entity: 'people', id });
-      if (afterCommit) await afterCommit(transaction);
+      if (alsoInTransaction) await alsoInTransaction(transaction);
       return found;
     });
     return presentUser(user, await crewNames());
