@@ -184,6 +184,13 @@ export async function analyseImport(unitId: number, buffer: Buffer, mapping: Imp
 }
 
 /** Rows per transaction: a round on the same unit waits for at most one batch. */
+/** Step 1 of an import: the file's columns and a few rows, to map them. Stores nothing. */
+export async function inspectFile(unitId: number, buffer: Buffer) {
+  await requireUnit(unitId);
+  const { headers, rows } = parseCsv(buffer);
+  return { headers, sample: rows.slice(0, 5), rowCount: rows.length };
+}
+
 export const IMPORT_BATCH_ROWS = 100;
 
 export function makeImportService(sequelize: Sequelize, options: { batchRows?: number } = {}) {
@@ -281,6 +288,7 @@ export function makeImportService(sequelize: Sequelize, options: { batchRows?: n
 export type ImportService = ReturnType<typeof makeImportService>;
 
 export async function rememberedMappings(unitId: number) {
+  await requireUnit(unitId);
   const rows = await ImportMappingRow.findAll({ where: { unitId }, order: [['updatedAt', 'DESC']] });
   return rows.map((r) => ({ source: r.source, mapping: r.mapping, updatedAt: r.updatedAt.toISOString() }));
 }

@@ -1,7 +1,7 @@
 // The narrative log: append-only entries, amendments beside them, late-entry marking by server
 // time, and the shift lead's end-of-shift review.
 import { Op, type Sequelize, type Transaction } from 'sequelize';
-import { shiftStartFor } from '../../../shared/shift-time';
+import { recentShiftStarts, shiftStartFor, stationLocalLabel } from '../../../shared/shift-time';
 import type { NewLogEntry } from '../../../shared/schemas/log';
 import { Conflict, Forbidden, NotFound, ValidationError } from '../../lib/errors';
 import { publish } from '../../lib/live';
@@ -125,6 +125,8 @@ type LogQuery = { position?: string; category?: string; authorId?: number; shift
 
 /** Entries newest event first, each with its amendments, whether it came after the review and whether the viewer may amend it. */
 export async function listEntries(unitId: number, q: LogQuery, viewer: LogActor) {
+  // 404 for an unknown unit before anything is read.
+  await settingsForUnit(unitId);
   const where: Record<string | symbol, unknown> = { unitId };
   if (q.position) where.position = q.position;
   if (q.category) where.category = q.category;
@@ -175,6 +177,17 @@ export async function listEntries(unitId: number, q: LogQuery, viewer: LogActor)
         })),
     };
   });
+}
+
+/** The station's settings and the unit's last 14 shifts with who signed each position's review. */
+export async function recentShiftsWithReviews(unitId: number) {
+  const { settings } = await settingsForUnit(unitId);
+  const starts = recentShiftStarts(new Date(), settings.timeZone, settings.shiftChangeTimes, 14);
+  return {
+    settings,
+    shifts: starts.map((s) => ({ start: s.toISOString(), label: stationLocalLabel(s, settings.timeZone) })),
+    reviews: await reviewsFor(unitId, starts),
+  };
 }
 
 export async function reviewsFor(unitId: number, shiftStarts: Date[]) {

@@ -289,6 +289,7 @@ function presentReading(reading: ReadingSet, amendments: ReadingAmendment[], cou
 
 /** Newest first; each with its current status, amendment count and countersign state. */
 export async function listReadings(unitId: number, options: { before?: Date; limit: number }) {
+  await requireUnit(unitId);
   const where: Record<string, unknown> = { unitId };
   if (options.before) where.takenAt = { [Op.lt]: options.before };
   const readings = await ReadingSet.findAll({

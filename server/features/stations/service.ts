@@ -16,6 +16,12 @@ export async function requireStation(stationId: number) {
   return station;
 }
 
+/** A station's settings (the defaults where it has none of its own); 404 for an unknown station. */
+export async function stationSettings(stationId: number) {
+  await requireStation(stationId);
+  return settingsForStation(stationId);
+}
+
 export function makeStationService(sequelize: Sequelize) {
   async function saveSettings(actor: Express.User, stationId: number, settings: StationSettings): Promise<StationSettings> {
     await requireStation(stationId);
