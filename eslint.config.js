@@ -19,4 +19,23 @@ export default tseslint.config(
     plugins: { 'react-hooks': reactHooks },
     rules: reactHooks.configs.recommended.rules,
   },
+  {
+    // Server features meet only through each other's public index.ts (services and types): a file
+    // of another feature is its own business and may change under it.
+    files: ['server/features/**/*.ts'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              regex: '^\\.\\./(?!\\.\\.)[^/]+/(?!index(\\.js)?$)',
+              message:
+                "Import another feature through its public index ('../<feature>/index'). If what you need is not there, add a service function (or type) to that feature and export it from its index.ts.",
+            },
+          ],
+        },
+      ],
+    },
+  },
 );

@@ -67,7 +67,7 @@ async function main() {
   const mail = await startMailCatcher({ smtpPort: 0, viewerPort: 0 });
   const built = createApp(
     sequelize,
-    { sessionSecret: 'fault-test', production: false, behindHttpsProxy: false, smtpUrl: mail.smtpUrl, publicUrl: 'http://127.0.0.1:5180' },
+    { sessionSecret: 'fault-test', behindHttpsProxy: false, smtpUrl: mail.smtpUrl, publicUrl: 'http://127.0.0.1:5180' },
     // Short claims and retries, so what the kill interrupted is sent again within the run.
     { outbox: { leaseMs: 3_000, retryBaseMs: 500, retryMaxMs: 2_000 } },
   );

@@ -17,11 +17,13 @@ import { adminAuditRoutes } from './features/audit/routes';
 import { plantRoutes } from './features/plant/routes';
 import { calcRoutes } from './features/calc/routes';
 import { makeVersionService } from './features/plant/versions';
+import { makeEquipmentService } from './features/plant/service';
 import { makeReadingService } from './features/readings/service';
 import { readingRoutes } from './features/readings/routes';
 import { makeFlagService } from './features/flags/service';
 import { flagRoutes } from './features/flags/routes';
 import { trendRoutes } from './features/trends/routes';
+import { makeTrendService } from './features/trends/service';
 import { makeImportService } from './features/imports/service';
 import { importRoutes } from './features/imports/routes';
 import { createRealtimeHub, type RealtimeHub } from './lib/realtime';
@@ -38,12 +40,13 @@ import { makeNotices, type Notices } from './features/handovers/notices';
 import { createMailer, type Mailer } from './lib/mailer';
 import { makeOutboxSender, type OutboxOptions, type OutboxSender } from './lib/outbox';
 import { storageFromEnv, type Storage } from './lib/storage';
-import { attachmentRoutes } from './features/handovers/attachments';
-import { makeAttachmentService } from './features/handovers/attachment-service';
+import { attachmentRoutes } from './features/attachments/routes';
+import { makeAttachmentService } from './features/attachments/service';
 import { shiftRoutes } from './features/shifts/routes';
 import { makeShiftService } from './features/shifts/service';
 import { logbookRoutes } from './features/logbook/routes';
 import { makeReviewCommentService } from './features/logbook/review-comments';
+import { makeLogbookService } from './features/logbook/service';
 import { trainingRoutes } from './features/training/routes';
 import { makeTrainingService } from './features/training/service';
 import { shiftCondenserRoutes } from './features/shift-condenser/routes';
@@ -70,7 +73,7 @@ export type BuiltApp = {
 
 export function createApp(
   sequelize: Sequelize,
-  config: Pick<AppConfig, 'sessionSecret' | 'production' | 'behindHttpsProxy' | 'smtpUrl' | 'publicUrl'> & Partial<Pick<AppConfig, 'signInLimits' | 'anonymousTokenLimit'>>,
+  config: Pick<AppConfig, 'sessionSecret' | 'behindHttpsProxy' | 'smtpUrl' | 'publicUrl'> & Partial<Pick<AppConfig, 'signInLimits' | 'anonymousTokenLimit'>>,
   deps: { storage?: Storage; importBatchRows?: number; mailer?: Mailer; outbox?: OutboxOptions } = {},
 ): BuiltApp {
   const app = express();
@@ -136,10 +139,10 @@ export function createApp(
   );
   app.use('/api/admin/users', adminUserRoutes(users));
   app.use('/api/admin/audit-events', adminAuditRoutes());
-  app.use('/api/plant', plantRoutes(sequelize, makeVersionService(sequelize)));
+  app.use('/api/plant', plantRoutes(makeVersionService(sequelize), makeEquipmentService(sequelize)));
   app.use('/api', readingRoutes(makeReadingService(sequelize)));
   app.use('/api', flagRoutes(makeFlagService(sequelize)));
-  app.use('/api', trendRoutes(sequelize));
+  app.use('/api', trendRoutes(makeTrendService(sequelize)));
   app.use('/api', importRoutes(makeImportService(sequelize, { batchRows: deps.importBatchRows })));
   const log = makeLogService(sequelize);
   app.use('/api', stationRoutes(makeStationService(sequelize)));
@@ -151,7 +154,7 @@ export function createApp(
   app.use('/api', attachmentRoutes(makeAttachmentService(sequelize, deps.storage ?? storageFromEnv(), handovers)));
   app.use('/api', shiftRoutes(makeShiftService(sequelize)));
   const reviewComments = makeReviewCommentService(sequelize);
-  app.use('/api', logbookRoutes(sequelize, reviewComments));
+  app.use('/api', logbookRoutes(makeLogbookService(sequelize), reviewComments));
   app.use('/api', trainingRoutes(makeTrainingService(sequelize)));
   app.use('/api', shiftCondenserRoutes(makeShiftCondenserService(sequelize)));
   app.use('/api', handoverHeaderRoutes());

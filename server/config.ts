@@ -6,7 +6,6 @@ export type AppConfig = {
   port: number;
   host: string;
   sessionSecret: string;
-  production: boolean;
   /** Served over HTTPS behind a proxy: trust it and mark cookies secure. */
   behindHttpsProxy: boolean;
   /** Failed sign-ins before an account is locked, and per address (see sign-in-limits.ts). */
@@ -40,7 +39,6 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     port: Number(env.PORT ?? 5180),
     host: env.HOST ?? '127.0.0.1',
     sessionSecret,
-    production: env.NODE_ENV === 'production',
     behindHttpsProxy: env.HTTPS_PROXY_IN_FRONT === '1',
     signInLimits: {
       ...defaultSignInLimits,

@@ -36,8 +36,9 @@ async function shutdown() {
     process.exit(1);
   }, 8_000).unref();
   clearInterval(reminders);
+  // Closing Socket.IO closes the HTTP server it is attached to as well; idle keep-alive connections
+  // would hold that close open, so they are ended here.
   await io.close();
-  server.close();
   server.closeAllConnections();
   await built.outbox.stop();
   built.close();

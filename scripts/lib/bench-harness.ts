@@ -57,7 +57,7 @@ export async function startBench(name: string): Promise<Bench> {
   return {
     sequelize,
     async serve(role) {
-      const built = createApp(sequelize, { sessionSecret: 'bench', production: true, behindHttpsProxy: false, anonymousTokenLimit: 100_000 });
+      const built = createApp(sequelize, { sessionSecret: 'bench', behindHttpsProxy: false, anonymousTokenLimit: 100_000 });
       closeApp = built.close;
       server = http.createServer(built.app);
       io = built.realtime.attach(server, built.sessionMiddleware);

@@ -11,6 +11,7 @@ import { initLogModels } from '../features/log/model';
 import { initStandingOrderModels } from '../features/standing-orders/model';
 import { initConditionModel } from '../features/conditions/model';
 import { initHandoverModels } from '../features/handovers/model';
+import { initAttachmentModel } from '../features/attachments/model';
 import { initShiftModels } from '../features/shifts/model';
 import { initTrainingModels } from '../features/training/model';
 import { initLogbookModels } from '../features/logbook/model';
@@ -31,6 +32,7 @@ export function initModels(sequelize: Sequelize) {
   initStandingOrderModels(sequelize);
   initConditionModel(sequelize);
   initHandoverModels(sequelize);
+  initAttachmentModel(sequelize);
   initShiftModels(sequelize);
   initTrainingModels(sequelize);
   initLogbookModels(sequelize);

@@ -1,7 +1,7 @@
 // Who may do what, by role: the one table the server's routes authorise from, the access-matrix test
 // checks every route against, and the browser asks for its navigation and buttons. Rules that also
 // depend on the record — whose log entry, which crew's shift, which side of a handover — live with
-// their kind in this folder (log.ts, training.ts, handover.ts) and start from this table.
+// their kind in this folder (log.ts, training.ts, handover.ts, review.ts) and start from this table.
 //
 // Administrators administer: people, shifts, plant setup, station settings, the audit trail and the
 // training catalogue. They write no operational record (rounds, flags, log, conditions, standing
@@ -42,8 +42,10 @@ export const permissions = {
   'handover.take-part': onShift,
   'handover.attach': qualified,
 
-  // Training and review. Whose records: training.ts.
+  // Training and review. Whose records: training.ts and review.ts.
   'review.comment': ['trainer'],
+  /** Reads every review comment; others read those on their own records and their crew's: review.ts. */
+  'review.read-all': ['trainer', 'shift_lead', 'admin'],
   'training.catalogue': ['trainer', 'admin'],
   'training.practice': ['trainee'],
   'training.countersign': qualified,

@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
-import { HandoverAmendment, HandoverAttachment, HandoverItem } from '../../server/features/handovers/model';
+import { HandoverAmendment, HandoverItem } from '../../server/features/handovers/model';
+import { HandoverAttachment } from '../../server/features/attachments/model';
 import { createApp } from '../../server/app';
 import { s3Storage } from '../../server/lib/storage';
 import { SECRET, anonymousAgent, closeAll, db, makeStation, makeUser, signedInAgent, type Agent } from './support/test-app';
@@ -21,7 +22,7 @@ beforeAll(async () => {
   s3 = await startFakeS3();
   built = createApp(
     db(),
-    { sessionSecret: SECRET, production: false, behindHttpsProxy: false },
+    { sessionSecret: SECRET, behindHttpsProxy: false },
     { storage: s3Storage({ endpoint: s3.endpoint, bucket: 'hotwell-test', accessKeyId: 'local', secretAccessKey: 'local' }) },
   );
   const { unit, crews } = await makeStation(2);

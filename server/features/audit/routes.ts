@@ -1,10 +1,8 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { Op } from 'sequelize';
 import { allow } from '../../lib/auth';
 import { parseInput } from '../../lib/validate';
-import { User } from '../users/model';
-import { AuditEvent } from './model';
+import { listAuditEvents } from './service';
 
 const auditQuery = z.object({
   entity: z.string().max(64).optional(),
@@ -18,27 +16,7 @@ export function adminAuditRoutes(): Router {
   const router = Router();
   router.use(allow('audit.read'));
   router.get('/', async (req, res) => {
-    const q = parseInput(auditQuery, req.query);
-    const where: Record<string | symbol, unknown> = {};
-    if (q.entity) where.entity = q.entity;
-    if (q.entityId) where.entityId = q.entityId;
-    if (q.before) where.id = { [Op.lt]: q.before };
-    const events = await AuditEvent.findAll({ where, order: [['id', 'DESC']], limit: q.limit });
-    const actorIds = [...new Set(events.map((e) => e.actorId).filter((id): id is number => id !== null))];
-    const actors = await User.findAll({ where: { id: actorIds }, attributes: ['id', 'name'] });
-    const names = new Map(actors.map((a) => [a.id, a.name]));
-    res.json({
-      events: events.map((e) => ({
-        id: e.id,
-        at: e.at.toISOString(),
-        actor: e.actorId ? (names.get(e.actorId) ?? `#${e.actorId}`) : 'system',
-        action: e.action,
-        entity: e.entity,
-        entityId: e.entityId,
-        before: e.before,
-        after: e.after,
-      })),
-    });
+    res.json({ events: await listAuditEvents(parseInput(auditQuery, req.query)) });
   });
   return router;
 }

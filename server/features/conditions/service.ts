@@ -1,22 +1,20 @@
 // Time-limited conditions: opened with a deadline, shown with the time left (computed here, from
 // UTC), closed only by a closing log entry.
-import type { Sequelize } from 'sequelize';
+import { Op, type Sequelize } from 'sequelize';
 import { remainingTime } from '../../../shared/conditions';
 import { stationLocalLabel } from '../../../shared/shift-time';
 import { recordAudit } from '../../lib/audit';
 import { Conflict, NotFound, ValidationError } from '../../lib/errors';
 import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
-import { settingsForUnit } from '../stations/settings';
-import { User } from '../users/model';
-import type { LogService } from '../log/service';
+import type { LogService } from '../log/index';
+import { settingsForUnit } from '../stations/index';
+import { findPerson, namesOf } from '../users/index';
 import type { LogActor } from '../../../shared/policies/log';
 import { Condition } from './model';
 
 export async function presentConditions(conditions: Condition[], timeZone: string, now = new Date()) {
-  const people = new Map(
-    (await User.findAll({ where: { id: [...new Set(conditions.flatMap((c) => [c.ownerId, c.openedBy, c.closedBy].filter((id): id is number => id !== null)))] }, attributes: ['id', 'name'] })).map((u) => [u.id, u.name]),
-  );
+  const people = await namesOf(conditions.flatMap((c) => [c.ownerId, c.openedBy, c.closedBy]));
   return conditions.map((c) => {
     const remaining = remainingTime(c.startedAt, c.limitAt, now, c.closedAt);
     return {
@@ -41,10 +39,33 @@ export async function presentConditions(conditions: Condition[], timeZone: strin
   });
 }
 
+/** A unit's conditions (open, closed or all), soonest deadline first, as shown on its station's clock. */
+export async function listConditions(unitId: number, state: 'open' | 'closed' | 'all') {
+  const { settings } = await settingsForUnit(unitId);
+  const where: Record<string, unknown> = { unitId };
+  if (state === 'open') where.closedAt = null;
+  const rows = await Condition.findAll({ where, order: [['limitAt', 'ASC']], limit: 200 });
+  return presentConditions(state === 'closed' ? rows.filter((r) => r.closedAt) : rows, settings.timeZone);
+}
+
+/** One condition as shown, on its unit's station clock. */
+export async function presentCondition(condition: Condition) {
+  const { settings } = await settingsForUnit(condition.unitId);
+  return (await presentConditions([condition], settings.timeZone))[0]!;
+}
+
+/** Conditions of a unit open at some time in [start, end) (a past shift's view). */
+export function conditionsOpenDuring(unitId: number, start: Date, end: Date) {
+  return Condition.findAll({
+    where: { unitId, startedAt: { [Op.lt]: end }, [Op.or]: [{ closedAt: null }, { closedAt: { [Op.gte]: start } }] },
+    order: [['startedAt', 'ASC']],
+  });
+}
+
 export function makeConditionService(sequelize: Sequelize, log: LogService) {
   async function open(actorId: number, unitId: number, input: { title: string; requiredAction: string; startedAt: string; limitHours?: number; limitAt?: string; ownerId: number }) {
     await settingsForUnit(unitId);
-    const owner = await User.findByPk(input.ownerId);
+    const owner = await findPerson(input.ownerId);
     if (!owner || !owner.active) throw new ValidationError({ ownerId: 'No such active person' });
     const startedAt = new Date(input.startedAt);
     // Hours allowed are absolute hours: a clock change neither adds nor removes one.

@@ -4,7 +4,7 @@ import type { Transaction } from 'sequelize';
 import { checkKeys } from '../../../shared/calc/check-catalog';
 import type { Evaluation } from '../../../shared/calc/evaluate';
 import { publish } from '../../lib/live';
-import { PlantUnit } from '../plant/model';
+import { lockUnit } from '../plant/index';
 import { Flag, notYetFollowedUp } from './model';
 
 const brokenChecks = (evaluation: Evaluation) => checkKeys.map((k) => evaluation.checks[k]).filter((c) => c.status === 'watch' || c.status === 'alarm');
@@ -18,7 +18,7 @@ const brokenChecks = (evaluation: Evaluation) => checkKeys.map((k) => evaluation
  */
 export async function takeFlagTurn(unitId: number, transaction: Transaction, evaluation?: Evaluation): Promise<void> {
   if (evaluation && brokenChecks(evaluation).length === 0) return;
-  await PlantUnit.findByPk(unitId, { attributes: ['id'], transaction, lock: transaction.LOCK.UPDATE });
+  await lockUnit(unitId, transaction);
 }
 
 export async function refreshAutomaticFlags(

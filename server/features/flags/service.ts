@@ -5,9 +5,9 @@ import { recordAudit } from '../../lib/audit';
 import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
 import { Conflict, NotFound, ValidationError } from '../../lib/errors';
-import { requireUnit } from '../plant/versions';
-import { ReadingSet } from '../readings/model';
-import { User } from '../users/model';
+import { requireUnit } from '../plant/index';
+import { findRound } from '../readings/index';
+import { findPerson, namesOf } from '../users/index';
 import { Flag, notYetFollowedUp } from './model';
 
 const auditView = (f: Flag) => ({ status: f.status, severity: f.severity, assignedTo: f.assignedTo, followUp: f.followUp, clearComment: f.clearComment });
@@ -15,8 +15,8 @@ const auditView = (f: Flag) => ({ status: f.status, severity: f.severity, assign
 export async function presentFlags(flags: Flag[]) {
   const ids = new Set<number>();
   for (const f of flags) for (const id of [f.raisedBy, f.assignedTo, f.clearedBy]) if (id) ids.add(id);
-  const users = ids.size ? await User.findAll({ where: { id: [...ids] }, attributes: ['id', 'name'] }) : [];
-  const name = (id: number | null) => (id ? (users.find((u) => u.id === id)?.name ?? `#${id}`) : null);
+  const names = await namesOf([...ids]);
+  const name = (id: number | null) => (id ? (names.get(id) ?? `#${id}`) : null);
   return flags.map((f) => ({
     id: f.id,
     unitId: f.unitId,
@@ -59,12 +59,30 @@ export async function listFlags(
   return presentFlags(flags);
 }
 
+export function findFlag(id: number) {
+  return Flag.findByPk(id);
+}
+
+/** Flags on these parameters that were open at some time between `from` and `to` (trend markers). */
+export function flagsRaisedBetween(unitId: number, parameters: string[], from: Date, to: Date) {
+  return Flag.findAll({
+    where: { unitId, parameter: parameters, raisedAt: { [Op.lte]: to }, [Op.or]: [{ clearedAt: null }, { clearedAt: { [Op.gte]: from } }] },
+    order: [['raisedAt', 'ASC']],
+    limit: 500,
+  });
+}
+
+/** Flags of a unit open at some time in [start, end) (a past shift's view). */
+export function flagsOpenDuring(unitId: number, start: Date, end: Date) {
+  return Flag.findAll({ where: { unitId, raisedAt: { [Op.lt]: end }, [Op.or]: [{ clearedAt: null }, { clearedAt: { [Op.gte]: start } }] }, order: [['raisedAt', 'ASC']] });
+}
+
 export function makeFlagService(sequelize: Sequelize) {
   async function raise(actorId: number, unitId: number, input: RaiseFlagInput) {
     await requireUnit(unitId);
     let value: number | null = null;
     if (input.readingSetId) {
-      const reading = await ReadingSet.findByPk(input.readingSetId);
+      const reading = await findRound(input.readingSetId, { withResults: true });
       if (!reading || reading.unitId !== unitId) throw new ValidationError({ readingSetId: 'No such reading set on this unit' });
       value = reading.results.checks[input.parameter]?.value ?? null;
     }
@@ -113,7 +131,7 @@ export function makeFlagService(sequelize: Sequelize) {
   }
 
   async function assign(actorId: number, id: number, input: AssignFlagInput) {
-    const assignee = await User.findByPk(input.assignedTo);
+    const assignee = await findPerson(input.assignedTo);
     if (!assignee || !assignee.active) throw new ValidationError({ assignedTo: 'No such active person' });
     return change(actorId, id, input.version, 'flag.assign', (flag) => {
       flag.assignedTo = input.assignedTo;

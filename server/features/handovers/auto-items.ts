@@ -5,11 +5,11 @@
 // "— alarm" item). An item the crew removed stays removed.
 import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
 import { checkCatalog, type CheckKey } from '../../../shared/calc/check-catalog';
-import { Condition } from '../conditions/model';
-import { Flag } from '../flags/model';
-import { LogEntry } from '../log/model';
-import { PlantUnit } from '../plant/model';
-import { StandingOrder } from '../standing-orders/model';
+import { Condition } from '../conditions/index';
+import { Flag } from '../flags/index';
+import { LogEntry } from '../log/index';
+import { findUnit } from '../plant/index';
+import { StandingOrder } from '../standing-orders/index';
 import { HandoverItem, type Handover, type ItemKind } from './model';
 
 type Wanted = { kind: ItemKind; sourceId: number; title: string; detail: string | null; priority: 'normal' | 'high' };
@@ -17,7 +17,7 @@ type Wanted = { kind: ItemKind; sourceId: number; title: string; detail: string 
 export const flagItemTitle = (parameter: string, severity: string) => `${checkCatalog[parameter as CheckKey]?.label ?? parameter} — ${severity}`;
 
 async function wantedItems(handover: Handover, transaction: Transaction): Promise<Wanted[]> {
-  const unit = await PlantUnit.findByPk(handover.unitId, { transaction });
+  const unit = await findUnit(handover.unitId, transaction);
   const now = new Date();
   const [flags, conditions, entries, orders] = await Promise.all([
     Flag.findAll({ where: { unitId: handover.unitId, status: 'open' }, transaction }),

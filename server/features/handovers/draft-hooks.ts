@@ -4,11 +4,11 @@
 // the board never writes; these writes do.
 import { Op, type Model, type ModelStatic, type Transaction } from 'sequelize';
 import { publish } from '../../lib/live';
-import { Condition } from '../conditions/model';
-import { Flag } from '../flags/model';
-import { LogEntry } from '../log/model';
-import { PlantUnit } from '../plant/model';
-import { StandingOrder } from '../standing-orders/model';
+import { Condition } from '../conditions/index';
+import { Flag } from '../flags/index';
+import { LogEntry } from '../log/index';
+import { unitIdsOfStation } from '../plant/index';
+import { StandingOrder } from '../standing-orders/index';
 import { syncAutomaticItems } from './auto-items';
 import { Handover } from './model';
 
@@ -44,6 +44,5 @@ export function registerHandoverDraftHooks() {
   watch(Flag, (f) => [f.unitId], ['severity', 'status']);
   watch(Condition, (c) => [c.unitId], ['title', 'requiredAction', 'closedAt']);
   watch(LogEntry, (e) => (e.carryToHandover ? [e.unitId] : []));
-  // Read in the writer's transaction: a query outside it would hold a second connection meanwhile.
-  watch(StandingOrder, async (o, transaction) => (await PlantUnit.findAll({ where: { stationId: o.stationId }, attributes: ['id'], transaction })).map((u) => u.id));
+  watch(StandingOrder, (o, transaction) => unitIdsOfStation(o.stationId, transaction ?? undefined));
 }

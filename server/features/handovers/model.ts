@@ -1,9 +1,9 @@
 import type { CondenserSnapshot } from '../../../shared/shift-condenser';
+import type { handoverItemKinds } from '../../../shared/schemas/handovers';
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 
 export type HandoverStatus = 'draft' | 'submitted' | 'accepted';
-export const itemKinds = ['equipment', 'abnormal_reading', 'condition', 'log_entry', 'standing_order', 'work_in_progress', 'chemistry', 'follow_up'] as const;
-export type ItemKind = (typeof itemKinds)[number];
+export type ItemKind = (typeof handoverItemKinds)[number];
 
 export class Handover extends Model<InferAttributes<Handover>, InferCreationAttributes<Handover>> {
   declare id: CreationOptional<number>;
@@ -77,18 +77,6 @@ export class HandoverAmendment extends Model<InferAttributes<HandoverAmendment>,
   declare clientKey: CreationOptional<string | null>;
 }
 
-export class HandoverAttachment extends Model<InferAttributes<HandoverAttachment>, InferCreationAttributes<HandoverAttachment>> {
-  declare id: CreationOptional<number>;
-  declare itemId: number;
-  declare fileName: string;
-  declare mime: string;
-  declare size: number;
-  declare storageKey: string;
-  declare uploadedBy: number;
-  declare uploadedAt: Date;
-  declare amendmentId: CreationOptional<number | null>;
-}
-
 export function initHandoverModels(sequelize: Sequelize) {
   const pk = { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true };
   const int = DataTypes.INTEGER.UNSIGNED;
@@ -123,9 +111,5 @@ export function initHandoverModels(sequelize: Sequelize) {
   HandoverAmendment.init(
     { id: pk, handoverId: int, itemId: int, authorId: int, amendedAt: at, reason: DataTypes.STRING(1000), text: DataTypes.TEXT, clientKey: DataTypes.STRING(64) },
     { sequelize, tableName: 'handover_amendments', timestamps: false },
-  );
-  HandoverAttachment.init(
-    { id: pk, itemId: int, fileName: DataTypes.STRING(200), mime: DataTypes.STRING(80), size: int, storageKey: DataTypes.STRING(200), uploadedBy: int, uploadedAt: at, amendmentId: int },
-    { sequelize, tableName: 'handover_attachments', timestamps: false },
   );
 }

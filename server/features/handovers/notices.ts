@@ -6,20 +6,21 @@ import { Op, QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { stationLocalLabel } from '../../../shared/shift-time';
 import { enqueueNotice, type OutboxSender } from '../../lib/outbox';
 import { unitOfWork } from '../../lib/unit-of-work';
-import { Condition } from '../conditions/model';
-import { PlantUnit } from '../plant/model';
-import { shiftChangeAt } from '../shifts/crews';
-import { settingsForStation } from '../stations/settings';
-import { User } from '../users/model';
+import { Condition } from '../conditions/index';
+import { findUnit } from '../plant/index';
+import { shiftChangeAt } from '../shifts/index';
+import { settingsForStation } from '../stations/index';
+import { findPeople, findPerson } from '../users/index';
+import type { Role } from '../../../shared/roles';
+import { shiftRoles } from '../../../shared/policies/handover';
 import { Handover, HandoverItem } from './model';
 
-const crewRoles = ['trainee', 'operator', 'shift_lead'];
 /** Late records read at a time by the reminder check. */
 const PAGE = 50;
 
-async function crewAddresses(crewId: number | null, roles: string[], transaction?: Transaction) {
+async function crewAddresses(crewId: number | null, roles: readonly Role[], transaction?: Transaction) {
   if (!crewId) return [];
-  return (await User.findAll({ where: { crewId, active: true, role: roles }, attributes: ['email'], transaction })).map((u) => u.email);
+  return (await findPeople({ crewIds: [crewId], activeOnly: true, roles }, transaction)).map((u) => u.email);
 }
 
 export type Notices = ReturnType<typeof makeNotices>;
@@ -32,9 +33,9 @@ export function makeNotices(sequelize: Sequelize, outbox: Pick<OutboxSender, 'wa
     const h = await Handover.findByPk(handoverId, { transaction });
     if (!h) return;
     const [unit, items, submitter] = await Promise.all([
-      PlantUnit.findByPk(h.unitId, { transaction }),
+      findUnit(h.unitId, transaction),
       HandoverItem.findAll({ where: { handoverId, removedAt: null }, transaction }),
-      h.submittedBy ? User.findByPk(h.submittedBy, { transaction }) : null,
+      h.submittedBy ? findPerson(h.submittedBy, transaction) : null,
     ]);
     const settings = await settingsForStation(unit!.stationId, transaction);
     const high = items.filter((i) => i.priority === 'high');
@@ -42,7 +43,7 @@ export function makeNotices(sequelize: Sequelize, outbox: Pick<OutboxSender, 'wa
       {
         kind: 'handover_submitted',
         refId: handoverId,
-        to: await crewAddresses(h.incomingCrewId, crewRoles, transaction),
+        to: await crewAddresses(h.incomingCrewId, shiftRoles, transaction),
         subject: `Handover for ${unit!.name} submitted — ${items.length} items to acknowledge`,
         text: [
           `${submitter?.name ?? 'The outgoing crew'} submitted the handover for ${unit!.name}, shift change ${stationLocalLabel(h.handoverAt, settings.timeZone)} (${settings.timeZone}).`,
@@ -75,7 +76,7 @@ export function makeNotices(sequelize: Sequelize, outbox: Pick<OutboxSender, 'wa
       });
       for (const h of late) {
         after = Number(h.id);
-        const unit = await PlantUnit.findByPk(h.unitId);
+        const unit = await findUnit(h.unitId);
         const to = await crewAddresses(h.incomingCrewId, ['shift_lead']);
         const wrote = await unitOfWork(sequelize, async (transaction) => {
           const [, marked] = await sequelize.query('UPDATE handovers SET reminder_sent_at = ? WHERE id = ? AND reminder_sent_at IS NULL', {
@@ -107,10 +108,10 @@ export function makeNotices(sequelize: Sequelize, outbox: Pick<OutboxSender, 'wa
       });
       for (const c of expired) {
         after = Number(c.id);
-        const unit = await PlantUnit.findByPk(c.unitId);
+        const unit = await findUnit(c.unitId);
         const change = await shiftChangeAt(unit!.stationId, now);
         const leads = await crewAddresses(change.outgoingCrewId, ['shift_lead']);
-        const owner = await User.findByPk(c.ownerId);
+        const owner = await findPerson(c.ownerId);
         const wrote = await unitOfWork(sequelize, async (transaction) => {
           const [, marked] = await sequelize.query('UPDATE conditions SET expiry_notice_sent_at = ? WHERE id = ? AND expiry_notice_sent_at IS NULL AND closed_at IS NULL', {
             replacements: [now, c.id],

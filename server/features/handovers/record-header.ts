@@ -2,33 +2,32 @@
 // station's own time, and both crews with their people. Its own read, so the board's
 // acknowledgement path does not pay for it.
 import { Router } from 'express';
-import { Op } from 'sequelize';
 import { stationLocalLabel } from '../../../shared/shift-time';
 import { signedIn } from '../../lib/auth';
 import { NotFound } from '../../lib/errors';
 import { parseId } from '../../lib/validate';
-import { Crew, PlantUnit, Station } from '../plant/model';
-import { stationShiftSetup } from '../stations/settings';
-import { User } from '../users/model';
+import { crewNamesOf, findStation, findUnit } from '../plant/index';
+import { shiftRoles } from '../../../shared/policies/handover';
+import { stationShiftSetup } from '../stations/index';
+import { findPeople } from '../users/index';
 import { Handover } from './model';
 
-const crewRoles = ['trainee', 'operator', 'shift_lead'];
 
 export async function handoverRecordHeader(id: number) {
   const h = await Handover.findByPk(id, { attributes: ['id', 'unitId', 'shiftStart', 'handoverAt', 'outgoingCrewId', 'incomingCrewId'] });
   if (!h) throw new NotFound('That handover');
-  const unit = (await PlantUnit.findByPk(h.unitId))!;
+  const unit = (await findUnit(h.unitId))!;
   const crewIds = [h.outgoingCrewId, h.incomingCrewId].filter((x): x is number => x !== null);
   const [station, { settings }, crews, people] = await Promise.all([
-    Station.findByPk(unit.stationId),
+    findStation(unit.stationId),
     stationShiftSetup(unit.stationId),
-    crewIds.length ? Crew.findAll({ where: { id: crewIds } }) : [],
-    crewIds.length ? User.findAll({ where: { crewId: { [Op.in]: crewIds }, active: true, role: crewRoles }, attributes: ['id', 'name', 'role', 'crewId'], order: [['name', 'ASC']] }) : [],
+    crewNamesOf(crewIds),
+    crewIds.length ? findPeople({ crewIds, activeOnly: true, roles: shiftRoles }) : [],
   ]);
   const crew = (crewId: number | null) => {
-    const row = crews.find((c) => c.id === crewId);
-    if (!row) return null;
-    return { id: row.id, name: row.name, members: people.filter((p) => p.crewId === row.id).map((p) => ({ name: p.name, role: p.role })) };
+    const name = crewId === null ? undefined : crews.get(crewId);
+    if (crewId === null || name === undefined) return null;
+    return { id: crewId, name, members: people.filter((p) => p.crewId === crewId).map((p) => ({ name: p.name, role: p.role })) };
   };
   return {
     station: { id: unit.stationId, name: station?.name ?? `#${unit.stationId}` },

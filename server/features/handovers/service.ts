@@ -12,14 +12,14 @@ import { Conflict, Forbidden, HttpError, NotFound, ValidationError } from '../..
 import { publish, publishCommitted } from '../../lib/live';
 import { sanitizeRichText } from '../../lib/rich-text';
 import { unitOfWork } from '../../lib/unit-of-work';
-import { PlantUnit } from '../plant/model';
-import { shiftChangeAt } from '../shifts/crews';
-import { settingsForStation } from '../stations/settings';
+import { findUnit } from '../plant/index';
+import { shiftChangeAt } from '../shifts/index';
+import { settingsForStation } from '../stations/index';
 import { syncAutomaticItems } from './auto-items';
 import { Handover, HandoverAmendment, HandoverItem, HandoverQuery } from './model';
 import type { Notices } from './notices';
 import { viewHandover } from './view';
-import { freezeCondenserState } from '../shift-condenser/snapshot';
+import { freezeCondenserState } from '../shift-condenser/index';
 
 type Actor = Express.User;
 const asActor = (user: Actor): HandoverActor => ({ id: user.id, role: user.role, crewId: user.crewId });
@@ -28,7 +28,7 @@ const asActor = (user: Actor): HandoverActor => ({ id: user.id, role: user.role,
 export const windowOf = (settings: StationSettings, handoverAt: Date) => handoverWindow(handoverAt, settings.handoverWindowBeforeMinutes, settings.handoverWindowAfterMinutes);
 
 async function requireWindow(h: Handover, what: 'submitted' | 'accepted', now: Date) {
-  const unit = await PlantUnit.findByPk(h.unitId);
+  const unit = await findUnit(h.unitId);
   const settings = await settingsForStation(unit!.stationId);
   const window = windowOf(settings, h.handoverAt);
   if (withinWindow(window, now)) return;
@@ -76,7 +76,7 @@ export function makeHandoverService(sequelize: Sequelize, notices: Notices) {
 
   /** The shift change in progress and its handover, if started. Reads only. */
   async function current(actor: Actor, unitId: number) {
-    const unit = await PlantUnit.findByPk(unitId);
+    const unit = await findUnit(unitId);
     if (!unit) throw new NotFound('That unit');
     const change = await shiftChangeAt(unit.stationId);
     const handover = await Handover.findOne({ where: { unitId, shiftStart: change.shiftStart } });
@@ -86,7 +86,7 @@ export function makeHandoverService(sequelize: Sequelize, notices: Notices) {
 
   /** Starts the draft for the shift change in progress (once: a second start returns the same draft). */
   async function start(actor: Actor, unitId: number) {
-    const unit = await PlantUnit.findByPk(unitId);
+    const unit = await findUnit(unitId);
     if (!unit) throw new NotFound('That unit');
     const change = await shiftChangeAt(unit.stationId);
     if (!mayWriteHandover(asActor(actor), change)) throw new Forbidden('Only the outgoing crew’s operators and shift lead start this shift’s handover');

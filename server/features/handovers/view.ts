@@ -4,14 +4,15 @@ import { Op } from 'sequelize';
 import { remainingTime } from '../../../shared/conditions';
 import { shiftRoles } from '../../../shared/policies/handover';
 import { NotFound } from '../../lib/errors';
-import { Condition } from '../conditions/model';
-import { Flag } from '../flags/model';
-import { User } from '../users/model';
-import { Handover, HandoverAck, HandoverAmendment, HandoverAttachment, HandoverItem, HandoverQuery } from './model';
+import { Condition } from '../conditions/index';
+import { Flag } from '../flags/index';
+import { findPeople, namesOf } from '../users/index';
+import { attachmentsOfItems } from '../attachments/index';
+import { Handover, HandoverAck, HandoverAmendment, HandoverItem, HandoverQuery } from './model';
 
 /** The incoming crew whose acknowledgements the turnover waits for. */
 export const incomingCrewOf = (h: Handover) =>
-  h.incomingCrewId ? User.findAll({ where: { crewId: h.incomingCrewId, active: true, role: [...shiftRoles] }, attributes: ['id', 'name', 'role'] }) : Promise.resolve([]);
+  h.incomingCrewId ? findPeople({ crewIds: [h.incomingCrewId], activeOnly: true, roles: shiftRoles }) : Promise.resolve([]);
 
 export async function viewHandover(id: number) {
   const h = await Handover.findByPk(id);
@@ -23,7 +24,7 @@ export async function viewHandover(id: number) {
     itemIds.length ? HandoverQuery.findAll({ where: { itemId: itemIds }, order: [['id', 'ASC']] }) : [],
     HandoverAmendment.findAll({ where: { handoverId: id }, order: [['id', 'ASC']] }),
     incomingCrewOf(h),
-    itemIds.length ? HandoverAttachment.findAll({ where: { itemId: itemIds }, order: [['id', 'ASC']] }) : [],
+    attachmentsOfItems(itemIds),
   ]);
   // Items that mirror a flag or condition show that record's state now, not as it was when attached.
   const flagIds = items.filter((i) => i.kind === 'abnormal_reading' && i.sourceId).map((i) => i.sourceId!);
@@ -54,7 +55,7 @@ export async function viewHandover(id: number) {
     ...amendments.map((a) => a.authorId),
     ...items.map((i) => i.createdBy).filter((x): x is number => x !== null),
   ]);
-  const names = new Map((await User.findAll({ where: { id: [...ids] }, attributes: ['id', 'name'] })).map((u) => [u.id, u.name]));
+  const names = await namesOf([...ids]);
   const name = (uid: number | null) => (uid ? (names.get(uid) ?? `#${uid}`) : null);
   const waiting: string[] = [];
   const shownItems = items.map((item) => {

@@ -4,9 +4,8 @@ import { allow } from '../../lib/auth';
 import { ValidationError } from '../../lib/errors';
 import { singleFileUpload } from '../../lib/upload';
 import { parseId, parseInput } from '../../lib/validate';
-import { requireUnit } from '../plant/versions';
-import { MAX_IMPORT_BYTES, parseCsv } from './parse-csv';
-import { analyseImport, rememberedMappings, type ImportService } from './service';
+import { MAX_IMPORT_BYTES } from './parse-csv';
+import { analyseImport, inspectFile, rememberedMappings, type ImportService } from './service';
 
 const upload = singleFileUpload({ fileSize: MAX_IMPORT_BYTES, fieldSize: 64 * 1024 }, 'The file is larger than 10 MB; split it and import the parts');
 const mayImport = allow('import.run');
@@ -34,16 +33,12 @@ export function importRoutes(imports: ImportService): Router {
   const router = Router();
 
   router.get('/units/:unitId/import-mappings', mayImport, async (req, res) => {
-    const unitId = parseId(req.params.unitId, 'unitId');
-    await requireUnit(unitId);
-    res.json({ mappings: await rememberedMappings(unitId) });
+    res.json({ mappings: await rememberedMappings(parseId(req.params.unitId, 'unitId')) });
   });
 
   /** Step 1: the file's columns and a few rows, to map them. */
   router.post('/units/:unitId/imports/inspect', ...withFile, async (req, res) => {
-    await requireUnit(parseId(req.params.unitId, 'unitId'));
-    const { headers, rows } = parseCsv(fileOf(req));
-    res.json({ headers, sample: rows.slice(0, 5), rowCount: rows.length });
+    res.json(await inspectFile(parseId(req.params.unitId, 'unitId'), fileOf(req)));
   });
 
   /** Step 2: every row checked against the mapping; nothing stored. */

@@ -1,19 +1,19 @@
 // Historian CSV import: map columns, preview every row, then store the valid ones in batches.
 import { Op, type Sequelize, type Transaction } from 'sequelize';
 import type { ReadingSetSi } from '../../../shared/calc/evaluate';
-import { importFields, type ImportField, type ImportMapping, type ImportRowReport } from '../../../shared/schemas/imports';
+import { type ImportField, type ImportMapping, type ImportRowReport } from '../../../shared/schemas/imports';
 import { readingSetInputSchema, type ReadingSetInput } from '../../../shared/schemas/reading-set';
 import { publish } from '../../lib/live';
 import { recordAudit } from '../../lib/audit';
 import { convertReadingSet } from '../../lib/convert-readings';
 import { HttpError, ValidationError, fieldErrorsFromZod } from '../../lib/errors';
 import { unitOfWork } from '../../lib/unit-of-work';
-import { takeFlagTurn } from '../flags/automatic';
-import { requireUnit, unjudgedReason, versionStarts } from '../plant/versions';
-import { settingsForStation } from '../stations/settings';
+import { takeFlagTurn } from '../flags/index';
+import { requireUnit, unjudgedReason, versionStarts } from '../plant/index';
+import { settingsForStation } from '../stations/index';
 import { parseStationTime } from '../../../shared/station-time';
-import { ReadingSet } from '../readings/model';
-import { checkTakenAt, storeImportBatch } from '../readings/service';
+import { ReadingSet } from '../readings/index';
+import { checkTakenAt, storeImportBatch } from '../readings/index';
 import { ImportMappingRow } from './model';
 import { parseCsv } from './parse-csv';
 
@@ -184,6 +184,13 @@ export async function analyseImport(unitId: number, buffer: Buffer, mapping: Imp
 }
 
 /** Rows per transaction: a round on the same unit waits for at most one batch. */
+/** Step 1 of an import: the file's columns and a few rows, to map them. Stores nothing. */
+export async function inspectFile(unitId: number, buffer: Buffer) {
+  await requireUnit(unitId);
+  const { headers, rows } = parseCsv(buffer);
+  return { headers, sample: rows.slice(0, 5), rowCount: rows.length };
+}
+
 export const IMPORT_BATCH_ROWS = 100;
 
 export function makeImportService(sequelize: Sequelize, options: { batchRows?: number } = {}) {
@@ -281,8 +288,8 @@ export function makeImportService(sequelize: Sequelize, options: { batchRows?: n
 export type ImportService = ReturnType<typeof makeImportService>;
 
 export async function rememberedMappings(unitId: number) {
+  await requireUnit(unitId);
   const rows = await ImportMappingRow.findAll({ where: { unitId }, order: [['updatedAt', 'DESC']] });
   return rows.map((r) => ({ source: r.source, mapping: r.mapping, updatedAt: r.updatedAt.toISOString() }));
 }
 
-export const importFieldList = Object.entries(importFields).map(([key, spec]) => ({ key, ...spec }));

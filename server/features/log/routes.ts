@@ -1,10 +1,8 @@
 import { Router } from 'express';
 import { amendLogEntrySchema, logQuerySchema, newLogEntrySchema, signReviewSchema } from '../../../shared/schemas/log';
-import { recentShiftStarts, stationLocalLabel } from '../../../shared/shift-time';
 import { allow, signedIn } from '../../lib/auth';
 import { parseId, parseInput } from '../../lib/validate';
-import { settingsForUnit } from '../stations/settings';
-import { listEntries, reviewsFor, type LogService } from './service';
+import { listEntries, recentShiftsWithReviews, type LogService } from './service';
 
 
 export function logRoutes(log: LogService): Router {
@@ -12,7 +10,6 @@ export function logRoutes(log: LogService): Router {
 
   router.get('/units/:unitId/log', signedIn, async (req, res) => {
     const unitId = parseId(req.params.unitId, 'unitId');
-    await settingsForUnit(unitId);
     res.json({ entries: await listEntries(unitId, parseInput(logQuerySchema, req.query), req.user!) });
   });
 
@@ -28,14 +25,7 @@ export function logRoutes(log: LogService): Router {
 
   /** The station's settings and recent shifts with who signed each position's review. */
   router.get('/units/:unitId/log/shifts', signedIn, async (req, res) => {
-    const unitId = parseId(req.params.unitId, 'unitId');
-    const { settings } = await settingsForUnit(unitId);
-    const starts = recentShiftStarts(new Date(), settings.timeZone, settings.shiftChangeTimes, 14);
-    res.json({
-      settings,
-      shifts: starts.map((s) => ({ start: s.toISOString(), label: stationLocalLabel(s, settings.timeZone) })),
-      reviews: await reviewsFor(unitId, starts),
-    });
+    res.json(await recentShiftsWithReviews(parseId(req.params.unitId, 'unitId')));
   });
 
   router.post('/units/:unitId/log/reviews', allow('log.review'), async (req, res) => {

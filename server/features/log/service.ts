@@ -1,19 +1,19 @@
 // The narrative log: append-only entries, amendments beside them, late-entry marking by server
 // time, and the shift lead's end-of-shift review.
 import { Op, type Sequelize, type Transaction } from 'sequelize';
-import { shiftStartFor } from '../../../shared/shift-time';
+import { recentShiftStarts, shiftStartFor, stationLocalLabel } from '../../../shared/shift-time';
 import type { NewLogEntry } from '../../../shared/schemas/log';
 import { Conflict, Forbidden, NotFound, ValidationError } from '../../lib/errors';
 import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
 import { recordAudit } from '../../lib/audit';
 import { mayAmendLogEntry, whyNotAmendLogEntry, type LogActor } from '../../../shared/policies/log';
-import { Equipment, PlantUnit } from '../plant/model';
-import { ReadingSet } from '../readings/model';
-import { Flag } from '../flags/model';
-import { User } from '../users/model';
-import { crewsOnShifts } from '../shifts/crews';
-import { requireKnown, settingsForUnit, stationShiftSetup } from '../stations/settings';
+import { findEquipment, findUnit } from '../plant/index';
+import { findRound } from '../readings/index';
+import { findFlag } from '../flags/index';
+import { namesOf } from '../users/index';
+import { crewsOnShifts } from '../shifts/index';
+import { requireKnown, settingsForUnit, stationShiftSetup } from '../stations/index';
 import { LogAmendment, LogEntry, LogReview } from './model';
 
 const FUTURE_TOLERANCE_MS = 2 * 60 * 1000;
@@ -33,15 +33,15 @@ async function crewsOfShifts(stationId: number, shiftStarts: Date[]): Promise<Ma
 async function checkLinks(unitId: number, input: NewLogEntry) {
   const fields: Record<string, string> = {};
   if (input.equipmentId) {
-    const e = await Equipment.findByPk(input.equipmentId);
+    const e = await findEquipment(input.equipmentId);
     if (!e || e.unitId !== unitId) fields.equipmentId = 'No such equipment on this unit';
   }
   if (input.readingSetId) {
-    const r = await ReadingSet.findByPk(input.readingSetId, { attributes: ['id', 'unitId'] });
+    const r = await findRound(input.readingSetId);
     if (!r || r.unitId !== unitId) fields.readingSetId = 'No such reading set on this unit';
   }
   if (input.flagId) {
-    const f = await Flag.findByPk(input.flagId);
+    const f = await findFlag(input.flagId);
     if (!f || f.unitId !== unitId) fields.flagId = 'No such flag on this unit';
   }
   if (Object.keys(fields).length) throw new ValidationError(fields);
@@ -88,7 +88,7 @@ export function makeLogService(sequelize: Sequelize) {
   async function amend(actor: Actor, entryId: number, input: { reason: string; text: string }) {
     const entry = await LogEntry.findByPk(entryId);
     if (!entry) throw new NotFound('That log entry');
-    const unit = await PlantUnit.findByPk(entry.unitId, { attributes: ['id', 'stationId'] });
+    const unit = await findUnit(entry.unitId);
     const crewOnShift = unit ? ((await crewsOfShifts(unit.stationId, [entry.shiftStart])).get(entry.shiftStart.getTime()) ?? null) : null;
     if (!mayAmendLogEntry(actor, { authorId: entry.authorId, crewOnShift })) throw new Forbidden(whyNotAmendLogEntry(actor));
     return unitOfWork(sequelize, async (transaction) => {
@@ -125,6 +125,8 @@ type LogQuery = { position?: string; category?: string; authorId?: number; shift
 
 /** Entries newest event first, each with its amendments, whether it came after the review and whether the viewer may amend it. */
 export async function listEntries(unitId: number, q: LogQuery, viewer: LogActor) {
+  // 404 for an unknown unit before anything is read.
+  await settingsForUnit(unitId);
   const where: Record<string | symbol, unknown> = { unitId };
   if (q.position) where.position = q.position;
   if (q.category) where.category = q.category;
@@ -137,9 +139,9 @@ export async function listEntries(unitId: number, q: LogQuery, viewer: LogActor)
   const shifts = [...new Set(entries.map((e) => e.shiftStart.getTime()))].map((t) => new Date(t));
   const reviews = shifts.length ? await LogReview.findAll({ where: { unitId, shiftStart: shifts } }) : [];
   const people = new Map(
-    (await User.findAll({ where: { id: [...new Set([...entries.map((e) => e.authorId), ...amendments.map((a) => a.authorId), ...reviews.map((r) => r.reviewedBy)])] }, attributes: ['id', 'name'] })).map((u) => [u.id, u.name]),
+    await namesOf([...entries.map((e) => e.authorId), ...amendments.map((a) => a.authorId), ...reviews.map((r) => r.reviewedBy)]),
   );
-  const unit = await PlantUnit.findByPk(unitId, { attributes: ['id', 'stationId'] });
+  const unit = await findUnit(unitId);
   const crews = unit ? await crewsOfShifts(unit.stationId, shifts) : new Map<number, number | null>();
   const reviewOf = (e: LogEntry) => reviews.find((r) => r.position === e.position && r.shiftStart.getTime() === e.shiftStart.getTime());
   return entries.map((e) => {
@@ -177,8 +179,19 @@ export async function listEntries(unitId: number, q: LogQuery, viewer: LogActor)
   });
 }
 
+/** The station's settings and the unit's last 14 shifts with who signed each position's review. */
+export async function recentShiftsWithReviews(unitId: number) {
+  const { settings } = await settingsForUnit(unitId);
+  const starts = recentShiftStarts(new Date(), settings.timeZone, settings.shiftChangeTimes, 14);
+  return {
+    settings,
+    shifts: starts.map((s) => ({ start: s.toISOString(), label: stationLocalLabel(s, settings.timeZone) })),
+    reviews: await reviewsFor(unitId, starts),
+  };
+}
+
 export async function reviewsFor(unitId: number, shiftStarts: Date[]) {
   const reviews = await LogReview.findAll({ where: { unitId, shiftStart: shiftStarts } });
-  const people = new Map((await User.findAll({ where: { id: reviews.map((r) => r.reviewedBy) }, attributes: ['id', 'name'] })).map((u) => [u.id, u.name]));
+  const people = await namesOf(reviews.map((r) => r.reviewedBy));
   return reviews.map((r) => ({ position: r.position, shiftStart: r.shiftStart.toISOString(), by: people.get(r.reviewedBy) ?? `#${r.reviewedBy}`, at: r.reviewedAt.toISOString() }));
 }

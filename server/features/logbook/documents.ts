@@ -5,9 +5,9 @@
 // definition of what a document holds. The crew and shift come from the station's rotation.
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { shiftStartFor } from '../../../shared/shift-time';
-import { stationShiftSetup } from '../stations/settings';
-import { CrewSwap } from '../shifts/model';
-import { crewFromRotation } from '../shifts/crews';
+import { stationShiftSetup } from '../stations/index';
+import { swapsOfStation } from '../shifts/index';
+import { crewFromRotation } from '../shifts/index';
 import { checkCatalog } from '../../../shared/calc/check-catalog';
 import { plausibleCatalog } from '../../../shared/calc/plausibility';
 
@@ -201,7 +201,7 @@ async function assignShiftsAndCrews(sequelize: Sequelize, transaction: Transacti
   const updates = new Map<string, number[]>(); // "shiftStartMs|crewId" → document ids
   for (const [stationId, docs] of byStation) {
     const { settings, rotation } = await stationShiftSetup(stationId, transaction);
-    const swaps = new Map((await CrewSwap.findAll({ where: { stationId }, transaction: transaction ?? undefined })).map((s) => [s.shiftStart.getTime(), s.crewId]));
+    const swaps = new Map((await swapsOfStation(stationId, transaction ?? undefined)).map((s) => [s.shiftStart.getTime(), s.crewId]));
     const perDay = settings.shiftChangeTimes.length;
     for (const doc of docs) {
       const shiftStart = doc.shiftStart ? new Date(doc.shiftStart) : shiftStartFor(new Date(doc.occurredAt), settings.timeZone, settings.shiftChangeTimes);

@@ -2,12 +2,12 @@
 // refreshes its document in the writer's own transaction (so a rolled-back write leaves no trace
 // in the index either). Registered once per model init.
 import type { Model, ModelStatic, Sequelize, Transaction, WhereOptions } from 'sequelize';
-import { LogAmendment, LogEntry } from '../log/model';
-import { StandingOrder } from '../standing-orders/model';
-import { Handover, HandoverAmendment, HandoverItem, HandoverQuery } from '../handovers/model';
-import { Flag } from '../flags/model';
-import { ReadingAmendment, ReadingValue } from '../readings/model';
-import { Condition } from '../conditions/model';
+import { LogAmendment, LogEntry } from '../log/index';
+import { StandingOrder } from '../standing-orders/index';
+import { Handover, HandoverAmendment, HandoverItem, HandoverQuery } from '../handovers/index';
+import { Flag } from '../flags/index';
+import { ReadingAmendment, ReadingValue } from '../readings/index';
+import { Condition } from '../conditions/index';
 import { indexDocuments, type DocumentKind } from './documents';
 
 type AnyModel = ModelStatic<Model>;

@@ -3,27 +3,22 @@
 // time-limited conditions alive during the shift (remaining time as at the shift's end), standing
 // orders in force, the handover received at the start and the one given at the end, and the
 // trainers' review comments the viewer may see.
-import { Op, QueryTypes, type Sequelize } from 'sequelize';
+import { QueryTypes, type Sequelize } from 'sequelize';
 import { nextShiftStart, shiftStartFor, stationLocalLabel } from '../../../shared/shift-time';
 import { NotFound, ValidationError } from '../../lib/errors';
-import { stationShiftSetup } from '../stations/settings';
-import { crewOnShift } from '../shifts/crews';
-import { Crew, LimitSetVersion, PlantUnit } from '../plant/model';
-import { listEntries, reviewsFor } from '../log/service';
-import { ReadingSet } from '../readings/model';
-import { getReading } from '../readings/service';
-import { Flag } from '../flags/model';
-import { presentFlags } from '../flags/service';
-import { Condition } from '../conditions/model';
-import { presentConditions } from '../conditions/service';
-import { StandingOrder } from '../standing-orders/model';
-import { presentOrder } from '../standing-orders/service';
-import { Handover } from '../handovers/model';
-import { viewHandover } from '../handovers/view';
+import { stationShiftSetup } from '../stations/index';
+import { crewOnShift } from '../shifts/index';
+import { findCrew, findUnit, limitSetsById } from '../plant/index';
+import { listEntries, reviewsFor } from '../log/index';
+import { getReading, roundIdsBetween } from '../readings/index';
+import { flagsOpenDuring, presentFlags } from '../flags/index';
+import { conditionsOpenDuring, presentConditions } from '../conditions/index';
+import { ordersInForceDuring, presentOrder } from '../standing-orders/index';
+import { handoversAroundShift, viewHandover } from '../handovers/index';
 import { commentsOn } from './review-comments';
 
 export async function pastShift(sequelize: Sequelize, viewer: Express.User, unitId: number, shiftStartText: string) {
-  const unit = await PlantUnit.findByPk(unitId);
+  const unit = await findUnit(unitId);
   if (!unit) throw new NotFound('That unit');
   const { settings, rotation } = await stationShiftSetup(unit.stationId);
   const start = new Date(shiftStartText);
@@ -37,28 +32,26 @@ export async function pastShift(sequelize: Sequelize, viewer: Express.User, unit
   const asAt = end < now ? end : now;
   const crewId = await crewOnShift(unit.stationId, start, rotation, settings.shiftChangeTimes.length);
 
-  const alive = (startColumn: string, endColumn: string) => ({ [startColumn]: { [Op.lt]: end }, [Op.or]: [{ [endColumn]: null }, { [endColumn]: { [Op.gte]: start } }] });
-  const [entries, reviews, readingRows, flagRows, conditionRows, orderRows, received, given, crew] = await Promise.all([
+  const [entries, reviews, roundIds, flagRows, conditionRows, orderRows, around, crew] = await Promise.all([
     listEntries(unitId, { shiftStart: start.toISOString(), limit: 2000 }, viewer),
     reviewsFor(unitId, [start]),
-    ReadingSet.findAll({ where: { unitId, takenAt: { [Op.gte]: start, [Op.lt]: end } }, attributes: ['id'], order: [['takenAt', 'ASC']] }),
-    Flag.findAll({ where: { unitId, ...alive('raisedAt', 'clearedAt') }, order: [['raisedAt', 'ASC']] }),
-    Condition.findAll({ where: { unitId, ...alive('startedAt', 'closedAt') }, order: [['startedAt', 'ASC']] }),
-    StandingOrder.findAll({ where: { stationId: unit.stationId, ...alive('effectiveFrom', 'effectiveTo') }, order: [['issuedAt', 'ASC']] }),
-    Handover.findOne({ where: { unitId, handoverAt: start }, attributes: ['id'] }),
-    Handover.findOne({ where: { unitId, shiftStart: start }, attributes: ['id'] }),
-    crewId ? Crew.findByPk(crewId) : null,
+    roundIdsBetween(unitId, start, end),
+    flagsOpenDuring(unitId, start, end),
+    conditionsOpenDuring(unitId, start, end),
+    ordersInForceDuring(unit.stationId, start, end),
+    handoversAroundShift(unitId, start),
+    crewId ? findCrew(crewId) : null,
   ]);
-  const readings = await Promise.all(readingRows.map((r) => getReading(r.id)));
+  const readings = await Promise.all(roundIds.map((id) => getReading(id)));
   const limitSets = new Map(
-    (await LimitSetVersion.findAll({ where: { id: [...new Set(readings.map((r) => r.reading.limitVersionId))] } })).map((l) => [
+    [...(await limitSetsById(readings.map((r) => r.reading.limitVersionId))).values()].map((l) => [
       l.id,
       { id: l.id, effectiveFrom: l.effectiveFrom.toISOString(), limits: l.limits },
     ]),
   );
   const [handoverReceived, handoverGiven, orders] = await Promise.all([
-    received ? viewHandover(received.id) : null,
-    given ? viewHandover(given.id) : null,
+    around.receivedId ? viewHandover(around.receivedId) : null,
+    around.givenId ? viewHandover(around.givenId) : null,
     Promise.all(orderRows.map((o) => presentOrder(o, false))),
   ]);
 

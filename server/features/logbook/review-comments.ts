@@ -6,11 +6,11 @@ import { NotFound } from '../../lib/errors';
 import { recordAudit } from '../../lib/audit';
 import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
-import { User } from '../users/model';
+import { namesOf } from '../users/index';
+import { mayReadReviewComment } from '../../../shared/policies/review';
 import { ReviewComment } from './model';
 import type { ReviewCommentView } from '../../../shared/schemas/logbook';
 
-const REVIEWERS = ['trainer', 'shift_lead', 'admin'];
 
 type DocumentRow = { id: number; kind: string; refId: number; unitId: number | null; shiftStart: Date | null; personId: number | null; crewId: number | null; title: string };
 
@@ -27,9 +27,7 @@ async function readDocuments(sequelize: Sequelize, where: string, replacements: 
 const documentsById = (sequelize: Sequelize, ids: number[]) =>
   ids.length ? readDocuments(sequelize, `id IN (${ids.map(Number).join(',')})`) : Promise.resolve(new Map<number, DocumentRow>());
 
-function mayRead(viewer: Express.User, doc: Pick<DocumentRow, 'personId' | 'crewId'>) {
-  return REVIEWERS.includes(viewer.role) || doc.personId === viewer.id || (viewer.crewId !== null && doc.crewId === viewer.crewId);
-}
+const mayRead = (viewer: Express.User, doc: Pick<DocumentRow, 'personId' | 'crewId'>) => mayReadReviewComment(viewer, doc);
 
 /** The comments on these documents that the viewer may read, oldest first. */
 export async function commentsOn(sequelize: Sequelize, viewer: Express.User, documentIds: number[]) {
@@ -40,7 +38,7 @@ export async function commentsOn(sequelize: Sequelize, viewer: Express.User, doc
 }
 
 async function present(comments: ReviewComment[], docs: Map<number, DocumentRow>): Promise<ReviewCommentView[]> {
-  const authors = new Map((await User.findAll({ where: { id: [...new Set(comments.map((c) => c.authorId))] }, attributes: ['id', 'name'] })).map((u) => [u.id, u.name]));
+  const authors = await namesOf(comments.map((c) => c.authorId));
   return comments.map((c) => {
     const doc = docs.get(c.documentId)!;
     return {

@@ -1,58 +1,28 @@
 import { Router } from 'express';
-import Papa from 'papaparse';
-import type { Sequelize } from 'sequelize';
-import { documentKindLabels, logbookSearchSchema, reviewCommentSchema, type LogbookSearch } from '../../../shared/schemas/logbook';
+import { logbookSearchSchema, reviewCommentSchema } from '../../../shared/schemas/logbook';
 import { allow, signedIn } from '../../lib/auth';
 import { parseId, parseInput } from '../../lib/validate';
-import { Station } from '../plant/model';
-import { settingsForStation, settingsForUnit } from '../stations/settings';
-import { searchLogbook } from './search';
-import { pastShift } from './past-shift';
 import type { ReviewCommentService } from './review-comments';
+import type { LogbookService } from './service';
 
 const mayComment = allow('review.comment');
-const CSV_ROWS = 5000;
 
-/** Date filters are station-local days: the unit's station, or the first station. */
-async function timeZoneFor(filters: LogbookSearch) {
-  if (filters.unitId) return (await settingsForUnit(filters.unitId)).settings.timeZone;
-  const station = await Station.findOne({ order: [['id', 'ASC']] });
-  return (await settingsForStation(station?.id ?? 0)).timeZone;
-}
-
-export function logbookRoutes(sequelize: Sequelize, comments: ReviewCommentService): Router {
+export function logbookRoutes(logbook: LogbookService, comments: ReviewCommentService): Router {
   const router = Router();
 
   router.get('/logbook/search', signedIn, async (req, res) => {
-    const filters = parseInput(logbookSearchSchema, req.query);
-    res.json(await searchLogbook(sequelize, filters, await timeZoneFor(filters)));
+    res.json(await logbook.search(parseInput(logbookSearchSchema, req.query)));
   });
 
   router.get('/logbook/search.csv', signedIn, async (req, res) => {
-    const filters = parseInput(logbookSearchSchema, req.query);
-    const { hits } = await searchLogbook(sequelize, filters, await timeZoneFor(filters), CSV_ROWS);
-    const csv = Papa.unparse(
-      hits.map((h) => ({
-        occurred_at_utc: h.occurredAt,
-        shift_start_utc: h.shiftStart ?? '',
-        unit: h.unitName ?? 'station',
-        crew: h.crewName ?? '',
-        person: h.personName ?? '',
-        record: documentKindLabels[h.kind as keyof typeof documentKindLabels] ?? h.kind,
-        severity: h.severity ?? '',
-        title: h.title,
-        text: h.snippet,
-      })),
-      // Log text is typed by people: a cell starting with = + - @ must not run as a spreadsheet formula.
-      { escapeFormulae: true },
-    );
+    const csv = await logbook.searchCsv(parseInput(logbookSearchSchema, req.query));
     res.setHeader('Content-Type', 'text/csv; charset=utf-8');
     res.setHeader('Content-Disposition', 'attachment; filename="hotwell-logbook-search.csv"');
-    res.send(`\uFEFF${csv}`);
+    res.send(csv);
   });
 
   router.get('/logbook/units/:unitId/shifts/:shiftStart', signedIn, async (req, res) => {
-    res.json(await pastShift(sequelize, req.user!, parseId(req.params.unitId, 'unitId'), String(req.params.shiftStart)));
+    res.json(await logbook.shift(req.user!, parseId(req.params.unitId, 'unitId'), String(req.params.shiftStart)));
   });
 
   router.post('/logbook/review-comments', mayComment, async (req, res) => {

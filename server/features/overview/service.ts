@@ -2,16 +2,16 @@
 // key checks, open flags and conditions, and the state of the coming handover; and for the person
 // asking, what waits on them. Read-only: nothing here creates, updates or touches a row (the
 // handover board's own "current" route opens a draft; this deliberately does not call it).
-import { Op, type Sequelize } from 'sequelize';
+import type { Sequelize } from 'sequelize';
+import { shiftRoles } from '../../../shared/policies/handover';
 import { remainingTime } from '../../../shared/conditions';
 import type { Overview, OverviewHandover, OverviewUnit } from '../../../shared/schemas/overview';
 import { stationLocalLabel } from '../../../shared/shift-time';
-import { User } from '../users/model';
+import { peopleOnCrewsOrIds } from '../users/index';
 import { shiftNow } from './shift-now';
 import { currentHandovers, latestRounds, openConditions, openFlags, type CurrentHandovers } from './unit-state';
 import { handoverItemsFor, handoverQuestionsFor, handoversToAcceptFor, reviewCommentsFor, standingOrdersFor, trainingEntriesFor, traineeRoundsFor, type ReviewCommentsFor } from './waiting';
 
-const CREW_ROLES = ['trainee', 'operator', 'shift_lead'];
 const roleOrder: Record<string, number> = { shift_lead: 0, operator: 1, trainee: 2 };
 
 export function makeOverviewService(sequelize: Sequelize, deps: { reviewCommentsFor: ReviewCommentsFor }) {
@@ -35,11 +35,10 @@ export function makeOverviewService(sequelize: Sequelize, deps: { reviewComments
     for (const s of shift.stations.values()) if (s.crewOnShiftId !== null) crewIds.add(s.crewOnShiftId);
     for (const h of handovers.handovers) if (h.incomingCrewId !== null) crewIds.add(h.incomingCrewId);
     const userIds = new Set<number>([...[...rounds.values()].map((r) => r.recordedBy), ...traineeRounds.map((r) => r.recordedBy)]);
-    const anyOf = [...(crewIds.size ? [{ crewId: [...crewIds] }] : []), ...(userIds.size ? [{ id: [...userIds] }] : [])];
-    const people = anyOf.length ? await User.findAll({ where: { [Op.or]: anyOf }, attributes: ['id', 'name', 'role', 'crewId', 'active'] }) : [];
+    const people = await peopleOnCrewsOrIds([...crewIds], [...userIds]);
     const nameOf = (id: number) => people.find((p) => p.id === id)?.name ?? `#${id}`;
     const crewMembers = (crewId: number | null) =>
-      crewId === null ? [] : people.filter((p) => p.crewId === crewId && p.active && CREW_ROLES.includes(p.role)).sort((a, b) => (roleOrder[a.role]! - roleOrder[b.role]!) || a.name.localeCompare(b.name));
+      crewId === null ? [] : people.filter((p) => p.crewId === crewId && p.active && shiftRoles.includes(p.role)).sort((a, b) => (roleOrder[a.role]! - roleOrder[b.role]!) || a.name.localeCompare(b.name));
     const crew = (id: number | null) => (id === null ? null : { id, name: shift.crewNames.get(id) ?? `#${id}` });
     const unitName = (id: number) => shift.units.find((u) => u.id === id)?.name ?? `#${id}`;
 

@@ -2,10 +2,9 @@
 // changes and who comes in. A fixed number of reads whatever the number of units or stations.
 import { nextShiftStart, shiftStartFor } from '../../../shared/shift-time';
 import type { StationSettings } from '../../../shared/schemas/log';
-import { Crew, PlantUnit, Station } from '../plant/model';
-import { crewsOnShifts, type CrewRotation } from '../shifts/crews';
-import { StationSettingsRow } from '../stations/model';
-import { defaultStationSettings, settingsFromRow } from '../stations/settings';
+import { allStations, allUnits, crewNamesOf, type PlantUnit } from '../plant/index';
+import { crewsOnShifts, type CrewRotation } from '../shifts/index';
+import { defaultStationSettings, shiftSetupsByStation } from '../stations/index';
 
 export type StationNow = {
   stationId: number;
@@ -24,20 +23,19 @@ export type ShiftNow = {
 };
 
 export async function shiftNow(now: Date): Promise<ShiftNow> {
-  const [units, stations, rows] = await Promise.all([PlantUnit.findAll({ order: [['code', 'ASC']] }), Station.findAll(), StationSettingsRow.findAll()]);
-  const rowOf = new Map(rows.map((r) => [r.stationId, r]));
+  const [units, stations, saved] = await Promise.all([allUnits(), allStations(), shiftSetupsByStation()]);
   const setups = stations.map((station) => {
-    const row = rowOf.get(station.id);
-    const settings = row ? settingsFromRow(row) : defaultStationSettings;
+    const setup = saved.get(station.id);
+    const settings = setup?.settings ?? defaultStationSettings;
     const shiftStart = shiftStartFor(now, settings.timeZone, settings.shiftChangeTimes);
     const changeAt = nextShiftStart(shiftStart, settings.timeZone, settings.shiftChangeTimes);
-    return { station, settings, rotation: (row?.crewRotation ?? null) as CrewRotation | null, shiftStart, changeAt };
+    return { station, settings, rotation: (setup?.rotation ?? null) as CrewRotation | null, shiftStart, changeAt };
   });
   const crews = await crewsOnShifts(
     setups.flatMap((s) => [s.shiftStart, s.changeAt].map((shiftStart) => ({ stationId: s.station.id, shiftStart, rotation: s.rotation, changesPerDay: s.settings.shiftChangeTimes.length }))),
   );
   const crewIds = [...new Set(crews.filter((id): id is number => id !== null))];
-  const crewNames = new Map((crewIds.length ? await Crew.findAll({ where: { id: crewIds }, attributes: ['id', 'name'] }) : []).map((c) => [c.id, c.name]));
+  const crewNames = await crewNamesOf(crewIds);
   const byStation = new Map<number, StationNow>(
     setups.map((s, i) => [
       s.station.id,

@@ -6,9 +6,9 @@ import { checkCatalog, type CheckKey } from '../../../shared/calc/check-catalog'
 import type { Evaluation } from '../../../shared/calc/evaluate';
 import type { Status } from '../../../shared/calc/limits';
 import { overviewCheckKeys, type OverviewCheck, type OverviewFlag } from '../../../shared/schemas/overview';
-import { Condition } from '../conditions/model';
-import { Handover, HandoverAck, HandoverItem, HandoverQuery } from '../handovers/model';
-import { ReadingAmendment, ReadingCountersign, ReadingSet } from '../readings/model';
+import { Condition } from '../conditions/index';
+import { Handover, HandoverAck, HandoverItem, HandoverQuery } from '../handovers/index';
+import { ReadingAmendment, ReadingCountersign, ReadingSet } from '../readings/index';
 
 /** The newest round (walked and recorded, not imported history) of each unit, in its current version. */
 export async function latestRounds(sequelize: Sequelize, unitIds: number[]) {

@@ -5,9 +5,10 @@ import { Op, literal } from 'sequelize';
 import type { ReviewCommentView } from '../../../shared/schemas/logbook';
 import type { WaitingOnYou } from '../../../shared/schemas/overview';
 import { can } from '../../../shared/policies/permissions';
-import { ReadingSet } from '../readings/model';
-import { pendingFor } from '../standing-orders/service';
-import { countersignQueue } from '../training/service';
+import { mayAccept } from '../../../shared/policies/handover';
+import { ReadingSet } from '../readings/index';
+import { pendingFor } from '../standing-orders/index';
+import { countersignQueue } from '../training/index';
 import type { CurrentHandovers } from './unit-state';
 
 const LIST_LIMIT = 10;
@@ -53,7 +54,8 @@ export function handoversToAcceptFor(
   unitName: (unitId: number) => string,
   crewMembers: (crewId: number | null) => { id: number }[],
 ): WaitingOnYou['handoversToAccept'] {
-  if (viewer.crewId === null || viewer.role !== 'shift_lead') return [];
+  // The handovers this person would accept: the incoming lead's (shared/policies/handover.ts).
+  if (viewer.crewId === null || !mayAccept(viewer, { outgoingCrewId: null, incomingCrewId: viewer.crewId })) return [];
   return current.handovers
     .filter((h) => h.status === 'submitted' && h.incomingCrewId === viewer.crewId)
     .filter((h) => {

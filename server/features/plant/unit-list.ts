@@ -1,17 +1,15 @@
 import type { UnitSummary } from '../../../shared/schemas/plant';
-import { StationSettingsRow } from '../stations/model';
-import { defaultStationSettings } from '../stations/settings';
+import { defaultStationSettings, timeZonesByStation } from '../stations/index';
 import { PlantUnit, Station } from './model';
 
 /** Every unit with its station's name and time zone (the default zone for a station without settings). */
 export async function listUnits(): Promise<UnitSummary[]> {
-  const [units, stations, settings] = await Promise.all([
+  const [units, stations, zones] = await Promise.all([
     PlantUnit.findAll({ order: [['code', 'ASC']] }),
     Station.findAll({ attributes: ['id', 'name'] }),
-    StationSettingsRow.findAll({ attributes: ['stationId', 'timeZone'] }),
+    timeZonesByStation(),
   ]);
   const names = new Map(stations.map((s) => [s.id, s.name]));
-  const zones = new Map(settings.map((s) => [s.stationId, s.timeZone]));
   return units.map((u) => ({
     id: u.id,
     code: u.code,

@@ -24,10 +24,20 @@ export async function designInForce(unitId: number, at = new Date(), transaction
   return version;
 }
 
+/** The design data in force at a moment, or null before the unit's first. */
+export function designInForceOrNone(unitId: number, at: Date, transaction?: Transaction) {
+  return UnitDesignVersion.findOne({ ...inForce(unitId, at), transaction });
+}
+
 export async function limitsInForce(unitId: number, at = new Date(), transaction?: Transaction): Promise<LimitSetVersion> {
   const version = await LimitSetVersion.findOne({ ...inForce(unitId, at), transaction });
   if (!version) throw new NotFound('A limit set in force for that unit and time');
   return version;
+}
+
+/** Every limit set that came into force up to `to`, oldest first (trends draw their bands from them). */
+export function limitVersionsUpTo(unitId: number, to: Date) {
+  return LimitSetVersion.findAll({ where: { unitId, effectiveFrom: { [Op.lte]: to } }, order: [['effectiveFrom', 'ASC'], ['id', 'ASC']] });
 }
 
 export type PlausibleInForce = { versionId: number | null; ranges: PlausibleRanges };

@@ -5,8 +5,8 @@ import { evaluateReadingSet, type Evaluation, type ReadingSetSi } from '../../..
 import type { Status } from '../../../shared/calc/limits';
 import type { UnitDesign } from '../../../shared/schemas/plant';
 import { startingPlausibleRanges } from '../../../shared/calc/plausibility';
-import { LimitSetVersion, PlausibleRangeVersion, UnitDesignVersion } from '../plant/model';
-import { designInForce, limitsInForce, plausibleInForce } from '../plant/versions';
+import { allVersionsOf } from '../plant/index';
+import { designInForce, limitsInForce, plausibleInForce } from '../plant/index';
 
 export type Judged = {
   evaluation: Evaluation;
@@ -61,11 +61,7 @@ function inForceAt<V extends { id: number; effectiveFrom: Date }>(versions: V[],
  * read inside the batch's transaction stays right for the whole batch.
  */
 export async function judgeManyAt(unitId: number, transaction: Transaction): Promise<(takenAt: Date, si: ReadingSetSi) => Judged> {
-  const [designs, limitSets, plausibleSets] = await Promise.all([
-    UnitDesignVersion.findAll({ where: { unitId }, transaction }),
-    LimitSetVersion.findAll({ where: { unitId }, transaction }),
-    PlausibleRangeVersion.findAll({ where: { unitId }, transaction }),
-  ]);
+  const { designs, limits: limitSets, plausible: plausibleSets } = await allVersionsOf(unitId, transaction);
   return (takenAt, si) => {
     const design = inForceAt(designs, takenAt);
     const limits = inForceAt(limitSets, takenAt);

@@ -1,6 +1,6 @@
 // Rounds: record a reading set, correct it by amendment, countersign a trainee's round.
 import { Op, type Sequelize, type Transaction } from 'sequelize';
-import type { ReadingSetSi } from '../../../shared/calc/evaluate';
+import type { Evaluation, ReadingSetSi } from '../../../shared/calc/evaluate';
 import type { PlausibleKey } from '../../../shared/calc/plausibility';
 import { describeImplausible, noticesByField } from '../../../shared/plausibility-display';
 import type { ReadingSetInput } from '../../../shared/schemas/reading-set';
@@ -10,10 +10,10 @@ import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
 import { ConfirmationRequired, Conflict, Forbidden, NotFound, ValidationError } from '../../lib/errors';
 import { convertReadingSet } from '../../lib/convert-readings';
-import { refreshAutomaticFlags, takeFlagTurn } from '../flags/automatic';
-import { requireUnit, unjudgedReason, versionStarts } from '../plant/versions';
-import { settingsForStation } from '../stations/settings';
-import { User } from '../users/model';
+import { refreshAutomaticFlags, takeFlagTurn } from '../flags/index';
+import { requireUnit, unjudgedReason, versionStarts } from '../plant/index';
+import { settingsForStation } from '../stations/index';
+import { namesOf } from '../users/index';
 import { judgeAt, judgeManyAt, valueRows, type Judged } from './evaluate-at';
 import { ReadingAmendment, ReadingCountersign, ReadingSet, ReadingValue, type ReadingSource } from './model';
 
@@ -137,11 +137,29 @@ export async function storeImportBatch(unitId: number, actor: Actor, rows: { tak
   return { flagsRaised, outsidePlausible: judged.filter((j) => j.evaluation.implausible.length > 0).length };
 }
 
-async function names(ids: (number | null | undefined)[]): Promise<Map<number, string>> {
-  const wanted = [...new Set(ids.filter((id): id is number => typeof id === 'number'))];
-  if (!wanted.length) return new Map();
-  const users = await User.findAll({ where: { id: wanted }, attributes: ['id', 'name'] });
-  return new Map(users.map((u) => [u.id, u.name]));
+const names = (ids: (number | null | undefined)[]) => namesOf(ids);
+
+/** A round's id and unit, or null (other records point at rounds). */
+export function findRound(id: number, options: { withResults?: boolean } = {}) {
+  return ReadingSet.findByPk(id, options.withResults ? {} : { attributes: ['id', 'unitId'] });
+}
+
+/** The current evaluation (its latest amendment's, else its own) of a unit's latest round in [from, until]; null without one. */
+export async function latestEvaluationBetween(unitId: number, from: Date, until: Date, transaction?: Transaction): Promise<Evaluation | null> {
+  const latest = await ReadingSet.findOne({
+    where: { unitId, takenAt: { [Op.between]: [from, until] } },
+    order: [['takenAt', 'DESC'], ['id', 'DESC']],
+    attributes: ['id', 'results'],
+    transaction,
+  });
+  if (!latest) return null;
+  const amendment = await ReadingAmendment.findOne({ where: { readingSetId: latest.id }, order: [['id', 'DESC']], attributes: ['results'], transaction });
+  return amendment?.results ?? latest.results;
+}
+
+/** Ids of a unit's rounds taken in [start, end), oldest first. */
+export async function roundIdsBetween(unitId: number, start: Date, end: Date) {
+  return (await ReadingSet.findAll({ where: { unitId, takenAt: { [Op.gte]: start, [Op.lt]: end } }, attributes: ['id'], order: [['takenAt', 'ASC']] })).map((r) => r.id);
 }
 
 export function makeReadingService(sequelize: Sequelize) {
@@ -271,6 +289,7 @@ function presentReading(reading: ReadingSet, amendments: ReadingAmendment[], cou
 
 /** Newest first; each with its current status, amendment count and countersign state. */
 export async function listReadings(unitId: number, options: { before?: Date; limit: number }) {
+  await requireUnit(unitId);
   const where: Record<string, unknown> = { unitId };
   if (options.before) where.takenAt = { [Op.lt]: options.before };
   const readings = await ReadingSet.findAll({

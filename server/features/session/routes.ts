@@ -1,12 +1,12 @@
-import { Router, type Request, type RequestHandler, type Response } from 'express';
-import passport from 'passport';
+import { Router, type Request, type RequestHandler } from 'express';
 import { rateLimit } from 'express-rate-limit';
 import { changePasswordSchema, signInSchema } from '../../../shared/schemas/auth';
 import { SIGN_IN_FAILED, authorize } from '../../lib/auth';
 import { hasSignedInSession } from '../../lib/csrf';
 import { HttpError } from '../../lib/errors';
 import { parseInput } from '../../lib/validate';
-import { getPublicUser, type UserService } from '../users/service';
+import { getPublicUser, type UserService } from '../users/index';
+import { authenticate, logIn, signOut } from './passport-session';
 import { isRefusal, type SignInLimiter } from './sign-in-limits';
 
 type Csrf = { generateToken: (req: Request, overwrite?: boolean) => string };
@@ -20,19 +20,6 @@ type Deps = {
 };
 
 const addressOf = (req: Request) => req.ip ?? req.socket.remoteAddress ?? 'unknown';
-
-function authenticate(req: Request, res: Response): Promise<Express.User | false> {
-  return new Promise((resolve, reject) => {
-    passport.authenticate('local', { session: false }, (error: unknown, user: Express.User | false) =>
-      error ? reject(error) : resolve(user),
-    )(req, res, reject);
-  });
-}
-
-function logIn(req: Request, user: Express.User): Promise<void> {
-  // passport regenerates the session id here, so a fixed pre-sign-in id is useless.
-  return new Promise((resolve, reject) => req.logIn(user, (error) => (error ? reject(error) : resolve())));
-}
 
 export function sessionRoutes({ users, csrf, signInLimits, anonymousTokenLimit, onSignedOut = () => {} }: Deps): Router {
   const router = Router();
@@ -69,18 +56,13 @@ export function sessionRoutes({ users, csrf, signInLimits, anonymousTokenLimit, 
     res.json({ user: await getPublicUser(user.id), csrfToken: csrf.generateToken(req, true) });
   });
 
-  router.delete('/session', (req, res, next) => {
+  router.delete('/session', async (req, res) => {
     const sessionId = req.sessionID;
-    req.logout((error) => {
-      if (error) return next(error);
-      req.session.destroy((destroyError) => {
-        if (destroyError) return next(destroyError);
-        res.clearCookie('hotwell.sid');
-        // A tab left open elsewhere on this session stops hearing the unit's events at once.
-        onSignedOut(sessionId);
-        res.status(204).end();
-      });
-    });
+    await signOut(req);
+    res.clearCookie('hotwell.sid');
+    // A tab left open elsewhere on this session stops hearing the unit's events at once.
+    onSignedOut(sessionId);
+    res.status(204).end();
   });
 
   const signedInEvenIfPasswordPending = authorize(undefined, { allowPendingPasswordChange: true });

@@ -1,23 +1,22 @@
 // Reads a unit's rounds over a shift window and hands them to the pure summary in
 // shared/shift-condenser.ts. Used live by the handover board and, inside the submit transaction,
 // to freeze what the outgoing crew handed over.
-import { Op, QueryTypes, type Sequelize, type Transaction } from 'sequelize';
+import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import type { CheckKey } from '../../../shared/calc/check-catalog';
-import type { Evaluation } from '../../../shared/calc/evaluate';
 import type { Status } from '../../../shared/calc/limits';
 import { nextShiftStart, shiftStartFor } from '../../../shared/shift-time';
 import { shiftCondenserChecks, shiftCondenserState, type RoundValues, type ShiftCondenserState } from '../../../shared/shift-condenser';
 import { NotFound, ValidationError } from '../../lib/errors';
-import { PlantUnit, UnitDesignVersion } from '../plant/model';
-import { ReadingAmendment, ReadingSet } from '../readings/model';
-import { stationShiftSetup } from '../stations/settings';
+import { designInForceOrNone, findUnit } from '../plant/index';
+import { latestEvaluationBetween } from '../readings/index';
+import { stationShiftSetup } from '../stations/index';
 
 type Row = { id: number; p: CheckKey; t: Date | string; v: number; s: Status };
 
 export function makeShiftCondenserService(sequelize: Sequelize) {
   /** The state over [shiftStart, until]; `transaction` makes it read what that transaction sees. */
   async function stateOver(unitId: number, shiftStart: Date, until: Date, transaction?: Transaction): Promise<ShiftCondenserState> {
-    const unit = await PlantUnit.findByPk(unitId, { transaction });
+    const unit = await findUnit(unitId, transaction);
     if (!unit) throw new NotFound('That unit');
     const { settings } = await stationShiftSetup(unit.stationId, transaction);
     const { timeZone, shiftChangeTimes } = settings;
@@ -44,7 +43,7 @@ export function makeShiftCondenserService(sequelize: Sequelize) {
 
   /** The shift in progress (no `shiftStartText`) or a past one, up to now or its end. */
   async function forShift(unitId: number, shiftStartText: string | undefined, now = new Date()): Promise<ShiftCondenserState> {
-    const unit = await PlantUnit.findByPk(unitId);
+    const unit = await findUnit(unitId);
     if (!unit) throw new NotFound('That unit');
     const { settings } = await stationShiftSetup(unit.stationId);
     let start = shiftStartFor(now, settings.timeZone, settings.shiftChangeTimes);
@@ -65,15 +64,8 @@ export type ShiftCondenserService = ReturnType<typeof makeShiftCondenserService>
 
 /** Why each check of the shift's latest round is absent, from that round's current evaluation. */
 async function latestReasonsIn(unitId: number, from: Date, until: Date, transaction?: Transaction): Promise<Partial<Record<CheckKey, string>>> {
-  const latest = await ReadingSet.findOne({
-    where: { unitId, takenAt: { [Op.between]: [from, until] } },
-    order: [['takenAt', 'DESC'], ['id', 'DESC']],
-    attributes: ['id', 'results'],
-    transaction,
-  });
-  if (!latest) return {};
-  const amendment = await ReadingAmendment.findOne({ where: { readingSetId: latest.id }, order: [['id', 'DESC']], attributes: ['results'], transaction });
-  const results: Evaluation = amendment?.results ?? latest.results;
+  const results = await latestEvaluationBetween(unitId, from, until, transaction);
+  if (!results) return {};
   const reasons: Partial<Record<CheckKey, string>> = {};
   for (const key of shiftCondenserChecks) {
     const check = results.checks[key];
@@ -83,6 +75,6 @@ async function latestReasonsIn(unitId: number, from: Date, until: Date, transact
 }
 
 async function currencyAt(unitId: number, at: Date, transaction?: Transaction): Promise<string | null> {
-  const design = await UnitDesignVersion.findOne({ where: { unitId, effectiveFrom: { [Op.lte]: at } }, order: [['effectiveFrom', 'DESC'], ['id', 'DESC']], attributes: ['data'], transaction });
+  const design = await designInForceOrNone(unitId, at, transaction);
   return design?.data.currency ?? null;
 }

@@ -1,8 +1,8 @@
 // Which crew works a shift: the station's rotation (crews in order, one shift each, counted from an
 // anchor shift), unless a one-off swap says otherwise.
-import { Op } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 import { nextShiftStart, shiftStartFor } from '../../../shared/shift-time';
-import { stationShiftSetup } from '../stations/settings';
+import { stationShiftSetup } from '../stations/index';
 import { CrewSwap } from './model';
 
 export type CrewRotation = { anchorShiftStart: string; crewIds: number[] };
@@ -36,6 +36,11 @@ export async function shiftChangeAt(stationId: number, at = new Date()) {
   const perDay = settings.shiftChangeTimes.length;
   const [outgoingCrewId, incomingCrewId] = await Promise.all([crewOnShift(stationId, current, rotation, perDay), crewOnShift(stationId, next, rotation, perDay)]);
   return { settings, shiftStart: current, handoverAt: next, outgoingCrewId, incomingCrewId };
+}
+
+/** Every one-off swap at a station (rebuilding the search index puts each shift on its crew). */
+export function swapsOfStation(stationId: number, transaction?: Transaction) {
+  return CrewSwap.findAll({ where: { stationId }, transaction });
 }
 
 export type ShiftAsked = { stationId: number; shiftStart: Date; rotation: CrewRotation | null; changesPerDay: number };

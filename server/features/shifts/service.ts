@@ -5,13 +5,12 @@ import { recordAudit } from '../../lib/audit';
 import { Conflict, NotFound, ValidationError } from '../../lib/errors';
 import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
-import { Crew, Station } from '../plant/model';
-import { StationSettingsRow } from '../stations/model';
-import { defaultStationSettings, settingsForStation } from '../stations/settings';
+import { countCrewsOfStation, findStation } from '../plant/index';
+import { saveCrewRotation, settingsForStation } from '../stations/index';
 import { CrewSwap } from './model';
 
 async function requireStation(stationId: number) {
-  if (!(await Station.findByPk(stationId))) throw new NotFound('That station');
+  if (!(await findStation(stationId))) throw new NotFound('That station');
 }
 
 /** A time that is not one of the station's shift changes would never match a shift: refuse it. */
@@ -25,12 +24,10 @@ async function requireShiftStart(stationId: number, at: Date, field: string) {
 export function makeShiftService(sequelize: Sequelize) {
   async function setRotation(actorId: number, stationId: number, rotation: { anchorShiftStart: string; crewIds: number[] }) {
     await requireStation(stationId);
-    if ((await Crew.count({ where: { id: rotation.crewIds, stationId } })) !== new Set(rotation.crewIds).size) throw new ValidationError({ crewIds: 'Choose crews of this station' });
+    if ((await countCrewsOfStation(stationId, rotation.crewIds)) !== new Set(rotation.crewIds).size) throw new ValidationError({ crewIds: 'Choose crews of this station' });
     await requireShiftStart(stationId, new Date(rotation.anchorShiftStart), 'anchorShiftStart');
     await unitOfWork(sequelize, async (transaction) => {
-      const row = await StationSettingsRow.findByPk(stationId, { transaction, lock: transaction.LOCK.UPDATE });
-      if (row) await row.update({ crewRotation: rotation }, { transaction });
-      else await StationSettingsRow.create({ stationId, ...defaultStationSettings, crewRotation: rotation, updatedAt: new Date() }, { transaction });
+      await saveCrewRotation(stationId, rotation, transaction);
       await recordAudit({ actorId, action: 'station.crew_rotation', entity: 'station', entityId: stationId, after: rotation }, transaction);
       publish(transaction, { entity: 'station_settings', id: stationId });
     });
@@ -39,7 +36,7 @@ export function makeShiftService(sequelize: Sequelize) {
 
   async function addSwap(actorId: number, stationId: number, swap: { shiftStart: string; crewId: number; reason: string }) {
     await requireStation(stationId);
-    if (!(await Crew.findOne({ where: { id: swap.crewId, stationId } }))) throw new ValidationError({ crewId: 'Choose a crew of this station' });
+    if ((await countCrewsOfStation(stationId, [swap.crewId])) !== 1) throw new ValidationError({ crewId: 'Choose a crew of this station' });
     await requireShiftStart(stationId, new Date(swap.shiftStart), 'shiftStart');
     try {
       return await unitOfWork(sequelize, async (transaction) => {

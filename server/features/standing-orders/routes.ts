@@ -2,21 +2,13 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { orderQuerySchema, standingOrderSchema } from '../../../shared/schemas/log';
 import { allow, signedIn } from '../../lib/auth';
-import { NotFound } from '../../lib/errors';
 import { parseId, parseInput } from '../../lib/validate';
-import { Station } from '../plant/model';
-import { StandingOrder } from './model';
-import { listOrders, pendingFor, presentOrder, type StandingOrderService } from './service';
+import { getOrder, listOrders, pendingFor, presentOrder, stationIdOrFirst, type StandingOrderService } from './service';
 
 const mayIssue = allow('order.issue');
 const stationQuery = z.object({ stationId: z.coerce.number().int().positive().optional() });
 
-async function stationOf(raw: unknown) {
-  const { stationId } = parseInput(stationQuery, raw);
-  const station = stationId ? await Station.findByPk(stationId) : await Station.findOne({ order: [['id', 'ASC']] });
-  if (!station) throw new NotFound('That station');
-  return station.id;
-}
+const stationOf = (raw: unknown) => stationIdOrFirst(parseInput(stationQuery, raw).stationId);
 
 export function standingOrderRoutes(orders: StandingOrderService): Router {
   const router = Router();
@@ -28,9 +20,7 @@ export function standingOrderRoutes(orders: StandingOrderService): Router {
     res.status(201).json({ order: await presentOrder(order, true) });
   });
   router.get('/standing-orders/:id', signedIn, async (req, res) => {
-    const order = await StandingOrder.findByPk(parseId(req.params.id));
-    if (!order) throw new NotFound('That standing order');
-    res.json({ order: await presentOrder(order, true) });
+    res.json({ order: await getOrder(parseId(req.params.id)) });
   });
   router.post('/standing-orders/:id/acknowledge', allow('order.acknowledge'), async (req, res) => {
     const ack = await orders.acknowledge(req.user!, parseId(req.params.id));

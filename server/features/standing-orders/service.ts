@@ -6,9 +6,9 @@ import { Conflict, Forbidden, NotFound, ValidationError } from '../../lib/errors
 import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
 import { rolesFor } from '../../../shared/policies/permissions';
-import { Crew } from '../plant/model';
-import { User } from '../users/model';
-import { shiftChangeAt } from '../shifts/crews';
+import { countCrewsOfStation, findStation, firstStation } from '../plant/index';
+import { findPeople, findPerson, namesOf } from '../users/index';
+import { shiftChangeAt } from '../shifts/index';
 import { StandingOrder, StandingOrderAck } from './model';
 
 const inScopeRoles = rolesFor('order.acknowledge');
@@ -19,10 +19,12 @@ export function orderInForce(order: StandingOrder, now = new Date()) {
 
 /** The people an order asks to acknowledge it: active crew members in its crews and positions. */
 export async function peopleInScope(order: StandingOrder) {
-  const where: Record<string, unknown> = { active: true, role: [...inScopeRoles] };
-  if (order.crewIds.length) where.crewId = order.crewIds;
-  if (order.positions.length) where.position = order.positions;
-  return User.findAll({ where, attributes: ['id', 'name', 'role', 'crewId', 'position'], order: [['name', 'ASC']] });
+  return findPeople({
+    activeOnly: true,
+    roles: inScopeRoles,
+    ...(order.crewIds.length ? { crewIds: order.crewIds } : {}),
+    ...(order.positions.length ? { positions: order.positions } : {}),
+  });
 }
 
 function inScope(order: StandingOrder, user: { role: string; crewId: number | null; position?: string | null }) {
@@ -39,7 +41,7 @@ export function makeStandingOrderService(sequelize: Sequelize) {
     const bodyText = richTextToPlain(input.bodyHtml);
     if (!bodyText) throw new ValidationError({ bodyHtml: 'Write the order' });
     if (input.crewIds.length) {
-      const crews = await Crew.count({ where: { id: input.crewIds, stationId } });
+      const crews = await countCrewsOfStation(stationId, input.crewIds);
       if (crews !== new Set(input.crewIds).size) throw new ValidationError({ crewIds: 'Unknown crew' });
     }
     return unitOfWork(sequelize, async (transaction) => {
@@ -68,7 +70,7 @@ export function makeStandingOrderService(sequelize: Sequelize) {
   async function acknowledge(user: Express.User & { position?: string | null }, orderId: number) {
     const order = await StandingOrder.findByPk(orderId);
     if (!order) throw new NotFound('That standing order');
-    const person = await User.findByPk(user.id);
+    const person = await findPerson(user.id);
     if (!person || !inScope(order, person)) throw new Forbidden('This order is not addressed to your crew or position');
     if (!orderInForce(order)) throw new Conflict('This order is not in force');
     if (await StandingOrderAck.findOne({ where: { orderId, userId: user.id } })) throw new Conflict('You have already acknowledged this order');
@@ -82,6 +84,28 @@ export function makeStandingOrderService(sequelize: Sequelize) {
   return { issue, acknowledge };
 }
 export type StandingOrderService = ReturnType<typeof makeStandingOrderService>;
+
+/** The station asked for, or the first station when none is named. */
+export async function stationIdOrFirst(stationId: number | undefined) {
+  const station = stationId ? await findStation(stationId) : await firstStation();
+  if (!station) throw new NotFound('That station');
+  return station.id;
+}
+
+/** One order as shown, with the people it asks and who has acknowledged. */
+export async function getOrder(id: number) {
+  const order = await StandingOrder.findByPk(id);
+  if (!order) throw new NotFound('That standing order');
+  return presentOrder(order, true);
+}
+
+/** A station's orders in force at some time in [start, end) (a past shift's view). */
+export function ordersInForceDuring(stationId: number, start: Date, end: Date) {
+  return StandingOrder.findAll({
+    where: { stationId, effectiveFrom: { [Op.lt]: end }, [Op.or]: [{ effectiveTo: null }, { effectiveTo: { [Op.gte]: start } }] },
+    order: [['issuedAt', 'ASC']],
+  });
+}
 
 export async function listOrders(stationId: number, q: { state: 'in_force' | 'archived' | 'all'; q?: string }) {
   const now = new Date();
@@ -97,7 +121,7 @@ export async function listOrders(stationId: number, q: { state: 'in_force' | 'ar
 }
 
 export async function presentOrder(order: StandingOrder, withPeople: boolean) {
-  const [scope, acks, issuer] = await Promise.all([peopleInScope(order), StandingOrderAck.findAll({ where: { orderId: order.id } }), User.findByPk(order.issuedBy, { attributes: ['name'] })]);
+  const [scope, acks, issuer] = await Promise.all([peopleInScope(order), StandingOrderAck.findAll({ where: { orderId: order.id } }), namesOf([order.issuedBy])]);
   const acked = new Map(acks.map((a) => [a.userId, a.acknowledgedAt]));
   const view = {
     id: order.id,
@@ -108,7 +132,7 @@ export async function presentOrder(order: StandingOrder, withPeople: boolean) {
     inForce: orderInForce(order),
     crewIds: order.crewIds,
     positions: order.positions,
-    issuedBy: issuer?.name ?? `#${order.issuedBy}`,
+    issuedBy: issuer.get(order.issuedBy) ?? `#${order.issuedBy}`,
     issuedAt: order.issuedAt.toISOString(),
     inScope: scope.length,
     acknowledged: scope.filter((p) => acked.has(p.id)).length,
@@ -125,7 +149,7 @@ export async function presentOrder(order: StandingOrder, withPeople: boolean) {
  * their crew is on shift (always, where the station has no crew rotation or they have no crew).
  */
 export async function pendingFor(userId: number) {
-  const person = await User.findByPk(userId);
+  const person = await findPerson(userId);
   if (!person) return [];
   const now = new Date();
   const orders = await StandingOrder.findAll({ where: { effectiveFrom: { [Op.lte]: now }, [Op.or]: [{ effectiveTo: null }, { effectiveTo: { [Op.gt]: now } }] } });

@@ -6,14 +6,20 @@ import { recordAudit } from '../../lib/audit';
 import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
 import { NotFound } from '../../lib/errors';
-import { Station } from '../plant/model';
+import { findStation } from '../plant/index';
 import { StationSettingsRow } from './model';
 import { settingsForStation } from './settings';
 
 export async function requireStation(stationId: number) {
-  const station = await Station.findByPk(stationId);
+  const station = await findStation(stationId);
   if (!station) throw new NotFound('That station');
   return station;
+}
+
+/** A station's settings (the defaults where it has none of its own); 404 for an unknown station. */
+export async function stationSettings(stationId: number) {
+  await requireStation(stationId);
+  return settingsForStation(stationId);
 }
 
 export function makeStationService(sequelize: Sequelize) {

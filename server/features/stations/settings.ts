@@ -1,6 +1,6 @@
 import type { Transaction } from 'sequelize';
 import type { StationSettings } from '../../../shared/schemas/log';
-import { PlantUnit } from '../plant/model';
+import { findUnit } from '../plant/index';
 import { NotFound, ValidationError } from '../../lib/errors';
 import { StationSettingsRow } from './model';
 
@@ -45,6 +45,25 @@ export async function stationShiftSetup(stationId: number, transaction?: Transac
   return { settings: row ? settingsFromRow(row) : defaultStationSettings, rotation: row?.crewRotation ?? null };
 }
 
+/** Every station's settings and rotation, by station id (stations without a row are absent: they use the defaults). */
+export async function shiftSetupsByStation() {
+  const rows = await StationSettingsRow.findAll();
+  return new Map(rows.map((r) => [r.stationId, { settings: settingsFromRow(r), rotation: r.crewRotation ?? null }]));
+}
+
+/** Every station's time zone, by station id (stations without settings are absent: they use the default zone). */
+export async function timeZonesByStation() {
+  const rows = await StationSettingsRow.findAll({ attributes: ['stationId', 'timeZone'] });
+  return new Map(rows.map((r) => [r.stationId, r.timeZone]));
+}
+
+/** Sets a station's crew rotation in the caller's unit of work (a station without settings gets the defaults with it). */
+export async function saveCrewRotation(stationId: number, rotation: { anchorShiftStart: string; crewIds: number[] }, transaction: Transaction) {
+  const row = await StationSettingsRow.findByPk(stationId, { transaction, lock: transaction.LOCK.UPDATE });
+  if (row) await row.update({ crewRotation: rotation }, { transaction });
+  else await StationSettingsRow.create({ stationId, ...defaultStationSettings, crewRotation: rotation, updatedAt: new Date() }, { transaction });
+}
+
 export function settingsFromRow(row: StationSettingsRow): StationSettings {
   return {
     timeZone: row.timeZone,
@@ -60,7 +79,7 @@ export function settingsFromRow(row: StationSettingsRow): StationSettings {
 }
 
 export async function settingsForUnit(unitId: number) {
-  const unit = await PlantUnit.findByPk(unitId);
+  const unit = await findUnit(unitId);
   if (!unit) throw new NotFound('That unit');
   return { unit, settings: await settingsForStation(unit.stationId) };
 }

@@ -9,12 +9,10 @@ import {
   trainingAmendmentSchema,
 } from '../../../shared/schemas/training';
 import { allow, signedIn } from '../../lib/auth';
-import { Forbidden, NotFound } from '../../lib/errors';
+import { Forbidden } from '../../lib/errors';
 import { parseId, parseInput } from '../../lib/validate';
 import { mayReadTrainingOf } from '../../../shared/policies/training';
-import { Crew } from '../plant/model';
-import { QualificationTask } from './model';
-import { countersignQueue, crewQualifications, currentTasks, presentTask, progressOf, trainerQueue, type TrainingService } from './service';
+import { countersignQueue, crewQualifications, currentTasks, presentTask, progressOf, taskVersions, trainerQueue, type TrainingService } from './service';
 
 const catalogueEditors = allow('training.catalogue');
 const trainees = allow('training.practice');
@@ -32,9 +30,7 @@ export function trainingRoutes(training: TrainingService): Router {
   });
 
   router.get('/training/tasks/:taskKey/versions', signedIn, async (req, res) => {
-    const versions = await QualificationTask.findAll({ where: { taskKey: String(req.params.taskKey) }, order: [['version', 'DESC']] });
-    if (versions.length === 0) throw new NotFound('That qualification task');
-    res.json({ versions: versions.map(presentTask) });
+    res.json({ versions: await taskVersions(String(req.params.taskKey)) });
   });
 
   router.post('/training/tasks', catalogueEditors, async (req, res) => {
@@ -95,10 +91,7 @@ export function trainingRoutes(training: TrainingService): Router {
   });
 
   router.get('/training/crews/:crewId', crewViewers, async (req, res) => {
-    const crewId = parseId(req.params.crewId, 'crewId');
-    const crew = await Crew.findByPk(crewId);
-    if (!crew) throw new NotFound('That crew');
-    res.json({ crew: { id: crew.id, name: crew.name }, ...(await crewQualifications(crewId)) });
+    res.json(await crewQualifications(parseId(req.params.crewId, 'crewId')));
   });
 
   return router;

@@ -3,17 +3,17 @@
 // later correction is an amendment with a reason and a name, written to the audit trail too.
 import { Op, type Sequelize, type Transaction } from 'sequelize';
 import type { NewTrainingEntry, QualificationTaskInput, TaskStatus } from '../../../shared/schemas/training';
-import { mayAmendTraining } from '../../../shared/policies/training';
+import { countersignsAnyEntry, mayAmendTraining, mayCountersignEntry, whyNotCountersign } from '../../../shared/policies/training';
 import { can } from '../../../shared/policies/permissions';
 import { recordAudit } from '../../lib/audit';
 import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
 import { Conflict, Forbidden, NotFound, ValidationError } from '../../lib/errors';
-import { User } from '../users/model';
-import { PlantUnit } from '../plant/model';
-import { ReadingSet } from '../readings/model';
-import { HandoverItem } from '../handovers/model';
-import { settingsForStation } from '../stations/settings';
+import { findPeople, findPerson, lockPerson, namesOf } from '../users/index';
+import { findCrew, findUnit } from '../plant/index';
+import { findRound } from '../readings/index';
+import { handoverItemExists } from '../handovers/index';
+import { settingsForStation } from '../stations/index';
 import { shiftStartFor } from '../../../shared/shift-time';
 import { QualificationTask, TrainingAmendment, TrainingDecision, TrainingEntry } from './model';
 
@@ -58,9 +58,11 @@ export function presentTask(t: QualificationTask) {
   };
 }
 
-async function names(ids: (number | null | undefined)[]) {
-  const wanted = [...new Set(ids.filter((id): id is number => typeof id === 'number'))];
-  return new Map((wanted.length ? await User.findAll({ where: { id: wanted }, attributes: ['id', 'name'] }) : []).map((u) => [u.id, u.name]));
+/** Every version of one task, newest first. */
+export async function taskVersions(taskKey: string) {
+  const versions = await QualificationTask.findAll({ where: { taskKey }, order: [['version', 'DESC']] });
+  if (versions.length === 0) throw new NotFound('That qualification task');
+  return versions.map(presentTask);
 }
 
 export function makeTrainingService(sequelize: Sequelize) {
@@ -99,7 +101,7 @@ export function makeTrainingService(sequelize: Sequelize) {
     const fields: Record<string, string> = {};
     // "Today" somewhere on Earth (up to UTC+14): a trainee just past local midnight east of UTC is not refused.
     if (input.performedOn > new Date(Date.now() + 14 * 3_600_000).toISOString().slice(0, 10)) fields.performedOn = 'The date is in the future';
-    const unit = input.unitId ? await PlantUnit.findByPk(input.unitId) : null;
+    const unit = input.unitId ? await findUnit(input.unitId) : null;
     if (input.unitId && !unit) fields.unitId = 'No such unit';
     if (input.shiftStart && !input.unitId) fields.unitId = 'Say which unit the shift was on';
     if (input.shiftStart && unit) {
@@ -107,11 +109,11 @@ export function makeTrainingService(sequelize: Sequelize) {
       const start = new Date(input.shiftStart);
       if (shiftStartFor(start, settings.timeZone, settings.shiftChangeTimes).getTime() !== start.getTime()) fields.shiftStart = 'That time is not the start of a shift';
     }
-    const round = input.readingSetId ? await ReadingSet.findByPk(input.readingSetId, { attributes: ['id', 'unitId'] }) : null;
+    const round = input.readingSetId ? await findRound(input.readingSetId) : null;
     if (input.readingSetId && (!round || (input.unitId && round.unitId !== input.unitId))) fields.readingSetId = 'No such round on this unit';
-    if (input.handoverItemId && !(await HandoverItem.findByPk(input.handoverItemId, { attributes: ['id'] }))) fields.handoverItemId = 'No such handover item';
+    if (input.handoverItemId && !(await handoverItemExists(input.handoverItemId))) fields.handoverItemId = 'No such handover item';
     if (input.supervisorId) {
-      const supervisor = await User.findByPk(input.supervisorId);
+      const supervisor = await findPerson(input.supervisorId);
       if (!supervisor || !supervisor.active || !can(supervisor.role, 'training.countersign')) fields.supervisorId = 'Choose an operator or shift lead';
     }
     if (Object.keys(fields).length) throw new ValidationError(fields);
@@ -146,10 +148,7 @@ export function makeTrainingService(sequelize: Sequelize) {
   async function settleEntry(actor: Actor, entryId: number, outcome: { status: 'countersigned' } | { status: 'rejected'; reason: string }) {
     const entry = await TrainingEntry.findByPk(entryId);
     if (!entry) throw new NotFound('That training entry');
-    if (entry.traineeId === actor.id) throw new Forbidden('Nobody countersigns their own training entry');
-    if (entry.supervisorId !== null && entry.supervisorId !== actor.id && actor.role !== 'shift_lead') {
-      throw new Forbidden('The supervisor named on the entry (or a shift lead) countersigns it');
-    }
+    if (!mayCountersignEntry(actor, entry)) throw new Forbidden(whyNotCountersign(actor, entry));
     await unitOfWork(sequelize, async (transaction) => {
       const [updated] = await TrainingEntry.update(
         { status: outcome.status, countersignedBy: actor.id, countersignedAt: new Date(), rejectReason: outcome.status === 'rejected' ? outcome.reason : null },
@@ -162,14 +161,14 @@ export function makeTrainingService(sequelize: Sequelize) {
   }
 
   async function decide(actor: Actor, input: { traineeId: number; taskKey: string; decision: 'signed_off' | 'returned'; comments: string }) {
-    const trainee = await User.findByPk(input.traineeId);
+    const trainee = await findPerson(input.traineeId);
     if (!trainee || trainee.role !== 'trainee') throw new ValidationError({ traineeId: 'Choose a trainee' });
     if (trainee.id === actor.id) throw new Forbidden('Nobody signs off their own training');
     return unitOfWork(sequelize, async (transaction) => {
       const task = await currentTask(input.taskKey, transaction);
       if (task.retired) throw new Conflict('This task is retired');
       // Serialise decisions for one trainee and task: the lock is the trainee's row.
-      await User.findByPk(trainee.id, { transaction, lock: transaction.LOCK.UPDATE });
+      await lockPerson(trainee.id, transaction);
       const last = await TrainingDecision.findOne({ where: { traineeId: trainee.id, taskKey: task.taskKey }, order: [['id', 'DESC']], transaction });
       if (last?.decision === 'signed_off') throw new Conflict('This task is signed off already; a sign-off is never changed (add an amendment instead)');
       if (input.decision === 'signed_off') {
@@ -218,7 +217,7 @@ async function performancesCounted(traineeId: number, taskKey: string, transacti
 /** Every task of the current catalogue (plus retired ones with history) and where the trainee stands. */
 // `catalogue` lets a caller working through many trainees read the task versions once.
 export async function progressOf(traineeId: number, catalogue?: QualificationTask[]) {
-  const trainee = await User.findByPk(traineeId, { attributes: ['id', 'name', 'role', 'crewId'] });
+  const trainee = await findPerson(traineeId);
   if (!trainee) throw new NotFound('That person');
   const [allVersions, entries, decisions] = await Promise.all([
     catalogue ?? allTaskVersions(),
@@ -234,7 +233,7 @@ export async function progressOf(traineeId: number, catalogue?: QualificationTas
     },
     order: [['id', 'ASC']],
   });
-  const who = await names([...entries.flatMap((e) => [e.countersignedBy, e.supervisorId]), ...decisions.map((d) => d.trainerId), ...amendments.map((a) => a.authorId)]);
+  const who = await namesOf([...entries.flatMap((e) => [e.countersignedBy, e.supervisorId]), ...decisions.map((d) => d.trainerId), ...amendments.map((a) => a.authorId)]);
   const versionById = new Map(allVersions.map((t) => [t.id, t]));
   const latest = latestVersions(allVersions);
   const amendmentsOf = (target: 'entry' | 'decision', id: number) =>
@@ -317,12 +316,15 @@ export async function progressOf(traineeId: number, catalogue?: QualificationTas
 
 /** Who in a crew is signed off for which task (the newest decision per task counts). */
 export async function crewQualifications(crewId: number) {
-  const members = await User.findAll({ where: { crewId, active: true }, attributes: ['id', 'name', 'role'], order: [['name', 'ASC']] });
+  const crew = await findCrew(crewId);
+  if (!crew) throw new NotFound('That crew');
+  const members = await findPeople({ crewIds: [crewId], activeOnly: true });
   const tasks = await currentTasks();
   const decisions = members.length ? await TrainingDecision.findAll({ where: { traineeId: members.map((m) => m.id) }, order: [['id', 'ASC']] }) : [];
   const last = new Map<string, TrainingDecision>();
   for (const d of decisions) last.set(`${d.traineeId}|${d.taskKey}`, d);
   return {
+    crew: { id: crew.id, name: crew.name },
     tasks: tasks.map(presentTask),
     people: members.map((m) => ({
       id: m.id,
@@ -336,13 +338,13 @@ export async function crewQualifications(crewId: number) {
 /** Entries waiting for this person's countersign: named on them, or open to any operator; all for a shift lead. */
 export async function countersignQueue(actor: Actor) {
   const where: Record<string | symbol, unknown> = { status: 'awaiting_countersign', traineeId: { [Op.ne]: actor.id } };
-  if (actor.role !== 'shift_lead') where[Op.or] = [{ supervisorId: null }, { supervisorId: actor.id }];
+  if (!countersignsAnyEntry(actor)) where[Op.or] = [{ supervisorId: null }, { supervisorId: actor.id }];
   return presentQueueEntries(await TrainingEntry.findAll({ where, order: [['recordedAt', 'ASC']], limit: 200 }));
 }
 
 async function presentQueueEntries(entries: TrainingEntry[]) {
   const tasks = new Map((await QualificationTask.findAll({ where: { id: [...new Set(entries.map((e) => e.taskId))] } })).map((t) => [t.id, t]));
-  const who = await names(entries.flatMap((e) => [e.traineeId, e.supervisorId, e.countersignedBy]));
+  const who = await namesOf(entries.flatMap((e) => [e.traineeId, e.supervisorId, e.countersignedBy]));
   return entries.map((e) => ({
     id: e.id,
     trainee: who.get(e.traineeId) ?? `#${e.traineeId}`,
@@ -362,7 +364,7 @@ async function presentQueueEntries(entries: TrainingEntry[]) {
 
 /** The trainer's queue: tasks ready for sign-off, entries countersigned since the last decision, entries still awaiting a countersign. */
 export async function trainerQueue() {
-  const trainees = await User.findAll({ where: { role: 'trainee', active: true }, attributes: ['id', 'name'], order: [['name', 'ASC']] });
+  const trainees = await findPeople({ roles: ['trainee'], activeOnly: true });
   const catalogue = await allTaskVersions();
   const progress = await Promise.all(trainees.map((t) => progressOf(t.id, catalogue)));
   const ready = progress.flatMap((p) =>

@@ -15,12 +15,12 @@ export function adminUserRoutes(users: UserService): Router {
 
   router.post('/', async (req, res) => {
     const input = parseInput(createUserSchema, req.body);
-    res.status(201).json({ user: await users.create(req.user!.id, input) });
+    res.status(201).json({ user: await users.addPerson(req.user!.id, input) });
   });
 
   router.patch('/:id', async (req, res) => {
     const input = parseInput(updateUserSchema, req.body);
-    res.json({ user: await users.update(req.user!.id, parseId(req.params.id), input) });
+    res.json({ user: await users.changePerson(req.user!.id, parseId(req.params.id), input) });
   });
 
   router.post('/:id/deactivate', async (req, res) => {

@@ -1,5 +1,5 @@
 import type { Sequelize } from 'sequelize';
-import { Op, UniqueConstraintError } from 'sequelize';
+import { UniqueConstraintError } from 'sequelize';
 import argon2 from 'argon2';
 import type { ChangePasswordInput, CreateUserInput, PublicUser, UpdateUserInput } from '../../../shared/schemas/auth';
 import { recordAudit } from '../../lib/audit';
@@ -7,14 +7,11 @@ import { endSocketsOf, publish } from '../../lib/live';
 import { hashPassword } from '../../lib/auth';
 import { Conflict, Forbidden, NotFound, ValidationError, type FieldErrors } from '../../lib/errors';
 import { passwordProblem } from '../../lib/password-policy';
-import { Crew } from '../plant/model';
-import { SessionRow } from '../session/model';
+import { crewNamesOf, findCrew } from '../plant/index';
+import { endSessionsOf } from '../session/index';
 import { User } from './model';
 
-async function crewNames(): Promise<Map<number, string>> {
-  const crews = await Crew.findAll({ attributes: ['id', 'name'] });
-  return new Map(crews.map((c) => [c.id, c.name]));
-}
+const crewNames = () => crewNamesOf();
 
 export function presentUser(user: User, crews: Map<number, string>): PublicUser {
   return {
@@ -55,11 +52,11 @@ export async function listUsers(): Promise<PublicUser[]> {
 
 async function assertCrewExists(crewId: number | null | undefined) {
   if (crewId == null) return;
-  if (!(await Crew.findByPk(crewId))) throw new ValidationError({ crewId: 'No such crew' });
+  if (!(await findCrew(crewId))) throw new ValidationError({ crewId: 'No such crew' });
 }
 
 export function makeUserService(sequelize: Sequelize) {
-  async function create(actorId: number, input: CreateUserInput): Promise<PublicUser> {
+  async function addPerson(actorId: number, input: CreateUserInput): Promise<PublicUser> {
     const problem = passwordProblem(input.temporaryPassword, input);
     if (problem) throw new ValidationError({ temporaryPassword: problem });
     await assertCrewExists(input.crewId);
@@ -84,14 +81,18 @@ export function makeUserService(sequelize: Sequelize) {
     }
   }
 
-  /** Applies a change to one user under a version check, with its audit row, in one transaction. */
+  /**
+   * Applies a change to one user under a version check, with its audit row, in one transaction.
+   * `alsoInTransaction` runs inside that transaction, before it commits, so what it writes stands or
+   * falls with the change.
+   */
   async function change(
     actorId: number,
     id: number,
     expectedVersion: number,
     action: string,
     mutate: (user: User) => void,
-    afterCommit?: (transaction: import('sequelize').Transaction) => Promise<unknown>,
+    alsoInTransaction?: (transaction: import('sequelize').Transaction) => Promise<unknown>,
   ): Promise<PublicUser> {
     const user = await sequelize.transaction(async (transaction) => {
       const found = await User.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
@@ -105,13 +106,13 @@ export function makeUserService(sequelize: Sequelize) {
       await found.save({ transaction });
       await recordAudit({ actorId, action, entity: 'user', entityId: id, before, after: auditView(found) }, transaction);
       publish(transaction, { entity: 'people', id });
-      if (afterCommit) await afterCommit(transaction);
+      if (alsoInTransaction) await alsoInTransaction(transaction);
       return found;
     });
     return presentUser(user, await crewNames());
   }
 
-  async function update(actorId: number, id: number, input: UpdateUserInput) {
+  async function changePerson(actorId: number, id: number, input: UpdateUserInput) {
     if (id === actorId && input.role && input.role !== 'admin') {
       throw new Forbidden('You cannot remove your own administrator role');
     }
@@ -137,7 +138,7 @@ export function makeUserService(sequelize: Sequelize) {
       active
         ? undefined
         : async (transaction) => {
-            await SessionRow.destroy({ where: { userId: id }, transaction });
+            await endSessionsOf(id, transaction);
             endSocketsOf(transaction, { userId: id });
           },
     );
@@ -160,7 +161,7 @@ export function makeUserService(sequelize: Sequelize) {
     const passwordHash = await hashPassword(input.newPassword);
     await sequelize.transaction(async (transaction) => {
       await user.update({ passwordHash, mustChangePassword: false, version: user.version + 1 }, { transaction });
-      const ended = await SessionRow.destroy({ where: { userId, sid: { [Op.ne]: keepSessionId } }, transaction });
+      const ended = await endSessionsOf(userId, transaction, keepSessionId);
       await recordAudit(
         { actorId: userId, action: 'user.password_change', entity: 'user', entityId: userId, after: { mustChangePassword: false, otherSessionsEnded: ended } },
         transaction,
@@ -170,6 +171,6 @@ export function makeUserService(sequelize: Sequelize) {
     });
   }
 
-  return { create, update, setActive, changeOwnPassword };
+  return { addPerson, changePerson, setActive, changeOwnPassword };
 }
 export type UserService = ReturnType<typeof makeUserService>;

@@ -38,7 +38,6 @@ export function buildApp(options: { signInLimits?: Partial<SignInLimits>; anonym
     db(),
     {
       sessionSecret: SECRET,
-      production: false,
       behindHttpsProxy: false,
       signInLimits: { ...defaultSignInLimits, addressFailures: 10_000, ...options.signInLimits },
       anonymousTokenLimit: options.anonymousTokenLimit ?? 10_000,

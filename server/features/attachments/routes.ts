@@ -3,7 +3,7 @@ import { attachmentReasonSchema } from '../../../shared/schemas/handovers';
 import { allow, signedIn } from '../../lib/auth';
 import { singleFileUpload } from '../../lib/upload';
 import { parseId, parseInput } from '../../lib/validate';
-import { MAX_ATTACHMENT_BYTES, type AttachmentService } from './attachment-service';
+import { MAX_ATTACHMENT_BYTES, type AttachmentService } from './service';
 
 const upload = singleFileUpload({ fileSize: MAX_ATTACHMENT_BYTES }, 'The file is larger than 10 MB');
 

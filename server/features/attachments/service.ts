@@ -9,8 +9,8 @@ import { Conflict, Forbidden, NotFound, ValidationError } from '../../lib/errors
 import { publish } from '../../lib/live';
 import type { Storage } from '../../lib/storage';
 import { unitOfWork } from '../../lib/unit-of-work';
-import { Handover, HandoverAttachment, HandoverItem } from './model';
-import type { HandoverService } from './service';
+import { itemWithHandover, lockedHandoverStatus, type HandoverService } from '../handovers/index';
+import { HandoverAttachment } from './model';
 
 export const MAX_ATTACHMENT_BYTES = 10 * 1024 * 1024;
 export const MAX_FILES_PER_ITEM = 10;
@@ -21,9 +21,7 @@ type Upload = { originalname: string; buffer: Buffer; size: number };
 
 export function makeAttachmentService(sequelize: Sequelize, storage: Storage, handovers: HandoverService) {
   async function add(actor: Express.User, itemId: number, file: Upload | undefined, reason: string | undefined) {
-    const item = await HandoverItem.findByPk(itemId);
-    if (!item || item.removedAt) throw new NotFound('That handover item');
-    const handover = (await Handover.findByPk(item.handoverId))!;
+    const { handover } = await itemWithHandover(itemId);
     if (!mayWriteHandover(actor, handover)) throw new Forbidden('Only the outgoing crew’s operators and shift lead add files to its handover');
     if (!file) throw new ValidationError({ file: 'Choose a photo or PDF' });
     if (handover.status !== 'draft' && !reason) throw new ValidationError({ reason: 'The handover is submitted: say why the file is added now (it is an amendment)' });
@@ -45,10 +43,10 @@ export function makeAttachmentService(sequelize: Sequelize, storage: Storage, ha
     // The bytes first: a record never points at a file that is not there (an unused file is harmless).
     await storage.put(storageKey, file.buffer, detected.mime);
     return unitOfWork(sequelize, async (transaction) => {
-      const fresh = await Handover.findByPk(handover.id, { transaction, lock: transaction.LOCK.UPDATE });
-      if (fresh!.status !== handover.status) throw new Conflict('The handover was submitted meanwhile; add the file again with a reason');
+      const status = await lockedHandoverStatus(handover.id, transaction);
+      if (status !== handover.status) throw new Conflict('The handover was submitted meanwhile; add the file again with a reason');
       const amendment =
-        fresh!.status === 'draft' ? null : await handovers.amend(actor, handover.id, { itemId, reason: reason!, text: `Added the file “${fileName}”.` }, transaction);
+        status === 'draft' ? null : await handovers.amend(actor, handover.id, { itemId, reason: reason!, text: `Added the file “${fileName}”.` }, transaction);
       const attachment = await HandoverAttachment.create(
         { itemId, fileName, mime: detected.mime, size: file.size, storageKey, uploadedBy: actor.id, uploadedAt: new Date(), amendmentId: amendment?.id ?? null },
         { transaction },
@@ -67,3 +65,8 @@ export function makeAttachmentService(sequelize: Sequelize, storage: Storage, ha
   return { add, read };
 }
 export type AttachmentService = ReturnType<typeof makeAttachmentService>;
+
+/** The files on these items, oldest first (the board lists them under each item). */
+export function attachmentsOfItems(itemIds: number[]) {
+  return itemIds.length ? HandoverAttachment.findAll({ where: { itemId: itemIds }, order: [['id', 'ASC']] }) : Promise.resolve([]);
+}

@@ -1,0 +1,3 @@
+// The conditions feature as other features see it: import from here, never from its files.
+export { Condition } from './model';
+export { conditionsOpenDuring, presentConditions } from './service';
