@@ -18,6 +18,10 @@ vi.mock('socket.io-client', () => {
     },
     emit: () => socket,
     disconnect: () => socket,
+    /** For tests: what the server would send on this socket. */
+    receive: (event: string, ...args: unknown[]) => {
+      for (const fn of handlers.get(event) ?? []) fn(...args);
+    },
   };
   return { io: () => socket };
 });
