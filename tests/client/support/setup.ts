@@ -28,6 +28,8 @@ vi.mock('socket.io-client', () => {
 
 afterEach(() => {
   cleanup();
+  // A selection left in a removed editor would keep the next test's clicks from placing the caret.
+  document.getSelection()?.removeAllRanges();
   localStorage.clear();
   vi.unstubAllGlobals();
   vi.useRealTimers();
