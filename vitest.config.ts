@@ -17,6 +17,8 @@ export default defineConfig({
           include: ['tests/client/**/*.test.tsx'],
           environment: 'happy-dom',
           setupFiles: ['tests/client/support/setup.ts'],
+          // Whole pages render and type key by key; on a busy 2-core machine that takes seconds.
+          testTimeout: 20_000,
         },
       },
       {

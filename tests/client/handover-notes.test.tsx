@@ -74,7 +74,7 @@ async function typeInNotes(user: ReturnType<typeof userEvent.setup>, text: strin
 }
 
 describe('handover notes: draft kept on the device', () => {
-  it('keeps typed text that never reached the server and restores it after a remount', { timeout: 20_000 }, async () => {
+  it('keeps typed text that never reached the server and restores it after a remount', async () => {
     // The server is down: every save fails, so only the device has the text.
     const server = fakeServer({ 'GET /api/session/csrf': { body: { csrfToken: 't' } }, 'PUT /api/handovers/41/notes': { status: 503, body: { error: { code: 'UNAVAILABLE', message: 'The database is not answering' } } } });
     const user = userEvent.setup();
@@ -93,7 +93,7 @@ describe('handover notes: draft kept on the device', () => {
 });
 
 describe('handover notes: two writers at once', () => {
-  it('on a 409 keeps my text in the editor, shows theirs beside it, and saves mine over theirs only when asked', { timeout: 20_000 }, async () => {
+  it('on a 409 keeps my text in the editor, shows theirs beside it, and saves mine over theirs only when asked', async () => {
     const conflict = {
       status: 409,
       body: { error: { code: 'NOTES_CONFLICT', message: 'Someone else saved these notes first. Your text stays in the editor and theirs is shown with it; merge the two and save again.' } },
