@@ -1,3 +1,4 @@
+import react from '@vitejs/plugin-react';
 import { defineConfig } from 'vitest/config';
 
 export default defineConfig({
@@ -7,6 +8,18 @@ export default defineConfig({
     projects: [
       {
         test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node' },
+      },
+      {
+        // Components and hooks rendered in happy-dom with a real QueryClient; the server is a fetch stub.
+        plugins: [react()],
+        test: {
+          name: 'client',
+          include: ['tests/client/**/*.test.tsx'],
+          environment: 'happy-dom',
+          setupFiles: ['tests/client/support/setup.ts'],
+          // Whole pages render and type key by key; on a busy 2-core machine that takes seconds.
+          testTimeout: 20_000,
+        },
       },
       {
         test: {

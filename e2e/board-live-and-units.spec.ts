@@ -2,9 +2,20 @@
 // reaches every open screen of the other at once; the handover editor never mixes up units, and
 // text typed just before a reload is still there.
 import { expect, test, type Page } from '@playwright/test';
-import { signInReadingOrders } from './support';
+import { shiftChangeNotWithin, shiftChangeNow, signInReadingOrders } from './support';
 
 const nav = (page: Page, name: string) => page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name, exact: true }).click();
+
+/**
+ * Starts the unit's draft for the shift in progress unless the server says it is started already
+ * (an earlier test may have); either way the board then shows its status.
+ */
+async function startDraftUnlessStarted(page: Page, baseURL: string, unitName: string) {
+  const start = page.getByRole('button', { name: 'Start this shift’s handover' });
+  if ((await shiftChangeNow(baseURL, unitName)).draftStarted) await expect(start).toHaveCount(0);
+  else await start.click();
+  await expect(page.getByTestId('handover-status')).toContainText('Draft');
+}
 
 async function chooseUnit(page: Page, label: string) {
   const picker = page.getByRole('combobox', { name: 'Unit', exact: true });
@@ -13,12 +24,14 @@ async function chooseUnit(page: Page, label: string) {
   await picker.selectOption((await option.getAttribute('value'))!);
 }
 
-test('a round with a high backpressure saved in one browser shows within a second on the other’s Flags, board and Overview', async ({ browser }) => {
-  test.setTimeout(90_000);
+test('a round with a high backpressure saved in one browser shows within a second on the other’s Flags, board and Overview', async ({ browser, baseURL }) => {
+  test.setTimeout(90_000 + 4 * 60_000);
+  // The outgoing crew's lead, from the server's rotation now (a run that would cross the change waits for it).
+  const change = await shiftChangeNotWithin(baseURL!, 3, 'Unit 2');
   // The watcher: three pages of one person open on Unit 2, as a control room keeps them.
   const watcher = await browser.newContext();
   const flags = await watcher.newPage();
-  await signInReadingOrders(flags, 'lead.a@fernhollow.example');
+  await signInReadingOrders(flags, `lead.${change.outgoing}@fernhollow.example`);
   await expect(flags.getByRole('heading', { name: 'Overview', exact: true })).toBeVisible();
   const overview = await watcher.newPage();
   await overview.goto('/');
@@ -28,9 +41,7 @@ test('a round with a high backpressure saved in one browser shows within a secon
   await chooseUnit(flags, 'Unit 2 ·');
   const unitParam = new URL(flags.url()).searchParams.get('unit')!;
   await board.goto(`/handover?unit=${unitParam}`);
-  const start = board.getByRole('button', { name: 'Start this shift’s handover' });
-  await expect(start.or(board.getByTestId('handover-status'))).toBeVisible();
-  if (await start.isVisible()) await start.click();
+  await startDraftUnlessStarted(board, baseURL!, 'Unit 2');
   await expect(board.getByTestId('condenser-live')).toBeVisible();
   const unit2 = overview.getByRole('article', { name: 'Unit 2 overview' });
   await expect(unit2).toBeVisible();
@@ -65,27 +76,27 @@ test('a round with a high backpressure saved in one browser shows within a secon
   await watcher.close();
 });
 
-test('switching units on the handover keeps each unit’s notes apart, and a reload right after typing keeps the text', async ({ page }) => {
-  test.setTimeout(90_000);
-  await signInReadingOrders(page, 'field.a@fernhollow.example');
+test('switching units on the handover keeps each unit’s notes apart, and a reload right after typing keeps the text', async ({ page, baseURL }) => {
+  test.setTimeout(90_000 + 4 * 60_000);
+  // Notes are written by the outgoing crew: who that is comes from the server's rotation now.
+  const change = await shiftChangeNotWithin(baseURL!, 3);
+  await signInReadingOrders(page, `operator.${change.outgoing}@fernhollow.example`);
   await nav(page, 'Handover');
   const editor = page.getByRole('textbox', { name: 'Handover notes' });
-  const startIfNeeded = async () => {
-    const start = page.getByRole('button', { name: 'Start this shift’s handover' });
-    await expect(start.or(page.getByTestId('handover-status'))).toBeVisible();
-    if (await start.isVisible()) await start.click();
+  const startIfNeeded = async (unitName: string) => {
+    await startDraftUnlessStarted(page, baseURL!, unitName);
     await expect(editor).toBeVisible();
   };
 
   await chooseUnit(page, 'Unit 2 ·');
-  await startIfNeeded();
+  await startIfNeeded('Unit 2');
   await editor.click();
   await page.keyboard.press('ControlOrMeta+A');
   await page.keyboard.type('Unit 2: 2-CWP-A strainer dP rising.');
   await expect(page.getByTestId('notes-status')).toContainText('Draft saved');
 
   await chooseUnit(page, 'Unit 1 ·');
-  await startIfNeeded();
+  await startIfNeeded('Unit 1');
   await expect(editor).not.toContainText('Unit 2');
   await editor.click();
   await page.keyboard.press('ControlOrMeta+A');
@@ -113,7 +124,7 @@ test('switching units on the handover keeps each unit’s notes apart, and a rel
   await expect(page.getByTestId('notes-status')).toContainText(/Restored|Draft saved|Unsaved/);
   // It reaches the server too: a second browser sees it.
   const other = await (await page.context().browser()!.newContext()).newPage();
-  await signInReadingOrders(other, 'lead.a@fernhollow.example');
+  await signInReadingOrders(other, `lead.${change.outgoing}@fernhollow.example`);
   await other.goto(page.url().replace(/^https?:\/\/[^/]+/, ''));
   await expect(other.getByRole('textbox', { name: 'Handover notes' })).toContainText('Typed just before a reload.', { timeout: 10_000 });
 });

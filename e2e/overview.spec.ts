@@ -26,8 +26,9 @@ test('the overview shows Unit 1’s crew on shift, its latest round with units a
   await expect(backpressure).toContainText('Condenser absolute pressure');
   await expect(backpressure).toContainText('kPa a');
   await expect(backpressure).toContainText(/Normal|Watch|Alarm/);
-  await expect(round.getByTestId('overview-check-saturationTemperature')).toContainText('°C');
-  await expect(round.getByTestId('overview-check-deviationCostPower')).toContainText('MW');
+  // A value with its unit, not just the unit: a check without a value would show "—".
+  await expect(round.getByTestId('overview-check-saturationTemperature')).toContainText(/\d+\.\d °C/);
+  await expect(round.getByTestId('overview-check-deviationCostPower')).toContainText(/\d+\.\d{2} MW/);
   // Demo Unit 1's tubes foul to a cleanliness of about 0.72, under the 0.75 watch limit.
   await expect(round.getByTestId('overview-check-cleanlinessFactor')).toContainText('Watch');
 

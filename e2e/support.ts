@@ -51,3 +51,63 @@ export async function openHandoverWindowAllShift(baseURL: string) {
   expect(saved.status(), await saved.text()).toBe(200);
   await api.dispose();
 }
+
+export type ShiftChangeNow = {
+  unitId: number;
+  /** The change that ends the shift in progress. */
+  handoverAt: Date;
+  /** Crew letters as the demo's e-mail addresses use them (operator.a@, lead.b@, …). */
+  outgoing: string;
+  incoming: string;
+  /** Whether the outgoing crew has started this shift's handover draft already. */
+  draftStarted: boolean;
+  /** The active people of the incoming crew an e-mail on submit goes to. */
+  incomingCrewEmails: string[];
+};
+
+/**
+ * Which crews hand over on a unit now, as the server's rotation and clock say — not what the time
+ * of day is expected to give — so a test can sign in the right people whenever it runs.
+ */
+export async function shiftChangeNow(baseURL: string, unitName = 'Unit 1'): Promise<ShiftChangeNow> {
+  const { api } = await adminApi(baseURL);
+  const units = ((await (await api.get('/api/plant/units')).json()) as { units: { id: number; name: string }[] }).units;
+  const unitId = units.find((u) => u.name === unitName)!.id;
+  const current = (await (await api.get(`/api/units/${unitId}/handovers/current`)).json()) as {
+    shiftChange: { handoverAt: string; outgoingCrewId: number; incomingCrewId: number };
+    board: unknown;
+  };
+  const crews = ((await (await api.get('/api/plant/crews')).json()) as { crews: { id: number; name: string }[] }).crews;
+  const people = ((await (await api.get('/api/admin/users')).json()) as { users: { email: string; crewId: number | null; role: string; active: boolean }[] }).users;
+  await api.dispose();
+  const letter = (crewId: number) => crews.find((c) => c.id === crewId)!.name.toLowerCase();
+  return {
+    unitId,
+    handoverAt: new Date(current.shiftChange.handoverAt),
+    outgoing: letter(current.shiftChange.outgoingCrewId),
+    incoming: letter(current.shiftChange.incomingCrewId),
+    draftStarted: current.board !== null,
+    incomingCrewEmails: people
+      .filter((p) => p.active && p.crewId === current.shiftChange.incomingCrewId && ['trainee', 'operator', 'shift_lead'].includes(p.role))
+      .map((p) => p.email)
+      .sort(),
+  };
+}
+
+/**
+ * A test that must stay inside one shift (it hands the shift in progress over) and would run into
+ * the shift change within `minutes` waits until the change has passed, then reads the crews again.
+ */
+export async function shiftChangeNotWithin(baseURL: string, minutes: number, unitName = 'Unit 1'): Promise<ShiftChangeNow> {
+  const now = await shiftChangeNow(baseURL, unitName);
+  const left = now.handoverAt.getTime() - Date.now();
+  if (left > minutes * 60_000) return now;
+  await new Promise((resolve) => setTimeout(resolve, left + 5_000));
+  return shiftChangeNow(baseURL, unitName);
+}
+
+/** The signed-in person's name, as the page header shows it. */
+export async function signedInName(page: Page): Promise<string> {
+  const text = await page.getByTestId('signed-in-as').textContent();
+  return text!.split(' · ')[0]!.trim();
+}

@@ -1,5 +1,5 @@
 // `npm test`: the same set-up as `npm start` for a throwaway database, then every check:
-// typecheck, lint, Vitest (unit + integration against real MariaDB), the fault test (kill -9 of its
+// typecheck, lint, Vitest (unit, client components in happy-dom, integration against real MariaDB), the fault test (kill -9 of its
 // own MariaDB mid-run), Playwright in Debian's chromium.
 import { ensureNodeDependencies } from './lib/node-deps.mjs';
 import { startPrivateMariaDb } from './lib/private-mariadb.mjs';
@@ -64,6 +64,7 @@ try {
   await step('typecheck', () => runLocal('tsc', ['-p', 'tsconfig.json', '--noEmit']));
   await step('lint', () => runLocal('eslint', ['.', '--max-warnings=0']));
   await step('vitest unit', () => runLocal('vitest', ['run', '--project', 'unit']));
+  await step('vitest client', () => runLocal('vitest', ['run', '--project', 'client']));
   // On its own, so nothing else competes with the shared database while its files run in turn.
   await step('vitest integration', () => runLocal('vitest', ['run', '--project', 'integration'], { TEST_DATABASE_URL: integrationUrl }));
   // Its own MariaDB (HOTWELL_FAULT_DB_PORT, default 3421), killed and restarted mid-run.

@@ -34,8 +34,23 @@ describe('POST /api/calc/condenser', () => {
       // IF97: Ts(8 kPa) = 314.66 K (41.51 °C, steam tables)
       expect(res.body.checks.saturationTemperature.value).toBeCloseTo(314.66, 2);
       expect(Math.abs(res.body.checks.expectedBackpressure.value - 8000) / 8000).toBeLessThan(0.01);
-      expect(Array.isArray(res.body.hints)).toBe(true);
+      // The design round itself: every check inside its limits, so no possible cause is offered.
+      expect(res.body.hints).toEqual([]);
     }
+  });
+
+  it('offers the possible cause that fits a broken check, with its severity', async () => {
+    const agent = await signedInAgent(built, (await makeUser('operator')).email);
+    // CW 22 → 37.5 °C: a 15.5 K rise, over the 15 K alarm limit; TTD = 41.51 − 37.5 = 4.0 K stays normal.
+    const res = await agent
+      .post('/api/calc/condenser')
+      .set('X-CSRF-Token', agent.csrf)
+      .send({ ...reading(), cwOutletTemperature: { value: 37.5, unit: 'degC' } });
+    expect(res.status).toBe(200);
+    expect(res.body.checks.cwRise).toMatchObject({ status: 'alarm' });
+    expect(res.body.checks.ttd).toMatchObject({ status: 'normal' });
+    expect(res.body.hints.map((h: { id: string; severity: string }) => [h.id, h.severity])).toEqual([['low-cw-flow', 'alarm']]);
+    expect(res.body.hints[0].title).toBe('Low circulating-water flow');
   });
 
   it('turns a vacuum reading into absolute pressure and notes an assumed barometer', async () => {

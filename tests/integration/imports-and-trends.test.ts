@@ -135,7 +135,28 @@ describe('GET /api/units/:unitId/trends', () => {
     expect(ttd.points).toHaveLength(4);
     expect(ttd.points[0].t < ttd.points[1].t).toBe(true);
     expect(res.body.limitBands[0].bands.ttd).toMatchObject({ highWatch: 7, highAlarm: 10 });
-    expect(Array.isArray(res.body.flags)).toBe(true);
+  });
+
+  it('marks the flags of the parameters shown, when they were raised, at their severity and status', async () => {
+    const unit = await makeUnit();
+    // Ts(10 kPa) = 45.81 °C (IAPWS-IF97 saturation table), so TTD = 45.81 − CW out:
+    // 5.81 K (normal), then 8.81 K (over the 7 K watch limit), then 11.81 K (over the 10 K alarm limit).
+    // The rise stays 10, 7 and 4 K, under its 12 K watch limit.
+    const rows = ['2026-03-05T00:00:00Z,10,45.5,30,40,54000', '2026-03-05T01:00:00Z,10,45.5,30,37,54000', '2026-03-05T02:00:00Z,10,45.5,30,34,54000'];
+    const imported = await upload(operator, `/api/units/${unit.id}/imports`, csv(rows));
+    expect(imported.status, JSON.stringify(imported.body)).toBe(201);
+    const trend = (parameters: string, to: string) =>
+      operator.get(`/api/units/${unit.id}/trends?parameters=${parameters}&from=2026-03-04T00:00:00Z&to=${to}`).expect(200);
+
+    // One flag for TTD: raised at watch by the 01:00 round, escalated to alarm by the 02:00 round, still open.
+    const ttd = await trend('ttd', '2026-03-06T00:00:00Z');
+    expect(ttd.body.flags).toEqual([
+      { id: expect.any(Number), parameter: 'ttd', severity: 'alarm', status: 'open', origin: 'automatic', raisedAt: '2026-03-05T01:00:00.000Z', clearedAt: null },
+    ]);
+    // A parameter with no flag shows none, whatever else is flagged on the unit.
+    expect((await trend('cwRise', '2026-03-06T00:00:00Z')).body.flags).toEqual([]);
+    // A range that ends before the flag was raised shows none.
+    expect((await trend('ttd', '2026-03-05T00:30:00Z')).body.flags).toEqual([]);
   });
 
   it('answers 401 signed out and 400 for a bad range or parameter', async () => {

@@ -183,10 +183,22 @@ describe('logbook search', () => {
   });
 
   it('handles hostile input with a clear 400 or a safe search, never a 500', async () => {
-    for (const q of [`"vacuum ${word('loss')}"`, `+vacuum -pump ${word('loss')}*`, `vacuum) AND (${word('loss')}`, `@distance ~${word('loss')} <>`, `' OR 1=1 -- ${word('loss')}`, `%_\\ ${word('loss')}`]) {
+    // Each is searched as its plain words (three letters or more; "AND" is a word like any other,
+    // "OR" too short), every word required: of the three entries with the word, one also says
+    // "pump", none "and" or "distance".
+    const hostile: [string, number][] = [
+      [`"vacuum ${word('loss')}"`, 3],
+      [`+vacuum -pump ${word('loss')}*`, 1],
+      [`vacuum) AND (${word('loss')}`, 0],
+      [`@distance ~${word('loss')} <>`, 0],
+      [`' OR 1=1 -- ${word('loss')}`, 3],
+      [`%_\\ ${word('loss')}`, 3],
+    ];
+    for (const [q, total] of hostile) {
       const res = await search(agents.trainee, { q });
       expect(res.status, q).toBe(200);
-      expect(Array.isArray(res.body.hits)).toBe(true);
+      expect(res.body.total, q).toBe(total);
+      expect(res.body.hits, q).toHaveLength(total);
     }
     // Quotes and operators are searched as words: the quoted phrase finds the same entries as the bare words.
     expect((await search(agents.trainee, { q: `"vacuum ${word('loss')}"` })).body.total).toBe(3);

@@ -21,13 +21,31 @@ describe('POST /api/session (sign-in)', () => {
   });
 
   it('gives a new session id at sign-in (no session fixation)', async () => {
-    const user = await makeUser('operator');
+    // The id alone: the whole Set-Cookie line differs anyway, since its rolling Expires moves on.
+    const sessionId = (setCookie: string[] | string | undefined) => {
+      const line = [setCookie ?? []].flat().find((c) => c.startsWith('hotwell.sid='));
+      return line ? decodeURIComponent(line.slice('hotwell.sid='.length).split(';')[0]!).replace(/^s:/, '').split('.')[0]! : null;
+    };
+    const first = await makeUser('operator');
+    const second = await makeUser('operator');
     const agent = await anonymousAgent(built);
-    const before = (await agent.get('/api/session/csrf')).headers['set-cookie'];
-    const res = await agent.post('/api/session').set('X-CSRF-Token', agent.csrf).send({ email: user.email, password: PASSWORD });
-    const after = res.headers['set-cookie'];
-    expect(after).toBeDefined();
-    expect(String(after)).not.toEqual(String(before));
+    const signIn = (email: string) => agent.post('/api/session').set('X-CSRF-Token', agent.csrf).send({ email, password: PASSWORD });
+    const one = await signIn(first.email);
+    expect(one.status).toBe(200);
+    agent.csrf = one.body.csrfToken;
+    const held = sessionId(one.headers['set-cookie']);
+    expect(held).toMatch(/^[\w-]{20,}$/);
+    // Signing in while holding a session (one an attacker could have planted) gives another id…
+    const two = await signIn(second.email);
+    expect(two.status).toBe(200);
+    const fresh = sessionId(two.headers['set-cookie']);
+    expect(fresh).toMatch(/^[\w-]{20,}$/);
+    expect(fresh).not.toBe(held);
+    // …and the id held before no longer opens anything.
+    const oldCookie = one.headers['set-cookie']![0]!.split(';')[0]!;
+    await request(built.app).get('/api/me').set('Cookie', oldCookie).expect(401);
+    const me = await request(built.app).get('/api/me').set('Cookie', two.headers['set-cookie']![0]!.split(';')[0]!).expect(200);
+    expect(me.body.user.id).toBe(second.id);
   });
 
   it('answers 401 with the same generic message for a wrong password and an unknown e-mail', async () => {
