@@ -7,7 +7,7 @@ import { useState } from 'react';
 import userEvent from '@testing-library/user-event';
 import { createMemoryRouter, RouterProvider } from 'react-router';
 import { describe, expect, it } from 'vitest';
-import type { Board } from '../../src/features/handover/api/handover';
+import { handoverKeys, type Board } from '../../src/features/handover/api/handover';
 import { HandoverNotes } from '../../src/features/handover/components/handover-notes';
 import { fakeServer } from './support/fake-server';
 
@@ -41,7 +41,7 @@ const stationTime = (iso: string) => `${iso.slice(11, 16)} (station)`;
  * The notes as the board shows them to a writer, inside a data router (the editor guards leaving).
  * `boardFromServer` plays the board's refetch after a live event: same mount, new props.
  */
-function renderNotes(initial: Board) {
+function renderNotes(initial: Board, client = new QueryClient()) {
   let setBoard: (b: Board) => void = () => {};
   function Page() {
     const [b, set] = useState(initial);
@@ -50,7 +50,7 @@ function renderNotes(initial: Board) {
   }
   const router = createMemoryRouter([{ path: '/handover', element: <Page /> }], { initialEntries: ['/handover'] });
   const view = render(
-    <QueryClientProvider client={new QueryClient()}>
+    <QueryClientProvider client={client}>
       <RouterProvider router={router} />
     </QueryClientProvider>,
   );
@@ -130,5 +130,26 @@ describe('handover notes: two writers at once', () => {
     await waitFor(() => expect(screen.getByTestId('notes-status').textContent).toBe('Draft saved at ' + stationTime(new Date().toISOString())));
     expect(screen.queryByRole('alert')).toBeNull();
     expect(JSON.stringify({ ...localStorage })).not.toContain('Mine');
+  });
+
+  it('on a 409 before their text reached this tab, fetches the board and offers to overwrite only once it has their version', async () => {
+    fakeServer({
+      'GET /api/session/csrf': { body: { csrfToken: 't' } },
+      'PUT /api/handovers/41/notes': { status: 409, body: { error: { code: 'NOTES_CONFLICT', message: 'Someone else saved these notes first.' } } },
+    });
+    const client = new QueryClient();
+    client.setQueryData(handoverKeys.current(1), { board: board('<p>Stored text.</p>', 3) });
+    const user = userEvent.setup();
+    const view = renderNotes(board('<p>Stored text.</p>', 3), client);
+    await typeInNotes(user, 'Mine first. ');
+    const alert = within(await screen.findByRole('alert', {}, { timeout: 5000 }));
+    // The board this tab has is older than theirs: it is fetched again, and nothing stale is shown as theirs.
+    expect(client.getQueryState(handoverKeys.current(1))?.isInvalidated).toBe(true);
+    expect(alert.queryByTestId('their-notes')).toBeNull();
+    expect(alert.getByText('Fetching their text…')).toBeTruthy();
+    expect(alert.getByRole('button', { name: 'Save my text over theirs' })).toHaveProperty('disabled', true);
+    view.boardFromServer(board('<p>Their text.</p>', 4));
+    expect(alert.getByTestId('their-notes').textContent).toBe('Their text.');
+    expect(alert.getByRole('button', { name: 'Save my text over theirs' })).toHaveProperty('disabled', false);
   });
 });

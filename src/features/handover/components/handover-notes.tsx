@@ -1,8 +1,9 @@
 import { lazy, Suspense, useCallback, useEffect, useRef, useState } from 'react';
 import { useBlocker } from 'react-router';
+import { useQueryClient } from '@tanstack/react-query';
 import { Button } from '../../../components/ui/button';
 import { ApiError } from '../../../lib/api-client';
-import { saveNotes, type Board } from '../api/handover';
+import { handoverKeys, saveNotes, type Board } from '../api/handover';
 import { clearLocalDraft, readLocalDraft, writeLocalDraft } from '../lib/notes-draft';
 
 // The editor's code loads only for someone who writes: readers get the stored HTML.
@@ -28,6 +29,7 @@ export function HandoverNotes({ board, editable, stationTime }: Props) {
 
 function NotesEditor({ board, stationTime }: Omit<Props, 'editable'>) {
   const h = board.handover;
+  const queryClient = useQueryClient();
   // What this browser had before: text from an earlier visit that never reached the server.
   const [restored] = useState(() => {
     const local = readLocalDraft(h.id);
@@ -37,7 +39,8 @@ function NotesEditor({ board, stationTime }: Omit<Props, 'editable'>) {
   const [html, setHtml] = useState(restored?.html ?? h.notesHtml);
   const [dirty, setDirty] = useState(Boolean(restored));
   const [status, setStatus] = useState(restored ? `Restored text you typed at ${stationTime(restored.savedAt)} that had not been saved` : '');
-  const [conflict, setConflict] = useState<string | null>(null);
+  // The clash, and the version my save was based on: their text is shown once the board is newer.
+  const [conflict, setConflict] = useState<{ message: string; myVersion: number } | null>(null);
   const [editorKey, setEditorKey] = useState(0);
   // The text as typed, for a save that completes after more typing.
   const latest = useRef(html);
@@ -64,11 +67,17 @@ function NotesEditor({ board, stationTime }: Omit<Props, 'editable'>) {
       setStatus(`Draft saved at ${stationTime(new Date().toISOString())}`);
       return true;
     } catch (error) {
-      if (error instanceof ApiError && error.status === 409 && error.code === 'NOTES_CONFLICT') setConflict(error.message);
+      if (error instanceof ApiError && error.status === 409 && error.code === 'NOTES_CONFLICT') {
+        setConflict({ message: error.message, myVersion: version.current });
+        // Their text may not have reached this tab yet (its live event still on the way): fetch the
+        // board now, so what is shown as theirs, and the version overwritten, is what they saved.
+        void queryClient.invalidateQueries({ queryKey: handoverKeys.unit(h.unitId) });
+        void queryClient.invalidateQueries({ queryKey: handoverKeys.one(h.id) });
+      }
       else setStatus(error instanceof Error ? `Not saved yet (kept on this device): ${error.message}` : 'Not saved yet (kept on this device)');
       return false;
     }
-  }, [h.id, stationTime]);
+  }, [h.id, h.unitId, queryClient, stationTime]);
 
   useEffect(() => {
     if (!dirty || conflict !== null) return;
@@ -140,12 +149,17 @@ function NotesEditor({ board, stationTime }: Omit<Props, 'editable'>) {
       ) : null}
       {conflict ? (
         <div role="alert" className="rounded-md border-2 border-alarm bg-panel p-2 text-sm">
-          <p className="font-bold">⛔ {conflict}</p>
+          <p className="font-bold">⛔ {conflict.message}</p>
           <p className="mt-1">Their text, as saved:</p>
-          <div className="order-body border-l-4 border-line pl-2" data-testid="their-notes" dangerouslySetInnerHTML={{ __html: h.notesHtml }} />
+          {h.notesVersion > conflict.myVersion ? (
+            <div className="order-body border-l-4 border-line pl-2" data-testid="their-notes" dangerouslySetInnerHTML={{ __html: h.notesHtml }} />
+          ) : (
+            <p className="text-muted">Fetching their text…</p>
+          )}
           <p className="mt-1">Your text stays in the editor above; merge what you need from theirs.</p>
           <Button
             className="mt-1"
+            disabled={h.notesVersion <= conflict.myVersion}
             onClick={() => {
               version.current = h.notesVersion;
               setConflict(null);
