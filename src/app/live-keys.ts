@@ -11,6 +11,7 @@ import { userKeys } from '../features/admin-users/api/user-keys';
 import { auditKeys } from '../features/audit/api/audit-keys';
 import { flagKeys } from '../features/flags/api/flags';
 import { handoverKeys } from '../features/handover/api/handover';
+import { importKeys } from '../features/imports/api/imports';
 import { shiftCondenserKeys } from '../features/handover/api/get-shift-condenser';
 import { conditionKeys, logKeys } from '../features/log/api/log';
 import { logbookKeys } from '../features/logbook/api/logbook';
@@ -47,6 +48,17 @@ const keysFor: Record<LiveEntity, (event: LiveEvent) => QueryKey[]> = {
 export const liveKeys: Record<LiveEntity, (event: LiveEvent) => QueryKey[]> = Object.fromEntries(
   Object.entries(keysFor).map(([entity, keys]) => [entity, (event: LiveEvent) => [...keys(event), overviewKeys.all]]),
 ) as Record<LiveEntity, (event: LiveEvent) => QueryKey[]>;
+
+/** Every factory's root: what a tab refetches after its live connection was down (it may have missed any event). */
+const everyRoot: QueryKey[] = [
+  readingKeys.all, flagKeys.all, trendKeys.all, handoverKeys.all, shiftCondenserKeys.all, logKeys.all, conditionKeys.all, orderKeys.all,
+  trainingKeys.all, unitKeys.all, setupKeys.all, calcKeys.all, userKeys.all, peopleKeys.all, crewKeys.all, sessionKeys.all, auditKeys.all,
+  stationSettingsKeys.all, logbookKeys.all, overviewKeys.all, importKeys.all,
+];
+
+export function invalidateEverything(queryClient: QueryClient) {
+  for (const queryKey of everyRoot) void queryClient.invalidateQueries({ queryKey });
+}
 
 /** Marks stale what this change affects; the queries on screen refetch. */
 export function invalidateForChange(queryClient: QueryClient, event: LiveEvent) {
