@@ -1,5 +1,6 @@
 import { useMemo, useState } from 'react';
 import { can } from '../../../../shared/policies/permissions';
+import { mayCountersignRound } from '../../../../shared/policies/readings';
 import { useWatch } from 'react-hook-form';
 import { Link, useParams } from 'react-router';
 import type { Evaluation } from '../../../../shared/calc/evaluate';
@@ -166,7 +167,7 @@ export function ReadingPage() {
         ) : (
           <div className="flex flex-col items-start gap-2">
             <Notice kind="info">Trainee round, awaiting an operator’s countersign.</Notice>
-            {me && can(me.role, 'reading.countersign') && me.id !== detail.reading.recordedById ? (
+            {me && mayCountersignRound(me, { recordedById: detail.reading.recordedById, needsCountersign: !detail.countersign }) ? (
               <Button disabled={countersign.isPending} onClick={() => countersign.mutate(detail.reading.id)}>
                 Countersign this round
               </Button>

@@ -1,5 +1,6 @@
 import { useMemo, useState } from 'react';
 import { can } from '../../../../shared/policies/permissions';
+import { roundWaitsForCountersign } from '../../../../shared/policies/readings';
 import { useWatch } from 'react-hook-form';
 import { Link } from 'react-router';
 import { CautionNote, Notice } from '../../../components/ui/notice';
@@ -109,7 +110,7 @@ export function RoundsPage() {
         <UnitPicker />
       </div>
       <CautionNote />
-      {me?.role === 'trainee' ? <Notice kind="info">Your rounds are marked as a trainee’s and wait for an operator’s countersign.</Notice> : null}
+      {me && roundWaitsForCountersign(me.role) ? <Notice kind="info">Your rounds are marked as a trainee’s and wait for an operator’s countersign.</Notice> : null}
       {unit ? <LastReadingHint last={readings.data?.[0]} timeZone={unit.timeZone} /> : null}
       {record.isSuccess ? (
         <Notice kind="success">
