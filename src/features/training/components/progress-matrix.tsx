@@ -1,4 +1,3 @@
-import { useRef } from 'react';
 import { formatStationTime } from '../../../../shared/station-time';
 import { useTrainingZone } from '../lib/use-training-zone';
 import { qualificationSystemLabels, taskStatusLabels, type TaskStatus } from '../../../../shared/schemas/training';
@@ -27,12 +26,11 @@ export function TaskStatusLabel({ status }: { status: TaskStatus }) {
 
 function DecisionForm({ traineeId, row }: { traineeId: number; row: ProgressRow }) {
   const decide = useDecide();
-  // Which of the two buttons was pressed: the decision is part of what the contract checks.
-  const decision = useRef<'signed_off' | 'returned'>('returned');
-  const schema = throughContract((v: { comments: string }) => ({ traineeId, taskKey: row.task.taskKey, decision: decision.current, comments: v.comments }), decisionSchema);
-  const form = useSchemaForm(schema, { defaultValues: { comments: '' } });
+  // Which of the two buttons was pressed is a value of the form: the decision is part of what the contract checks.
+  const schema = throughContract((v: { comments: string; decision: string }) => ({ traineeId, taskKey: row.task.taskKey, ...v }), decisionSchema);
+  const form = useSchemaForm(schema, { defaultValues: { comments: '', decision: '' } });
   const send = (chosen: 'signed_off' | 'returned') => {
-    decision.current = chosen;
+    form.setValue('decision', chosen);
     void form.submit(async (input) => {
       await decide.mutateAsync(input);
       form.reset();
