@@ -14,7 +14,7 @@ function RejectForm({ entryId }: { entryId: number }) {
         Reason
         <input className="rounded-md border border-line bg-field px-2 py-1" {...form.register('reason')} />
       </label>
-      <Button type="submit" tone="danger" size="sm" className="font-normal">
+      <Button type="submit" tone="danger" size="sm">
         Reject
       </Button>
       <FieldMessage message={form.error('reason')} />
