@@ -9,6 +9,7 @@ import { applyTheme, initialTheme, type Theme } from '../../lib/theme';
 import { navigationFor } from '../navigation';
 import { useConnected, useLiveUpdates } from '../use-live-updates';
 import { PendingOrdersPrompt } from '../../features/orders/components/pending-orders-prompt';
+import { Button } from '../../components/ui/button';
 
 export function AppShell() {
   const { data: me, isPending, error } = useMe();
@@ -63,16 +64,12 @@ export function AppShell() {
               {me.name} · {roleLabels[me.role]}
               {me.crewName ? ` · Crew ${me.crewName}` : ''}
             </span>
-            <button type="button" onClick={toggleTheme} className="rounded-md border border-line px-2 py-1">
+            <Button tone="toggle" onClick={toggleTheme}>
               {theme === 'dark' ? '☀ Light' : '☾ Dark'}
-            </button>
-            <button
-              type="button"
-              className="rounded-md border border-line px-2 py-1 font-bold"
-              onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate('/sign-in') })}
-            >
+            </Button>
+            <Button tone="plain" size="xs" onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate('/sign-in') })}>
               Sign out
-            </button>
+            </Button>
           </div>
         </div>
       </header>

@@ -2,6 +2,7 @@ import { useId } from 'react';
 import { useWatch, type FieldValues, type Path, type PathValue, type UseFormReturn } from 'react-hook-form';
 import { parseStationTime, repeatedTimeNote, zoneLabel } from '../../../shared/station-time';
 import type { Fail } from '../form/schema-form';
+import { Button } from '../ui/button';
 
 export type StationTimeField = {
   text: string;
@@ -81,9 +82,9 @@ export function StationTimeInput({ label, field, timeZone, error, className = ''
       {note ? (
         <span className="text-xs font-normal">
           ▲ {note}{' '}
-          <button type="button" className="underline" onClick={() => field.setRepeated(other)}>
+          <Button tone="link" onClick={() => field.setRepeated(other)}>
             Use the {other} one
-          </button>
+          </Button>
         </span>
       ) : null}
       {problem ? (

@@ -30,7 +30,7 @@ function pressedLook(tone: NonNullable<Props['tone']>, pressed: boolean | undefi
 }
 
 export function Button({ tone = 'primary', size = 'md', pressed, className = '', type = 'button', ...rest }: Props) {
-  const padding = tone === 'link' || tone === 'tool' ? '' : tone === 'chip' ? 'px-2 py-0.5' : tone === 'toggle' ? sizes.xs : sizes[size];
+  const padding = { link: '', tool: '', chip: 'px-2 py-0.5', toggle: sizes.xs, tab: 'px-3 py-2' }[tone as string] ?? sizes[size];
   return (
     <button
       type={type}

@@ -14,6 +14,7 @@ import { ProgressMatrix } from '../components/progress-matrix';
 import { RecordPracticeForm } from '../components/record-practice-form';
 import { ReviewQueue } from '../components/review-queue';
 import { useTrainingZone } from '../lib/use-training-zone';
+import { Button } from '../../../components/ui/button';
 
 type Tab = 'mine' | 'countersign' | 'queue' | 'crews' | 'catalogue';
 const tabLabels: Record<Tab, string> = { mine: 'My qualification record', countersign: 'Countersign', queue: 'Trainer’s queue', crews: 'Crew qualifications', catalogue: 'Catalogue' };
@@ -68,9 +69,9 @@ export function TrainingPage() {
       </aside>
       <div role="group" aria-label="Training views" className="flex flex-wrap gap-1 border-b border-line">
         {tabs.map((t) => (
-          <button key={t} type="button" aria-pressed={t === tab} className={`rounded-t-md px-3 py-2 ${t === tab ? 'border border-b-0 border-line bg-panel font-bold' : 'text-muted'}`} onClick={() => setChosen(t)}>
+          <Button key={t} tone="tab" pressed={t === tab} onClick={() => setChosen(t)}>
             {tabLabels[t]}
-          </button>
+          </Button>
         ))}
       </div>
       <div aria-label={tabLabels[tab]} role="region">
