@@ -2,13 +2,12 @@ import { NavLink, Navigate, Outlet, useLocation, useNavigate, useSearchParams } 
 import { rememberedUnitId } from '../../components/readings/unit-picker';
 import { useState } from 'react';
 import { roleLabels } from '../../../shared/roles';
-import { useMe } from '../../features/session/api/get-me';
-import { useSignOut } from '../../features/session/api/sign-out';
+import { useMe, useSignOut } from '../../features/session';
 import { Notice } from '../../components/ui/notice';
 import { applyTheme, initialTheme, type Theme } from '../../lib/theme';
 import { navigationFor } from '../navigation';
 import { useConnected, useLiveUpdates } from '../use-live-updates';
-import { PendingOrdersPrompt } from '../../features/orders/components/pending-orders-prompt';
+import { PendingOrdersPrompt } from '../../features/orders';
 import { Button } from '../../components/ui/button';
 
 export function AppShell() {

@@ -1,3 +1,3 @@
-// What other features and the router may use of the shift log.
+// The shift log: its shifts (the shift pages list them), equipment picker, keys and page, loaded on demand.
 export { useShifts, useEquipment, logKeys, conditionKeys } from './api/log';
-export { LogPage } from './routes/log-page';
+export const loadLogPage = async () => (await import('./routes/log-page')).LogPage;

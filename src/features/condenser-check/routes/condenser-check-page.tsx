@@ -9,7 +9,7 @@ import { emptyReadingForm, readingFieldFor, readingSetWire, type ReadingFormValu
 import { loadUnitChoices, useRememberUnitChoices } from '../../../components/readings/unit-choices';
 import { useLiveEvaluation } from '../../../components/readings/use-live-evaluation';
 import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-picker';
-import { useMe } from '../../session/api/get-me';
+import { useMe } from '../../session';
 
 export function CondenserCheckPage() {
   const { data: me } = useMe();

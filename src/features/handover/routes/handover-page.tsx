@@ -9,7 +9,7 @@ import { useCrews } from '../../../components/plant/crews';
 import { ApiError } from '../../../lib/api-client';
 import { handoverAmendmentSchema } from '../../../../shared/schemas/handovers';
 import { FieldMessage, FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
-import { useMe } from '../../session/api/get-me';
+import { useMe } from '../../session';
 import { useClientKey, useCurrentHandover, useHandoverAction, type ShiftChange } from '../api/handover';
 import { AddItemForm } from '../components/add-item-form';
 import { BoardItemCard } from '../components/board-item';

@@ -2,7 +2,7 @@ import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/r
 import type { z } from 'zod';
 import type { NewLogEntry, StationSettings, newConditionSchema } from '../../../../shared/schemas/log';
 import { api } from '../../../lib/api-client';
-import { setupKeys } from '../../plant/api/setup';
+import { setupKeys } from '../../plant';
 
 type NewCondition = z.output<typeof newConditionSchema>;
 

@@ -5,7 +5,7 @@ import { Notice } from '../../../components/ui/notice';
 import { ZoneNote } from '../../../components/station-time/zone-note';
 import { FilterSelect, keyedOptions } from '../../../components/ui/filter-select';
 import { useWatchUnit } from '../../../app/use-live-updates';
-import { useMe } from '../../session/api/get-me';
+import { useMe } from '../../session';
 import { useLog, useShifts, useSignReview, type LogFilters } from '../api/log';
 import { ConditionsPanel } from '../components/conditions-panel';
 import { EntryBar } from '../components/entry-bar';

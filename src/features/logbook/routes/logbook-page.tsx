@@ -9,7 +9,7 @@ import { FilterSelect } from '../../../components/ui/filter-select';
 import { Notice } from '../../../components/ui/notice';
 import { useStationZone, useUnitZone, useZoneOfUnit } from '../../../components/station-time/use-station-zone';
 import { formatStationTime } from '../../../../shared/station-time';
-import { useMe } from '../../session/api/get-me';
+import { useMe } from '../../session';
 import { ApiError } from '../../../lib/api-client';
 import { searchParams, shiftLink, useLogbookSearch, type SearchFilters } from '../api/logbook';
 import { MyReviewComments } from '../components/my-review-comments';

@@ -5,10 +5,10 @@ import { Notice } from '../../../components/ui/notice';
 import { useStationZone } from '../../../components/station-time/use-station-zone';
 import { ZoneNote } from '../../../components/station-time/zone-note';
 import { formatStationTime } from '../../../../shared/station-time';
-import { useMe } from '../../session/api/get-me';
+import { useMe } from '../../session';
 import { useOrder, useOrders } from '../api/orders';
 import { IssueOrderForm } from '../components/issue-order-form';
-import { useStationSettings } from '../../shifts/api/station-settings';
+import { useStationSettings } from '../../shifts';
 import { Button } from '../../../components/ui/button';
 
 

@@ -6,7 +6,7 @@ import { ZoneNote } from '../../../components/station-time/zone-note';
 import { equipmentSchema } from '../../../../shared/schemas/plant';
 import { Button } from '../../../components/ui/button';
 import { FormFailure, useSchemaForm } from '../../../components/form/schema-form';
-import { useMe } from '../../session/api/get-me';
+import { useMe } from '../../session';
 import { useChangeSetup, useUnitSetup, type UnitSetup } from '../api/setup';
 import { DesignForm } from '../components/design-form';
 import { LimitsForm } from '../components/limits-form';

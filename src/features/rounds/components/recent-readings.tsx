@@ -6,7 +6,7 @@ import { pressureUnitLabels, type PressureUnit } from '../../../../shared/units'
 import { StatusBadge } from '../../../components/ui/status-badge';
 import { Notice } from '../../../components/ui/notice';
 import { OutsidePlausibleTag } from '../../../components/readings/plausibility';
-import { useMe } from '../../session/api/get-me';
+import { useMe } from '../../session';
 import { useCountersign, type ReadingSummary } from '../api/readings';
 
 export function RecentReadings({ readings, timeZone }: { readings: ReadingSummary[]; timeZone: string }) {

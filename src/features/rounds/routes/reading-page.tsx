@@ -20,7 +20,7 @@ import { useUnitZone } from '../../../components/station-time/use-station-zone';
 import { ZoneNote } from '../../../components/station-time/zone-note';
 import { formatStationTime } from '../../../../shared/station-time';
 import type { DisplayPreferences } from '../../../../shared/display';
-import { useMe } from '../../session/api/get-me';
+import { useMe } from '../../session';
 import { useAmendReading, useCountersign, useReading, type ReadingDetail } from '../api/readings';
 import { useSelectedUnit } from '../../../components/readings/unit-picker';
 import { useWatchUnit } from '../../../app/use-live-updates';

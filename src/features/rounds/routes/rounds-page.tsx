@@ -18,7 +18,7 @@ import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-p
 import { emptyStationTime, StationTimeInput, stationTimeToWire, useStationTimeFormField, type StationTimeValue } from '../../../components/station-time/station-time-input';
 import { formatStationTime } from '../../../../shared/station-time';
 import { pressureUnitLabels, temperatureUnits, type PressureUnit, type TemperatureUnit } from '../../../../shared/units';
-import { useMe } from '../../session/api/get-me';
+import { useMe } from '../../session';
 import { useReadings, useRecordReading, type ReadingSummary } from '../api/readings';
 import { RecentReadings } from '../components/recent-readings';
 import { useWatchUnit } from '../../../app/use-live-updates';

@@ -5,7 +5,7 @@ import { Button } from '../../../components/ui/button';
 import { FieldMessage, FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
 import { useZoneOfUnit } from '../../../components/station-time/use-station-zone';
 import { formatStationTime } from '../../../../shared/station-time';
-import { useMe } from '../../session/api/get-me';
+import { useMe } from '../../session';
 import { useAmendTraining, type EntryView } from '../api/training';
 
 const statusWords = { awaiting_countersign: '… awaiting countersign', countersigned: '✔ countersigned', rejected: '✖ rejected' };

@@ -1,7 +1,6 @@
 import { formatStationTime } from '../../../../shared/station-time';
 import { useTrainingZone } from '../lib/use-training-zone';
-import { qualificationSystemLabels, taskStatusLabels, type TaskStatus } from '../../../../shared/schemas/training';
-import { decisionSchema } from '../../../../shared/schemas/training';
+import { decisionSchema, qualificationSystemLabels, type TaskStatus, taskStatusLabels } from '../../../../shared/schemas/training';
 import { Button } from '../../../components/ui/button';
 import { FieldMessage, FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
 import { useDecide, type Progress, type ProgressRow } from '../api/training';
