@@ -28,7 +28,7 @@ export function applyServerErrors<T extends FieldValues>(error: unknown, setErro
   return 'Something went wrong; nothing was saved';
 }
 
-export const fieldErrorsOf = (error: unknown): Record<string, string> => (error instanceof ApiError ? error.fields : {});
+const fieldErrorsOf = (error: unknown): Record<string, string> => (error instanceof ApiError ? error.fields : {});
 
 /** The field's message, starting with its label unless it already does. */
 export function labelled(field: string, message: string): string {
