@@ -15,6 +15,8 @@ export function EntryBar({ unitId, settings, position }: { unitId: number; setti
   const equipment = useEquipment(unitId);
   const schema = throughContract(
     (v: Values, fail) => {
+      // An empty entry is said so beside the box in the words of this bar, not silently ignored.
+      if (!v.text.trim()) fail('text', 'Entry text is missing: write what happened');
       const eventAt = stationTimeToWire(v.eventAt, settings.timeZone, fail, 'eventAt');
       return { position, category: v.category, text: v.text.trim(), ...(eventAt ? { eventAt } : {}), equipmentId: v.equipmentId ? Number(v.equipmentId) : null, carryToHandover: v.carryToHandover };
     },
@@ -25,7 +27,6 @@ export function EntryBar({ unitId, settings, position }: { unitId: number; setti
   });
   const eventAt = useStationTimeFormField(form, 'eventAt');
   const equipmentId = useWatch({ control: form.control, name: 'equipmentId' });
-  // An empty entry is said so beside the box, not silently ignored.
   const textError = form.error('text');
   const tag = equipment.data?.find((e) => String(e.id) === equipmentId)?.tag;
   const onSubmit = form.submit(async (entry) => {
