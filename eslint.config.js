@@ -38,4 +38,23 @@ export default tseslint.config(
       ],
     },
   },
+  // Client feature boundaries: another feature (from a feature, the app shell or a shared component) is used only through
+  // its public index.ts. A separate block from the server's, so each side's rule reads on its own.
+  {
+    files: ['src/**/*.{ts,tsx}'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              // From a feature: ../../<other>/…; from src/app or src/components: …/features/<feature>/….
+              regex: '^(\\.\\./\\.\\./(admin-users|audit|condenser-check|flags|handover|imports|log|logbook|orders|overview|plant|rounds|session|shifts|training|trends)|(\\.\\./)+features/(admin-users|audit|condenser-check|flags|handover|imports|log|logbook|orders|overview|plant|rounds|session|shifts|training|trends))/(?!index$).+',
+              message: 'Use the other feature through its public index.ts (import from the feature folder itself).',
+            },
+          ],
+        },
+      ],
+    },
+  },
 );

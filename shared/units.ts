@@ -107,9 +107,6 @@ export function kToTemperature(kelvin: number, unit: TemperatureUnit): number {
 export function kDifferenceTo(kelvin: number, unit: TemperatureUnit): number {
   return unit === 'degF' ? kelvin * 1.8 : kelvin;
 }
-export function differenceToK(value: number, unit: TemperatureUnit): number {
-  return unit === 'degF' ? value / 1.8 : value;
-}
 
 export const flowUnits = {
   m3_h: { label: 'm³/h' },
@@ -136,4 +133,3 @@ export function kgSToFlow(kgS: number, unit: FlowUnit, densityKgM3: number): num
 
 /** Conductivity: 1 µS/cm = 1e-4 S/m. */
 export const microSiemensPerCmToSiPerM = (value: number) => value * 1e-4;
-export const siPerMToMicroSiemensPerCm = (value: number) => value / 1e-4;

@@ -68,6 +68,13 @@ export const plausibleRangesSchema = z.object(
   Object.fromEntries(plausibleKeys.map((key) => [key, plausibleRangeSchema(key)])) as Record<PlausibleKey, ReturnType<typeof plausibleRangeSchema>>,
 ) as unknown as z.ZodType<PlausibleRanges>;
 
+/** A piece of equipment on a unit: what the log's picker and the handover name by its tag. */
+export const equipmentSchema = z.object({
+  kind: z.enum(['condenser', 'cw_pump', 'cooling_tower', 'air_removal', 'other'], { message: 'Choose a kind of equipment' }),
+  tag: z.string().trim().min(1, 'Enter the tag').max(32).regex(/^[A-Za-z0-9][A-Za-z0-9_.\-/]*$/, 'Letters, digits and - _ . / only'),
+  name: z.string().trim().min(2, 'Enter a name').max(120),
+});
+
 export const newDesignVersionSchema = z.object({ design: unitDesignSchema, note: z.string().trim().min(3, 'Say what changed and why').max(500) });
 export const newLimitVersionSchema = z.object({ limits: limitSetSchema, note: z.string().trim().min(3, 'Say what changed and why').max(500) });
 export const newPlausibleVersionSchema = z.object({ ranges: plausibleRangesSchema, note: z.string().trim().min(3, 'Say what changed and why').max(500) });

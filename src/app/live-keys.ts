@@ -7,21 +7,21 @@ import { crewKeys } from '../components/plant/crews';
 import { peopleKeys } from '../components/people/person-select';
 import { calcKeys } from '../components/readings/get-condenser-design';
 import { unitKeys } from '../components/readings/unit-picker';
-import { userKeys } from '../features/admin-users/api/user-keys';
-import { auditKeys } from '../features/audit/api/audit-keys';
-import { flagKeys } from '../features/flags/api/flags';
-import { handoverKeys } from '../features/handover/api/handover';
-import { shiftCondenserKeys } from '../features/handover/api/get-shift-condenser';
-import { conditionKeys, logKeys } from '../features/log/api/log';
-import { logbookKeys } from '../features/logbook/api/logbook';
-import { orderKeys } from '../features/orders/api/orders';
-import { overviewKeys } from '../features/overview/api/overview-keys';
-import { stationSettingsKeys } from '../features/shifts/api/station-settings';
-import { setupKeys } from '../features/plant/api/setup';
-import { readingKeys } from '../features/rounds/api/reading-keys';
-import { sessionKeys } from '../features/session/api/session-keys';
-import { trainingKeys } from '../features/training/api/training';
-import { trendKeys } from '../features/trends/api/get-trend';
+import { userKeys } from '../features/admin-users';
+import { auditKeys } from '../features/audit';
+import { flagKeys } from '../features/flags';
+import { handoverKeys, shiftCondenserKeys } from '../features/handover';
+import { importKeys } from '../features/imports';
+import { conditionKeys, logKeys } from '../features/log';
+import { logbookKeys } from '../features/logbook';
+import { orderKeys } from '../features/orders';
+import { overviewKeys } from '../features/overview';
+import { stationSettingsKeys } from '../features/shifts';
+import { setupKeys } from '../features/plant';
+import { readingKeys } from '../features/rounds';
+import { sessionKeys } from '../features/session';
+import { trainingKeys } from '../features/training';
+import { trendKeys } from '../features/trends';
 
 /** Keys for what a unit shows of its rounds and what follows from them (flags, trends, the board). */
 const unitPlantState = (unitId: number): QueryKey[] => [readingKeys.list(unitId), flagKeys.unit(unitId), trendKeys.unit(unitId), handoverKeys.unit(unitId), shiftCondenserKeys.unit(unitId)];
@@ -47,6 +47,17 @@ const keysFor: Record<LiveEntity, (event: LiveEvent) => QueryKey[]> = {
 export const liveKeys: Record<LiveEntity, (event: LiveEvent) => QueryKey[]> = Object.fromEntries(
   Object.entries(keysFor).map(([entity, keys]) => [entity, (event: LiveEvent) => [...keys(event), overviewKeys.all]]),
 ) as Record<LiveEntity, (event: LiveEvent) => QueryKey[]>;
+
+/** Every factory's root: what a tab refetches after its live connection was down (it may have missed any event). */
+const everyRoot = (): QueryKey[] => [
+  readingKeys.all, flagKeys.all, trendKeys.all, handoverKeys.all, shiftCondenserKeys.all, logKeys.all, conditionKeys.all, orderKeys.all,
+  trainingKeys.all, unitKeys.all, setupKeys.all, calcKeys.all, userKeys.all, peopleKeys.all, crewKeys.all, sessionKeys.all, auditKeys.all,
+  stationSettingsKeys.all, logbookKeys.all, overviewKeys.all, importKeys.all,
+];
+
+export function invalidateEverything(queryClient: QueryClient) {
+  for (const queryKey of everyRoot()) void queryClient.invalidateQueries({ queryKey });
+}
 
 /** Marks stale what this change affects; the queries on screen refetch. */
 export function invalidateForChange(queryClient: QueryClient, event: LiveEvent) {

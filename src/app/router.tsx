@@ -1,12 +1,25 @@
 import { createBrowserRouter } from 'react-router';
 import type { QueryClient } from '@tanstack/react-query';
 import { setSignedOutHandler } from '../lib/api-client';
-import { sessionKeys } from '../features/session/api/session-keys';
 import { AppShell } from './layout/app-shell';
 import { RequireRole } from './layout/require-role';
-import { SignInPage } from '../features/session/routes/sign-in-page';
-import { OverviewPage } from '../features/overview/routes/overview-page';
 import { NotFoundPage } from './layout/not-found-page';
+import { SignInPage, loadChangePasswordPage, sessionKeys } from '../features/session';
+import { loadHandoverPage, loadHandoverPrintPage } from '../features/handover';
+import { loadLogPage } from '../features/log';
+import { loadOrdersPage } from '../features/orders';
+import { loadReadingPage, loadRoundsPage } from '../features/rounds';
+import { loadFlagsPage } from '../features/flags';
+import { loadTrendsPage } from '../features/trends';
+import { loadImportPage } from '../features/imports';
+import { loadLogbookPage, loadPastShiftPage } from '../features/logbook';
+import { loadTraineePage, loadTrainingPage } from '../features/training';
+import { loadPlantPage } from '../features/plant';
+import { loadCondenserCheckPage } from '../features/condenser-check';
+import { loadUsersPage } from '../features/admin-users';
+import { loadShiftsPage } from '../features/shifts';
+import { loadAuditPage } from '../features/audit';
+import { OverviewPage } from '../features/overview';
 
 export function createAppRouter(queryClient: QueryClient) {
   // Any 401 from the API means the session ended (expiry, deactivation, restart of the store).
@@ -20,32 +33,32 @@ export function createAppRouter(queryClient: QueryClient) {
         { index: true, element: <OverviewPage /> },
         {
           path: 'account/password',
-          lazy: async () => ({ Component: (await import('../features/session/routes/change-password-page')).ChangePasswordPage }),
+          lazy: async () => ({ Component: await loadChangePasswordPage() }),
         },
-        { path: 'handover', lazy: async () => ({ Component: (await import('../features/handover/routes/handover-page')).HandoverPage }) },
-        { path: 'handover/:id/print', lazy: async () => ({ Component: (await import('../features/handover/routes/print-page')).HandoverPrintPage }) },
-        { path: 'log', lazy: async () => ({ Component: (await import('../features/log/routes/log-page')).LogPage }) },
-        { path: 'orders', lazy: async () => ({ Component: (await import('../features/orders/routes/orders-page')).OrdersPage }) },
-        { path: 'rounds', lazy: async () => ({ Component: (await import('../features/rounds/routes/rounds-page')).RoundsPage }) },
-        { path: 'rounds/:id', lazy: async () => ({ Component: (await import('../features/rounds/routes/reading-page')).ReadingPage }) },
-        { path: 'flags', lazy: async () => ({ Component: (await import('../features/flags/routes/flags-page')).FlagsPage }) },
-        { path: 'trends', lazy: async () => ({ Component: (await import('../features/trends/routes/trends-page')).TrendsPage }) },
+        { path: 'handover', lazy: async () => ({ Component: await loadHandoverPage() }) },
+        { path: 'handover/:id/print', lazy: async () => ({ Component: await loadHandoverPrintPage() }) },
+        { path: 'log', lazy: async () => ({ Component: await loadLogPage() }) },
+        { path: 'orders', lazy: async () => ({ Component: await loadOrdersPage() }) },
+        { path: 'rounds', lazy: async () => ({ Component: await loadRoundsPage() }) },
+        { path: 'rounds/:id', lazy: async () => ({ Component: await loadReadingPage() }) },
+        { path: 'flags', lazy: async () => ({ Component: await loadFlagsPage() }) },
+        { path: 'trends', lazy: async () => ({ Component: await loadTrendsPage() }) },
         {
           path: 'import',
           element: <RequireRole action="import.run" />,
-          children: [{ index: true, lazy: async () => ({ Component: (await import('../features/imports/routes/import-page')).ImportPage }) }],
+          children: [{ index: true, lazy: async () => ({ Component: await loadImportPage() }) }],
         },
-        { path: 'logbook', lazy: async () => ({ Component: (await import('../features/logbook/routes/logbook-page')).LogbookPage }) },
+        { path: 'logbook', lazy: async () => ({ Component: await loadLogbookPage() }) },
         {
           path: 'logbook/units/:unitId/shifts/:shiftStart',
-          lazy: async () => ({ Component: (await import('../features/logbook/routes/past-shift-page')).PastShiftPage }),
+          lazy: async () => ({ Component: await loadPastShiftPage() }),
         },
-        { path: 'training', lazy: async () => ({ Component: (await import('../features/training/routes/training-page')).TrainingPage }) },
-        { path: 'training/trainees/:id', lazy: async () => ({ Component: (await import('../features/training/routes/trainee-page')).TraineePage }) },
-        { path: 'plant', lazy: async () => ({ Component: (await import('../features/plant/routes/plant-page')).PlantPage }) },
+        { path: 'training', lazy: async () => ({ Component: await loadTrainingPage() }) },
+        { path: 'training/trainees/:id', lazy: async () => ({ Component: await loadTraineePage() }) },
+        { path: 'plant', lazy: async () => ({ Component: await loadPlantPage() }) },
         {
           path: 'condenser-check',
-          lazy: async () => ({ Component: (await import('../features/condenser-check/routes/condenser-check-page')).CondenserCheckPage }),
+          lazy: async () => ({ Component: await loadCondenserCheckPage() }),
         },
         {
           path: 'admin',
@@ -53,17 +66,17 @@ export function createAppRouter(queryClient: QueryClient) {
             {
               path: 'people',
               element: <RequireRole action="people.manage" />,
-              children: [{ index: true, lazy: async () => ({ Component: (await import('../features/admin-users/routes/users-page')).UsersPage }) }],
+              children: [{ index: true, lazy: async () => ({ Component: await loadUsersPage() }) }],
             },
             {
               path: 'shifts',
               element: <RequireRole action="shifts.manage" />,
-              children: [{ index: true, lazy: async () => ({ Component: (await import('../features/shifts/routes/shifts-page')).ShiftsPage }) }],
+              children: [{ index: true, lazy: async () => ({ Component: await loadShiftsPage() }) }],
             },
             {
               path: 'audit',
               element: <RequireRole action="audit.read" />,
-              children: [{ index: true, lazy: async () => ({ Component: (await import('../features/audit/routes/audit-page')).AuditPage }) }],
+              children: [{ index: true, lazy: async () => ({ Component: await loadAuditPage() }) }],
             },
           ],
         },

@@ -2,7 +2,7 @@ import { useEffect, useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import type { BoardPresence, LiveEvent } from '../../shared/live-events';
 import { closeSocket, getSocket } from '../lib/socket';
-import { invalidateForChange } from './live-keys';
+import { invalidateEverything, invalidateForChange } from './live-keys';
 
 /** Sockets notify, queries fetch: invalidate on each event, and everything after a reconnect. */
 export function useLiveUpdates(signedIn: boolean) {
@@ -15,7 +15,7 @@ export function useLiveUpdates(signedIn: boolean) {
     const onConnect = () => {
       // Rooms are per connection: join again what this tab watches, then catch up on what was missed.
       rejoin();
-      if (connectedBefore) void queryClient.invalidateQueries();
+      if (connectedBefore) invalidateEverything(queryClient);
       connectedBefore = true;
     };
     socket.on('changed', onChanged);

@@ -1,6 +1,5 @@
 import { Router } from 'express';
-import { z } from 'zod';
-import { newDesignVersionSchema, newLimitVersionSchema, newPlausibleVersionSchema } from '../../../shared/schemas/plant';
+import { equipmentSchema, newDesignVersionSchema, newLimitVersionSchema, newPlausibleVersionSchema } from '../../../shared/schemas/plant';
 import { allow, signedIn } from '../../lib/auth';
 import { parseId, parseInput } from '../../lib/validate';
 import { activePeople } from '../users/index';
@@ -8,11 +7,6 @@ import { listCrews, unitSetup, type EquipmentService } from './service';
 import { listUnits } from './unit-list';
 import type { VersionService } from './versions';
 
-const equipmentSchema = z.object({
-  kind: z.enum(['condenser', 'cw_pump', 'cooling_tower', 'air_removal', 'other'], { message: 'Choose a kind of equipment' }),
-  tag: z.string().trim().min(1, 'Enter the tag').max(32).regex(/^[A-Za-z0-9][A-Za-z0-9_.\-/]*$/, 'Letters, digits and - _ . / only'),
-  name: z.string().trim().min(2, 'Enter a name').max(120),
-});
 
 /** Plant setup: everyone signed in reads it; only administrators change it, always as a new version. */
 export function plantRoutes(versions: VersionService, equipment: EquipmentService): Router {

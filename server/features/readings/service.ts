@@ -316,6 +316,7 @@ export async function listReadings(unitId: number, options: { before?: Date; lim
     id: r.id,
     takenAt: r.takenAt.toISOString(),
     recordedBy: who.get(r.recordedBy) ?? `#${r.recordedBy}`,
+    recordedById: r.recordedBy,
     recordedAsTrainee: r.recordedAsTrainee,
     needsCountersign: r.recordedAsTrainee && !signed.has(r.id),
     source: r.source,

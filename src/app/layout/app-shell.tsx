@@ -2,13 +2,13 @@ import { NavLink, Navigate, Outlet, useLocation, useNavigate, useSearchParams } 
 import { rememberedUnitId } from '../../components/readings/unit-picker';
 import { useState } from 'react';
 import { roleLabels } from '../../../shared/roles';
-import { useMe } from '../../features/session/api/get-me';
-import { useSignOut } from '../../features/session/api/sign-out';
+import { useMe, useSignOut } from '../../features/session';
 import { Notice } from '../../components/ui/notice';
 import { applyTheme, initialTheme, type Theme } from '../../lib/theme';
 import { navigationFor } from '../navigation';
 import { useConnected, useLiveUpdates } from '../use-live-updates';
-import { PendingOrdersPrompt } from '../../features/orders/components/pending-orders-prompt';
+import { PendingOrdersPrompt } from '../../features/orders';
+import { Button } from '../../components/ui/button';
 
 export function AppShell() {
   const { data: me, isPending, error } = useMe();
@@ -63,16 +63,12 @@ export function AppShell() {
               {me.name} · {roleLabels[me.role]}
               {me.crewName ? ` · Crew ${me.crewName}` : ''}
             </span>
-            <button type="button" onClick={toggleTheme} className="rounded-md border border-line px-2 py-1">
+            <Button tone="toggle" onClick={toggleTheme}>
               {theme === 'dark' ? '☀ Light' : '☾ Dark'}
-            </button>
-            <button
-              type="button"
-              className="rounded-md border border-line px-2 py-1 font-bold"
-              onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate('/sign-in') })}
-            >
+            </Button>
+            <Button tone="plain" size="xs" onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate('/sign-in') })}>
               Sign out
-            </button>
+            </Button>
           </div>
         </div>
       </header>

@@ -1,6 +1,6 @@
 import { Outlet } from 'react-router';
 import { can, type Action } from '../../../shared/policies/permissions';
-import { useMe } from '../../features/session/api/get-me';
+import { useMe } from '../../features/session';
 import { Notice } from '../../components/ui/notice';
 
 /** Hides pages a role cannot use. Only a convenience: the server refuses the data anyway. */

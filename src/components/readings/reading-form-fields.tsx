@@ -13,11 +13,14 @@ import type { ReactNode } from 'react';
 import { NumberField } from './number-field';
 import { PlausibleWarning } from './plausibility';
 
-type Props = { form: UseFormReturn<ReadingFormValues>; errors: FormErrors; values: ReadingFormValues; warnings?: FormErrors };
+// eslint-disable-next-line @typescript-eslint/no-explicit-any -- any form whose values include the reading boxes (a round adds its time, an amendment its reason)
+type Props<T extends ReadingFormValues> = { form: UseFormReturn<T, any, any>; errors: FormErrors; values: ReadingFormValues; warnings?: FormErrors };
 
 const selectClass = 'rounded-md border border-line bg-field px-2 py-1';
 
-export function ReadingFormFields({ form, errors, values, warnings = {} }: Props) {
+export function ReadingFormFields<T extends ReadingFormValues>({ form: anyForm, errors, values, warnings = {} }: Props<T>) {
+  // The boxes are the same in every such form; only their names matter here.
+  const form = anyForm as unknown as UseFormReturn<ReadingFormValues>;
   const { register } = form;
   // A box outside the plausible range says so beside it (an error, when there is one, says more).
   const warn = (field: keyof ReadingFormValues, hint?: ReactNode) => (warnings[field] ? <PlausibleWarning text={warnings[field]} /> : hint);

@@ -1,5 +1,6 @@
 // The round form holds text as typed; this turns it into the shared reading-set contract.
 import { readingSetInputSchema, type ReadingSetInput } from '../../../shared/schemas/reading-set';
+import { fieldLabel } from '../../../shared/schemas/field-labels';
 import type { AbsolutePressureUnit, FlowUnit, PressureUnit, TemperatureUnit } from '../../../shared/units';
 
 export type ReadingFormValues = {
@@ -86,9 +87,13 @@ export const fieldForPath: Record<string, keyof ReadingFormValues> = {
 
 export type FormErrors = Partial<Record<keyof ReadingFormValues, string>>;
 
-export function toReadingSet(unitId: number, v: ReadingFormValues): { input: ReadingSetInput | null; errors: FormErrors } {
+/** The box that holds a contract path ("pressure.value", or "pressure" for the quantity as a whole), if any. */
+export const readingFieldFor = (path: string): keyof ReadingFormValues | undefined => fieldForPath[path] ?? fieldForPath[`${path}.value`];
+
+/** The typed text in the contract's shape, unchecked: what the shared reading-set schema is asked about. */
+export function readingSetWire(unitId: number, v: ReadingFormValues) {
   const t = (text: string) => (given(text) ? { value: num(text), unit: v.temperatureUnit } : null);
-  const raw = {
+  return {
     unitId,
     pressure: { value: num(v.pressure), unit: v.pressureUnit },
     barometer: given(v.barometer) ? { value: num(v.barometer), unit: v.barometerUnit } : null,
@@ -118,7 +123,11 @@ export function toReadingSet(unitId: number, v: ReadingFormValues): { input: Rea
         }
       : null,
   };
-  const parsed = readingSetInputSchema.safeParse(raw);
+}
+
+/** The form's text as a checked reading set (for the live checks), or the message for each box. */
+export function toReadingSet(unitId: number, v: ReadingFormValues): { input: ReadingSetInput | null; errors: FormErrors } {
+  const parsed = readingSetInputSchema.safeParse(readingSetWire(unitId, v));
   if (parsed.success) return { input: parsed.data, errors: {} };
   const errors: FormErrors = {};
   for (const issue of parsed.error.issues) {
@@ -162,12 +171,8 @@ export function formValuesFromReading(raw: ReadingSetInput): ReadingFormValues {
   };
 }
 
-/** The server's field paths (e.g. "pressure.value") onto the form's boxes. */
-export function formErrorsFromServer(fields: Record<string, string>): FormErrors {
-  const errors: FormErrors = {};
-  for (const [path, message] of Object.entries(fields)) {
-    const field = fieldForPath[path] ?? fieldForPath[`${path}.value`];
-    if (field) errors[field] ??= message;
-  }
-  return errors;
-}
+/** The round's time box beside the readings; the rest of a message's path names a box. */
+export const roundFieldFor = (path: string): string | undefined => (path === 'takenAt' ? 'takenAt' : readingFieldFor(path));
+
+/** The labels of the boxes that hold a message, in the words the person reads. */
+export const boxLabels = (boxes: readonly string[]) => boxes.map((box) => fieldLabel(Object.keys(fieldForPath).find((path) => fieldForPath[path] === box) ?? box));

@@ -14,7 +14,6 @@ export type LiveEvaluation = {
   evaluation: Evaluation | null;
   /** Messages for boxes that hold something wrong; empty required boxes are not errors yet. */
   shownErrors: FormErrors;
-  allErrors: FormErrors;
   prefs: DisplayPreferences;
   /** Readings and checks outside the unit's plausible ranges, in the round's units: saving asks to confirm them. */
   notices: ImplausibleNotice[];
@@ -57,7 +56,6 @@ export function useLiveEvaluation(unitId: number | null, values: ReadingFormValu
     input,
     evaluation,
     shownErrors,
-    allErrors: errors,
     prefs: { temperature: values.temperatureUnit, pressure, currency: data?.design.currency ?? null },
     notices,
     warnings,

@@ -1,5 +1,8 @@
-import { useId, useState } from 'react';
+import { useId } from 'react';
+import { useWatch, type FieldValues, type Path, type PathValue, type UseFormReturn } from 'react-hook-form';
 import { parseStationTime, repeatedTimeNote, zoneLabel } from '../../../shared/station-time';
+import type { Fail } from '../form/schema-form';
+import { Button } from '../ui/button';
 
 export type StationTimeField = {
   text: string;
@@ -9,23 +12,33 @@ export type StationTimeField = {
   reset: () => void;
 };
 
-/** What a station-time input holds: the wall-clock text and, in the hour the clocks go back, which of the two. */
-export function useStationTimeField(initial = ''): StationTimeField {
-  const [text, setTextState] = useState(initial);
-  const [repeated, setRepeated] = useState<'first' | 'second'>('first');
+/** What a station-time input holds in a form: the wall-clock text and, in the hour the clocks go back, which of the two. */
+export type StationTimeValue = { text: string; repeated: 'first' | 'second' };
+export const emptyStationTime: StationTimeValue = { text: '', repeated: 'first' };
+
+/** A station-time input kept in a schema form under `name` (a `StationTimeValue`). */
+// eslint-disable-next-line @typescript-eslint/no-explicit-any -- any form whose field `name` holds a StationTimeValue
+export function useStationTimeFormField<T extends FieldValues>(form: UseFormReturn<T, any, any>, name: Path<T>): StationTimeField {
+  const value = (useWatch({ control: form.control, name }) as StationTimeValue | undefined) ?? emptyStationTime;
+  const set = (next: StationTimeValue) =>
+    form.setValue(name, next as PathValue<T, Path<T>>, { shouldDirty: true, shouldValidate: form.formState.isSubmitted });
   return {
-    text,
-    repeated,
-    setText: (next) => {
-      setTextState(next);
-      setRepeated('first');
-    },
-    setRepeated,
-    reset: () => {
-      setTextState('');
-      setRepeated('first');
-    },
+    text: value.text,
+    repeated: value.repeated,
+    setText: (text) => set({ text, repeated: 'first' }),
+    setRepeated: (repeated) => set({ ...value, repeated }),
+    reset: () => set(emptyStationTime),
   };
+}
+
+/** For a form's conversion to the contract: the instant as ISO text, undefined when left empty, a message on `field` when it is not a time on the station's clock. */
+export function stationTimeToWire(value: StationTimeValue, timeZone: string, fail: Fail, field: string): string | undefined {
+  const read = readStationTime(value, timeZone);
+  if (!read.ok) {
+    fail(field, read.message);
+    return undefined;
+  }
+  return read.at?.toISOString();
 }
 
 export type StationTimeRead = { ok: true; at: Date | null } | { ok: false; message: string };
@@ -69,9 +82,9 @@ export function StationTimeInput({ label, field, timeZone, error, className = ''
       {note ? (
         <span className="text-xs font-normal">
           ▲ {note}{' '}
-          <button type="button" className="underline" onClick={() => field.setRepeated(other)}>
+          <Button tone="link" onClick={() => field.setRepeated(other)}>
             Use the {other} one
-          </button>
+          </Button>
         </span>
       ) : null}
       {problem ? (

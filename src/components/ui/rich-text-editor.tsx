@@ -1,10 +1,9 @@
 import { EditorContent, useEditor } from '@tiptap/react';
 import StarterKit from '@tiptap/starter-kit';
 import { TaskItem, TaskList } from '@tiptap/extension-list';
+import { Button } from './button';
 
 type Props = { label: string; initialHtml?: string; onChange: (html: string) => void };
-
-const buttonClass = 'rounded border border-line px-2 py-0.5 text-sm font-bold aria-pressed:bg-accent aria-pressed:text-on-accent';
 
 /** Rich text with headings, lists, bold/italic, links and task lists; the server sanitises what it stores. */
 export function RichTextEditor({ label, initialHtml = '', onChange }: Props) {
@@ -16,9 +15,9 @@ export function RichTextEditor({ label, initialHtml = '', onChange }: Props) {
   });
   if (!editor) return null;
   const tool = (name: string, active: boolean, run: () => void) => (
-    <button type="button" className={buttonClass} aria-pressed={active} onClick={run}>
+    <Button tone="tool" pressed={active} onClick={run}>
       {name}
-    </button>
+    </Button>
   );
   return (
     <div className="rounded-md border border-line bg-field">

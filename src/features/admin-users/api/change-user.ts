@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CreateUserInput, PublicUser, UpdateUserInput } from '../../../../shared/schemas/auth';
 import { api } from '../../../lib/api-client';
-import { auditKeys } from '../../audit/api/audit-keys';
+import { auditKeys } from '../../audit';
 import { userKeys } from './user-keys';
 
 type UserChange =

@@ -1,35 +1,27 @@
-import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
-import { createUserSchema, type CreateUserInput } from '../../../../shared/schemas/auth';
+import { createUserSchema } from '../../../../shared/schemas/auth';
 import { roleLabels, roles } from '../../../../shared/roles';
 import { SelectField, TextField } from '../../../components/ui/form-field';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
-import { applyServerErrors } from '../../../lib/form-errors';
+import { FormFailure, useSchemaForm } from '../../../components/form/schema-form';
 import type { CrewSummary } from '../../../components/plant/crews';
 import { useChangeUser } from '../api/change-user';
 
 export function CreateUserForm({ crews }: { crews: CrewSummary[] }) {
   const change = useChangeUser();
-  const form = useForm<CreateUserInput>({
-    resolver: zodResolver(createUserSchema),
+  const form = useSchemaForm(createUserSchema, {
     defaultValues: { name: '', email: '', role: 'operator', crewId: null, temporaryPassword: '' },
   });
   const { errors } = form.formState;
-  const onSubmit = form.handleSubmit((input) =>
-    change.mutate(
-      { kind: 'create', input },
-      {
-        onSuccess: () => form.reset(),
-        onError: (error) => form.setError('root', { message: applyServerErrors(error, form.setError) }),
-      },
-    ),
-  );
+  const onSubmit = form.submit(async (input) => {
+    await change.mutateAsync({ kind: 'create', input });
+    form.reset();
+  });
 
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Add a person" className="grid gap-4 rounded-lg border border-line bg-panel p-4 sm:grid-cols-2">
       <h2 className="text-lg font-bold sm:col-span-2">Add a person</h2>
-      {errors.root?.message ? <div className="sm:col-span-2"><Notice kind="error">{errors.root.message}</Notice></div> : null}
+      <FormFailure form={form} className="sm:col-span-2" />
       {change.isSuccess ? (
         <div className="sm:col-span-2">
           <Notice kind="success">Added {change.data.name}. They must choose their own password at first sign-in.</Notice>

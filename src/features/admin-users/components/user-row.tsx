@@ -1,6 +1,7 @@
 import type { PublicUser } from '../../../../shared/schemas/auth';
 import { roleLabels, roles, type Role } from '../../../../shared/roles';
 import type { CrewSummary } from '../../../components/plant/crews';
+import { Button } from '../../../components/ui/button';
 import { useChangeUser } from '../api/change-user';
 
 type Props = { user: PublicUser; crews: CrewSummary[]; isSelf: boolean; onError: (message: string) => void };
@@ -59,16 +60,17 @@ export function UserRow({ user, crews, isSelf, onError }: Props) {
         {isSelf ? (
           <span className="text-sm text-muted">you</span>
         ) : (
-          <button
-            type="button"
-            className={`rounded-md border px-2 py-1 text-sm font-bold ${user.active ? 'border-alarm text-alarm' : 'border-line'}`}
+          <Button
+            tone={user.active ? 'danger' : 'plain'}
+            size="xs"
+            className="text-sm"
             disabled={change.isPending}
             onClick={() =>
               change.mutate({ kind: user.active ? 'deactivate' : 'reactivate', id: user.id, version: user.version }, report)
             }
           >
             {user.active ? 'Deactivate' : 'Reactivate'}
-          </button>
+          </Button>
         )}
       </td>
     </tr>

@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { Notice } from '../../../components/ui/notice';
-import { useMe } from '../../session/api/get-me';
+import { useMe } from '../../session';
 import { useCrews } from '../../../components/plant/crews';
 import { useUsers } from '../api/get-users';
 import { CreateUserForm } from '../components/create-user-form';

@@ -4,7 +4,7 @@ import { ZoneNote } from '../../../components/station-time/zone-note';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { useAuditEvents } from '../api/get-audit-events';
-import { useMe } from '../../session/api/get-me';
+import { useMe } from '../../session';
 
 const show = (value: unknown) => (value == null ? '—' : JSON.stringify(value));
 

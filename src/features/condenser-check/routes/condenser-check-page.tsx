@@ -1,19 +1,26 @@
-import { useForm, useWatch } from 'react-hook-form';
+import { useWatch } from 'react-hook-form';
+import { readingSetInputSchema } from '../../../../shared/schemas/reading-set';
+import { throughContract, useSchemaForm } from '../../../components/form/schema-form';
 import { CautionNote, Notice } from '../../../components/ui/notice';
 import { CheckResults, EnterReadingsNotice } from '../../../components/readings/check-results';
 import { ReadingFormFields } from '../../../components/readings/reading-form-fields';
 import { useCondenserDesign } from '../../../components/readings/get-condenser-design';
-import { emptyReadingForm, type ReadingFormValues } from '../../../components/readings/reading-form';
+import { emptyReadingForm, readingFieldFor, readingSetWire, type ReadingFormValues } from '../../../components/readings/reading-form';
 import { loadUnitChoices, useRememberUnitChoices } from '../../../components/readings/unit-choices';
 import { useLiveEvaluation } from '../../../components/readings/use-live-evaluation';
 import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-picker';
-import { useMe } from '../../session/api/get-me';
+import { useMe } from '../../session';
 
 export function CondenserCheckPage() {
   const { data: me } = useMe();
   const { unitId } = useSelectedUnit();
   const design = useCondenserDesign(unitId);
-  const form = useForm<ReadingFormValues>({ defaultValues: emptyReadingForm(loadUnitChoices(me?.id)), mode: 'onChange' });
+  // Nothing is saved here, so the form is never submitted: the checks and messages come from the live evaluation,
+  // which asks the same reading-set contract as a round.
+  const form = useSchemaForm(
+    throughContract((v: ReadingFormValues) => readingSetWire(unitId ?? 0, v), readingSetInputSchema, readingFieldFor),
+    { defaultValues: emptyReadingForm(loadUnitChoices(me?.id)) },
+  );
   const values = useWatch({ control: form.control }) as ReadingFormValues;
   useRememberUnitChoices(values, me?.id);
   const live = useLiveEvaluation(unitId, values, design.data);

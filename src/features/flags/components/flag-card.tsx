@@ -3,18 +3,82 @@ import { Link } from 'react-router';
 import { defaultDisplayPreferences, displayQuantity } from '../../../../shared/display';
 import { formatStationTime } from '../../../../shared/station-time';
 import { StatusBadge } from '../../../components/ui/status-badge';
-import { Notice } from '../../../components/ui/notice';
+import { useWatch } from 'react-hook-form';
+import { assignFlagSchema, clearFlagSchema } from '../../../../shared/schemas/flags';
+import { Button } from '../../../components/ui/button';
+import { FieldMessage, FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
 import { useFlagAction, type FlagView } from '../api/flags';
 import { PersonSelect } from '../../../components/people/person-select';
 
+const textClass = 'rounded-md border border-line bg-field p-2';
+
+function FormButtons({ label, pending, onCancel }: { label: string; pending: boolean; onCancel: () => void }) {
+  return (
+    <div className="flex gap-2">
+      <Button type="submit" size="sm" disabled={pending}>
+        {label}
+      </Button>
+      <Button tone="plain" size="sm" onClick={onCancel}>
+        Cancel
+      </Button>
+    </div>
+  );
+}
+
+function AssignForm({ flag, onDone }: { flag: FlagView; onDone: () => void }) {
+  const action = useFlagAction();
+  const schema = throughContract((v: { assignedTo: string; followUp: string }) => ({ assignedTo: Number(v.assignedTo), followUp: v.followUp, version: flag.version }), assignFlagSchema);
+  const form = useSchemaForm(schema, { defaultValues: { assignedTo: '', followUp: '' } });
+  const assignee = useWatch({ control: form.control, name: 'assignedTo' });
+  return (
+    <form
+      className="flex flex-col gap-2"
+      noValidate
+      onSubmit={form.submit(async (input) => {
+        await action.mutateAsync({ kind: 'assign', id: flag.id, input });
+        onDone();
+      })}
+    >
+      <FormFailure form={form} />
+      <PersonSelect label="Who follows it up" value={assignee} onChange={(id) => form.setValue('assignedTo', id, { shouldDirty: true })} error={form.error('assignedTo')} />
+      <label className="flex flex-col text-sm">
+        What to do
+        <textarea className={textClass} rows={2} {...form.register('followUp')} />
+        <FieldMessage message={form.error('followUp')} />
+      </label>
+      <FormButtons label="Assign" pending={action.isPending} onCancel={onDone} />
+    </form>
+  );
+}
+
+function ClearForm({ flag, onDone }: { flag: FlagView; onDone: () => void }) {
+  const action = useFlagAction();
+  const schema = throughContract((v: { comment: string }) => ({ comment: v.comment, version: flag.version }), clearFlagSchema);
+  const form = useSchemaForm(schema, { defaultValues: { comment: '' } });
+  return (
+    <form
+      className="flex flex-col gap-2"
+      noValidate
+      onSubmit={form.submit(async (input) => {
+        await action.mutateAsync({ kind: 'clear', id: flag.id, input });
+        onDone();
+      })}
+    >
+      <FormFailure form={form} />
+      <label className="flex flex-col text-sm">
+        Closing comment
+        <textarea className={textClass} rows={2} {...form.register('comment')} />
+        <FieldMessage message={form.error('comment')} />
+      </label>
+      <FormButtons label="Clear with this comment" pending={action.isPending} onCancel={onDone} />
+    </form>
+  );
+}
+
 export function FlagCard({ flag, mayLead, timeZone }: { flag: FlagView; mayLead: boolean; timeZone: string }) {
   const stamp = (iso: string) => formatStationTime(iso, timeZone);
-  const action = useFlagAction();
   const [mode, setMode] = useState<'none' | 'assign' | 'clear'>('none');
-  const [text, setText] = useState('');
-  const [assignee, setAssignee] = useState('');
   const value = flag.lastValue !== null && flag.quantity ? displayQuantity(flag.lastValue, flag.quantity, defaultDisplayPreferences) : null;
-  const fieldError = action.error && 'fields' in action.error ? (action.error as { fields: Record<string, string> }).fields : {};
 
   return (
     <article className="rounded-lg border border-line bg-panel p-3" data-testid={`flag-${flag.id}`} aria-label={`Flag: ${flag.parameterLabel}`}>
@@ -53,45 +117,21 @@ export function FlagCard({ flag, mayLead, timeZone }: { flag: FlagView; mayLead:
           {flag.clearComment}
         </p>
       ) : null}
-      {action.error ? <Notice kind="error">{action.error.message}</Notice> : null}
       {mayLead && flag.status === 'open' ? (
         <div className="mt-2 flex flex-col gap-2">
           {mode === 'none' ? (
             <div className="flex gap-2">
-              <button type="button" className="rounded-md border border-line px-2 py-1 text-sm font-bold" onClick={() => setMode('assign')}>
+              <Button tone="plain" size="xs" className="text-sm" onClick={() => setMode('assign')}>
                 Assign follow-up
-              </button>
-              <button type="button" className="rounded-md border border-line px-2 py-1 text-sm font-bold" onClick={() => setMode('clear')}>
+              </Button>
+              <Button tone="plain" size="xs" className="text-sm" onClick={() => setMode('clear')}>
                 Clear flag
-              </button>
+              </Button>
             </div>
+          ) : mode === 'assign' ? (
+            <AssignForm flag={flag} onDone={() => setMode('none')} />
           ) : (
-            <form
-              className="flex flex-col gap-2"
-              onSubmit={(e) => {
-                e.preventDefault();
-                const done = { onSuccess: () => { setMode('none'); setText(''); } };
-                if (mode === 'assign') action.mutate({ kind: 'assign', id: flag.id, input: { assignedTo: Number(assignee), followUp: text, version: flag.version } }, done);
-                else action.mutate({ kind: 'clear', id: flag.id, input: { comment: text, version: flag.version } }, done);
-              }}
-            >
-              {mode === 'assign' ? (
-                <PersonSelect label="Who follows it up" value={assignee} onChange={setAssignee} error={fieldError.assignedTo} />
-              ) : null}
-              <label className="flex flex-col text-sm">
-                {mode === 'assign' ? 'What to do' : 'Closing comment'}
-                <textarea className="rounded-md border border-line bg-field p-2" rows={2} value={text} onChange={(e) => setText(e.target.value)} />
-                {fieldError.followUp || fieldError.comment ? <span className="text-alarm">⚠ {fieldError.followUp ?? fieldError.comment}</span> : null}
-              </label>
-              <div className="flex gap-2">
-                <button type="submit" className="rounded-md bg-accent px-3 py-1 font-bold text-on-accent" disabled={action.isPending}>
-                  {mode === 'assign' ? 'Assign' : 'Clear with this comment'}
-                </button>
-                <button type="button" className="rounded-md border border-line px-3 py-1" onClick={() => setMode('none')}>
-                  Cancel
-                </button>
-              </div>
-            </form>
+            <ClearForm flag={flag} onDone={() => setMode('none')} />
           )}
         </div>
       ) : null}

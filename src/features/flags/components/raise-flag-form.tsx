@@ -1,51 +1,53 @@
-import { useState } from 'react';
-import { checkCatalog, checkKeys, type CheckKey } from '../../../../shared/calc/check-catalog';
-import { Notice } from '../../../components/ui/notice';
-import { ApiError } from '../../../lib/api-client';
+import { checkCatalog, checkKeys } from '../../../../shared/calc/check-catalog';
+import { raiseFlagSchema } from '../../../../shared/schemas/flags';
+import { Button } from '../../../components/ui/button';
+import { FieldMessage, FormFailure, useSchemaForm } from '../../../components/form/schema-form';
 import { useFlagAction } from '../api/flags';
+
+const selectClass = 'rounded-md border border-line bg-field px-2 py-1';
 
 export function RaiseFlagForm({ unitId }: { unitId: number }) {
   const action = useFlagAction();
-  const [parameter, setParameter] = useState<CheckKey>('ttd');
-  const [severity, setSeverity] = useState<'watch' | 'alarm'>('watch');
-  const [comment, setComment] = useState('');
-  const fields = action.error instanceof ApiError ? action.error.fields : {};
+  const form = useSchemaForm(raiseFlagSchema, { defaultValues: { parameter: 'ttd', severity: 'watch', comment: '' } });
   return (
     <form
       aria-label="Raise a flag"
+      noValidate
       className="grid gap-3 rounded-lg border border-line bg-panel p-3 sm:grid-cols-3"
-      onSubmit={(e) => {
-        e.preventDefault();
-        action.mutate({ kind: 'raise', unitId, input: { parameter, severity, comment } }, { onSuccess: () => setComment('') });
-      }}
+      onSubmit={form.submit(async (input) => {
+        await action.mutateAsync({ kind: 'raise', unitId, input });
+        form.reset({ ...form.getValues(), comment: '' });
+      })}
     >
       <h2 className="font-bold sm:col-span-3">Raise a flag</h2>
-      {action.error ? <div className="sm:col-span-3"><Notice kind="error">{action.error.message}</Notice></div> : null}
+      <FormFailure form={form} className="sm:col-span-3" />
       <label className="flex flex-col text-sm">
         Parameter
-        <select className="rounded-md border border-line bg-field px-2 py-1" value={parameter} onChange={(e) => setParameter(e.target.value as CheckKey)}>
+        <select className={selectClass} {...form.register('parameter')}>
           {checkKeys.map((key) => (
             <option key={key} value={key}>
               {checkCatalog[key].label}
             </option>
           ))}
         </select>
+        <FieldMessage message={form.error('parameter')} />
       </label>
       <label className="flex flex-col text-sm">
         Severity
-        <select className="rounded-md border border-line bg-field px-2 py-1" value={severity} onChange={(e) => setSeverity(e.target.value as 'watch' | 'alarm')}>
+        <select className={selectClass} {...form.register('severity')}>
           <option value="watch">Watch</option>
           <option value="alarm">Alarm</option>
         </select>
+        <FieldMessage message={form.error('severity')} />
       </label>
       <label className="flex flex-col text-sm sm:col-span-3">
         Comment
-        <textarea className="rounded-md border border-line bg-field p-2" rows={2} value={comment} onChange={(e) => setComment(e.target.value)} />
-        {fields.comment ? <span role="alert" className="text-alarm">⚠ {fields.comment}</span> : null}
+        <textarea className="rounded-md border border-line bg-field p-2" rows={2} {...form.register('comment')} />
+        <FieldMessage message={form.error('comment')} />
       </label>
-      <button type="submit" className="rounded-md bg-accent px-3 py-2 font-bold text-on-accent sm:col-span-1" disabled={action.isPending}>
+      <Button type="submit" className="sm:col-span-1" disabled={action.isPending}>
         Raise flag
-      </button>
+      </Button>
     </form>
   );
 }

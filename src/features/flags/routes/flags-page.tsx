@@ -6,7 +6,7 @@ import { CautionNote, Notice } from '../../../components/ui/notice';
 import { FilterSelect } from '../../../components/ui/filter-select';
 import { ZoneNote } from '../../../components/station-time/zone-note';
 import { stationDayStart } from '../../../../shared/station-time';
-import { useMe } from '../../session/api/get-me';
+import { useMe } from '../../session';
 import { useFlags, type FlagFilters } from '../api/flags';
 import { FlagCard } from '../components/flag-card';
 import { RaiseFlagForm } from '../components/raise-flag-form';

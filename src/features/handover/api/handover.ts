@@ -3,6 +3,8 @@ import { useRef, useState } from 'react';
 import { invalidateForChange } from '../../../app/live-keys';
 import type { CondenserSnapshot } from '../../../../shared/shift-condenser';
 import { api } from '../../../lib/api-client';
+import type { z } from 'zod';
+import type { editHandoverItemSchema, handoverAmendmentSchema, newHandoverItemSchema } from '../../../../shared/schemas/handovers';
 
 export type BoardItem = {
   id: number;
@@ -79,15 +81,19 @@ export function useClientKey(): [string, () => void] {
   return [key, () => setKey(crypto.randomUUID())];
 }
 
+type NewItem = z.output<typeof newHandoverItemSchema>;
+type EditItem = z.output<typeof editHandoverItemSchema>;
+type Amendment = z.output<typeof handoverAmendmentSchema>;
+
 export type HandoverAction =
   | { kind: 'start' }
-  | { kind: 'item'; id: number; body: { kind: string; title: string; detail?: string; reference?: string; priority: string; clientKey: string } }
-  | { kind: 'edit-item'; itemId: number; body: { title?: string; detail?: string | null; priority?: string; version: number } }
+  | { kind: 'item'; id: number; body: NewItem }
+  | { kind: 'edit-item'; itemId: number; body: EditItem }
   | { kind: 'remove-item'; itemId: number }
   | { kind: 'submit' | 'accept'; id: number }
-  | { kind: 'amend'; id: number; body: { itemId?: number | null; reason: string; text: string; clientKey: string } }
+  | { kind: 'amend'; id: number; body: Amendment }
   | { kind: 'acknowledge'; itemId: number }
-  | { kind: 'ask'; itemId: number; question: string; clientKey: string }
+  | { kind: 'ask'; itemId: number; question: string; clientKey?: string | undefined }
   | { kind: 'answer'; queryId: number; answer: string };
 
 function send(unitId: number, a: HandoverAction) {
@@ -134,7 +140,12 @@ export function useHandoverAction(unitId: number) {
     busy.current = true;
     mutation.mutate(action, options);
   };
-  return { ...mutation, mutate };
+  const mutateAsync = async (action: HandoverAction) => {
+    if (busy.current) return undefined;
+    busy.current = true;
+    return mutation.mutateAsync(action);
+  };
+  return { ...mutation, mutate, mutateAsync };
 }
 
 export function useUploadAttachment(unitId: number) {

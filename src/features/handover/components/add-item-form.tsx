@@ -1,55 +1,46 @@
-import { useState } from 'react';
+import { newHandoverItemSchema } from '../../../../shared/schemas/handovers';
 import { Button } from '../../../components/ui/button';
-import { ApiError } from '../../../lib/api-client';
+import { FieldMessage, FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
 import { useClientKey, useHandoverAction } from '../api/handover';
 import { kindLabels } from './board-item';
 
 const field = 'rounded-md border border-line bg-field px-2 py-1';
 const writableKinds = ['equipment', 'work_in_progress', 'chemistry', 'follow_up'];
 
+type Values = { kind: string; priority: string; title: string; detail: string; reference: string };
+
 export function AddItemForm({ handoverId, unitId }: { handoverId: number; unitId: number }) {
   const action = useHandoverAction(unitId);
   const [clientKey, newClientKey] = useClientKey();
-  const [kind, setKind] = useState('follow_up');
-  const [title, setTitle] = useState('');
-  const [detail, setDetail] = useState('');
-  const [reference, setReference] = useState('');
-  const [priority, setPriority] = useState('normal');
-  const fields = action.error instanceof ApiError ? action.error.fields : {};
+  // The same key until it succeeds: a double click or a retry makes one item.
+  const schema = throughContract((v: Values) => ({ ...v, detail: v.detail || undefined, reference: v.reference || undefined, clientKey }), newHandoverItemSchema);
+  const form = useSchemaForm(schema, { defaultValues: { kind: 'follow_up', priority: 'normal', title: '', detail: '', reference: '' } });
   return (
     <form
       aria-label="Add a handover item"
+      noValidate
       className="grid gap-2 rounded-lg border border-line bg-panel p-3 text-sm sm:grid-cols-2"
-      onSubmit={(e) => {
-        e.preventDefault();
-        // The same key until it succeeds: a double click or a retry makes one item.
-        action.mutate(
-          { kind: 'item', id: handoverId, body: { kind, title, detail: detail || undefined, reference: reference || undefined, priority, clientKey } },
-          {
-            onSuccess: () => {
-              setTitle('');
-              setDetail('');
-              setReference('');
-              newClientKey();
-            },
-          },
-        );
-      }}
+      onSubmit={form.submit(async (body) => {
+        await action.mutateAsync({ kind: 'item', id: handoverId, body });
+        form.reset({ ...form.getValues(), title: '', detail: '', reference: '' });
+        newClientKey();
+      })}
     >
       <h3 className="font-bold sm:col-span-2">Add an item</h3>
       <label className="flex flex-col">
         Kind
-        <select className={field} value={kind} onChange={(e) => setKind(e.target.value)}>
+        <select className={field} {...form.register('kind')}>
           {writableKinds.map((k) => (
             <option key={k} value={k}>
               {kindLabels[k]}
             </option>
           ))}
         </select>
+        <FieldMessage message={form.error('kind')} />
       </label>
       <label className="flex flex-col">
         Priority
-        <select className={field} value={priority} onChange={(e) => setPriority(e.target.value)}>
+        <select className={field} {...form.register('priority')}>
           <option value="high">High</option>
           <option value="normal">Normal</option>
           <option value="low">Low</option>
@@ -57,21 +48,21 @@ export function AddItemForm({ handoverId, unitId }: { handoverId: number; unitId
       </label>
       <label className="flex flex-col sm:col-span-2">
         What
-        <input className={field} value={title} onChange={(e) => setTitle(e.target.value)} />
-        {fields.title ? <span role="alert" className="text-alarm">⚠ {fields.title}</span> : null}
+        <input className={field} {...form.register('title')} />
+        <FieldMessage message={form.error('title')} />
       </label>
       <label className="flex flex-col">
         Detail
-        <input className={field} value={detail} onChange={(e) => setDetail(e.target.value)} />
-        {fields.detail ? <span role="alert" className="text-alarm">⚠ {fields.detail}</span> : null}
+        <input className={field} {...form.register('detail')} />
+        <FieldMessage message={form.error('detail')} />
       </label>
       <label className="flex flex-col">
         Permit / isolation reference
-        <input className={field} value={reference} onChange={(e) => setReference(e.target.value)} />
-        {fields.reference ? <span role="alert" className="text-alarm">⚠ {fields.reference}</span> : null}
+        <input className={field} {...form.register('reference')} />
+        <FieldMessage message={form.error('reference')} />
       </label>
-      {action.error && !Object.keys(fields).length ? <p role="alert" className="font-bold text-alarm sm:col-span-2">⚠ {action.error.message}</p> : null}
-      <Button type="submit" className="px-3 py-1 sm:col-span-2" disabled={action.isPending}>
+      <FormFailure form={form} className="sm:col-span-2" />
+      <Button type="submit" size="sm" className="sm:col-span-2" disabled={action.isPending}>
         Add item
       </Button>
     </form>

@@ -1,7 +1,9 @@
 import { useState } from 'react';
 import { formatRemaining } from '../../../../shared/conditions';
 import { Button } from '../../../components/ui/button';
+import { answerSchema, attachmentReasonSchema, handoverAmendmentSchema, questionSchema } from '../../../../shared/schemas/handovers';
 import { ApiError } from '../../../lib/api-client';
+import { FieldMessage, FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
 import { useClientKey, useHandoverAction, useUploadAttachment, type Board, type BoardItem } from '../api/handover';
 import { ItemEditor } from './item-editor';
 
@@ -18,6 +20,118 @@ export const kindLabels: Record<string, string> = {
 const priorityLook = { high: '◆ High', normal: '● Normal', low: '○ Low' };
 const field = 'rounded-md border border-line bg-field px-2 py-1';
 
+/** A correction to a submitted item, with its reason: an amendment the incoming crew acknowledges again. */
+function AmendItemForm({ board, item }: { board: Board; item: BoardItem }) {
+  const action = useHandoverAction(board.handover.unitId);
+  const [clientKey, newClientKey] = useClientKey();
+  const schema = throughContract((v: { text: string; reason: string }) => ({ itemId: item.id, ...v, clientKey }), handoverAmendmentSchema);
+  const form = useSchemaForm(schema, { defaultValues: { text: '', reason: '' } });
+  return (
+    <form
+      aria-label={`Amend: ${item.title}`}
+      noValidate
+      className="mt-2 flex flex-wrap items-end gap-2 text-sm"
+      onSubmit={form.submit(async (body) => {
+        await action.mutateAsync({ kind: 'amend', id: board.handover.id, body });
+        form.reset();
+        newClientKey();
+      })}
+    >
+      <label className="flex flex-col">
+        Correction to this item
+        <input className={field} {...form.register('text')} />
+        <FieldMessage message={form.error('text')} />
+      </label>
+      <label className="flex flex-col">
+        Why
+        <input className={field} {...form.register('reason')} />
+        <FieldMessage message={form.error('reason')} />
+      </label>
+      <Button type="submit" tone="plain" size="sm" disabled={action.isPending}>
+        Amend this item
+      </Button>
+      <FormFailure form={form} className="w-full" />
+    </form>
+  );
+}
+
+/** A photo or PDF on an item; after submit it is an amendment and needs a reason, checked before the file is sent. */
+function AttachmentForm({ item, unitId, draft }: { item: BoardItem; unitId: number; draft: boolean }) {
+  const upload = useUploadAttachment(unitId);
+  const schema = throughContract((v: { reason: string }) => ({ reason: draft ? undefined : v.reason }), attachmentReasonSchema);
+  const form = useSchemaForm(schema, { defaultValues: { reason: '' }, placed: ['reason', 'file'] });
+  const send = (file: File) =>
+    form.submit(async ({ reason }) => {
+      await upload.mutateAsync({ itemId: item.id, file, reason });
+      form.reset();
+    })();
+  return (
+    <form aria-label={`Attach to: ${item.title}`} noValidate className="mt-2 flex flex-wrap items-end gap-2 text-sm" onSubmit={(e) => e.preventDefault()}>
+      {!draft ? (
+        <label className="flex flex-col">
+          Why the file is added now (an amendment)
+          <input className={field} {...form.register('reason')} />
+        </label>
+      ) : null}
+      <label className="flex flex-col">
+        Add a photo or PDF (max 10 MB)
+        <input
+          type="file"
+          accept="image/jpeg,image/png,image/webp,application/pdf"
+          disabled={upload.isPending}
+          onChange={(e) => {
+            const file = e.target.files?.[0];
+            if (file) void send(file);
+            e.target.value = '';
+          }}
+        />
+      </label>
+      <FieldMessage message={form.error('reason') ?? form.error('file')} className="block font-bold text-alarm" />
+      <FormFailure form={form} className="w-full" />
+    </form>
+  );
+}
+
+function AnswerForm({ queryId, unitId }: { queryId: number; unitId: number }) {
+  const action = useHandoverAction(unitId);
+  const form = useSchemaForm(answerSchema, { defaultValues: { answer: '' } });
+  return (
+    <form className="mt-1 flex flex-wrap gap-2" noValidate onSubmit={form.submit((v) => action.mutateAsync({ kind: 'answer', queryId, answer: v.answer }))}>
+      <input aria-label="Answer" className="flex-1 rounded-md border border-line bg-field px-2" {...form.register('answer')} />
+      <Button type="submit" tone="plain" size="xs" disabled={action.isPending}>
+        Answer
+      </Button>
+      <FieldMessage message={form.error('answer')} className="w-full font-bold text-alarm" />
+      <FormFailure form={form} className="w-full" />
+    </form>
+  );
+}
+
+function AskForm({ itemId, unitId }: { itemId: number; unitId: number }) {
+  const action = useHandoverAction(unitId);
+  const [clientKey, newClientKey] = useClientKey();
+  const schema = throughContract((v: { question: string }) => ({ question: v.question, clientKey }), questionSchema);
+  const form = useSchemaForm(schema, { defaultValues: { question: '' } });
+  return (
+    <form
+      className="flex flex-wrap gap-2"
+      noValidate
+      onSubmit={form.submit(async (v) => {
+        await action.mutateAsync({ kind: 'ask', itemId, ...v });
+        form.reset();
+        newClientKey();
+      })}
+    >
+      <input aria-label="Question" placeholder="Ask about this item" className="rounded-md border border-line bg-field px-2" {...form.register('question')} />
+      <Button type="submit" tone="plain" size="xs" disabled={action.isPending}>
+        Ask
+      </Button>
+      <FieldMessage message={form.error('question')} className="w-full font-bold text-alarm" />
+      <FormFailure form={form} className="w-full" />
+    </form>
+  );
+}
+
 type Props = {
   board: Board;
   item: BoardItem;
@@ -30,14 +144,7 @@ type Props = {
 export function BoardItemCard({ board, item, meId, may, stationTime }: Props) {
   const unitId = board.handover.unitId;
   const action = useHandoverAction(unitId);
-  const upload = useUploadAttachment(unitId);
-  const [askKey, newAskKey] = useClientKey();
-  const [question, setQuestion] = useState('');
-  const [answers, setAnswers] = useState<Record<number, string>>({});
   const [editing, setEditing] = useState(false);
-  const [fileReason, setFileReason] = useState('');
-  const [amendKey, newAmendKey] = useClientKey();
-  const [amendment, setAmendment] = useState({ text: '', reason: '' });
   const status = board.handover.status;
   const draft = status === 'draft';
   const mine = item.acknowledgedBy.some((a) => a.userId === meId);
@@ -45,7 +152,6 @@ export function BoardItemCard({ board, item, meId, may, stationTime }: Props) {
   const amendedAfterTurnover = status === 'accepted' && item.amendedAt !== null && board.handover.acceptedAt !== null && item.amendedAt > board.handover.acceptedAt;
   const mayAcknowledgeNow = may.acknowledge && !mine && (status === 'submitted' || amendedAfterTurnover);
   const amendments = board.amendments.filter((a) => a.itemId === item.id);
-  const uploadError = upload.error instanceof ApiError ? (upload.error.fields.reason ?? upload.error.fields.file ?? upload.error.message) : upload.error?.message;
   return (
     <article className={`rounded-lg border bg-panel p-3 ${item.priority === 'high' ? 'border-2 border-alarm' : 'border-line'}`} aria-label={`Item: ${item.title}`}>
       <header className="flex flex-wrap items-baseline gap-2">
@@ -88,12 +194,12 @@ export function BoardItemCard({ board, item, meId, may, stationTime }: Props) {
           <ItemEditor item={item} unitId={unitId} onDone={() => setEditing(false)} />
         ) : (
           <div className="mt-2 flex flex-wrap gap-2">
-            <Button tone="plain" className="px-3 py-1" onClick={() => setEditing(true)}>
+            <Button tone="plain" size="sm" onClick={() => setEditing(true)}>
               Edit
             </Button>
             <Button
               tone="danger"
-              className="px-3 py-1"
+              size="sm"
               disabled={action.isPending}
               onClick={() => {
                 if (window.confirm(`Take “${item.title}” off this handover?`)) action.mutate({ kind: 'remove-item', itemId: item.id });
@@ -105,65 +211,9 @@ export function BoardItemCard({ board, item, meId, may, stationTime }: Props) {
         )
       ) : null}
 
-      {may.write && !draft ? (
-        <form
-          aria-label={`Amend: ${item.title}`}
-          className="mt-2 flex flex-wrap items-end gap-2 text-sm"
-          onSubmit={(e) => {
-            e.preventDefault();
-            action.mutate(
-              { kind: 'amend', id: board.handover.id, body: { itemId: item.id, ...amendment, clientKey: amendKey } },
-              {
-                onSuccess: () => {
-                  setAmendment({ text: '', reason: '' });
-                  newAmendKey();
-                },
-              },
-            );
-          }}
-        >
-          <label className="flex flex-col">
-            Correction to this item
-            <input className={field} value={amendment.text} onChange={(e) => setAmendment({ ...amendment, text: e.target.value })} />
-          </label>
-          <label className="flex flex-col">
-            Why
-            <input className={field} value={amendment.reason} onChange={(e) => setAmendment({ ...amendment, reason: e.target.value })} />
-          </label>
-          <Button type="submit" tone="plain" className="px-3 py-1" disabled={action.isPending}>
-            Amend this item
-          </Button>
-        </form>
-      ) : null}
+      {may.write && !draft ? <AmendItemForm board={board} item={item} /> : null}
 
-      {may.write && item.attachments.length < 10 ? (
-        <div className="mt-2 flex flex-wrap items-end gap-2 text-sm">
-          {!draft ? (
-            <label className="flex flex-col">
-              Why the file is added now (an amendment)
-              <input className={field} value={fileReason} onChange={(e) => setFileReason(e.target.value)} />
-            </label>
-          ) : null}
-          <label className="flex flex-col">
-            Add a photo or PDF (max 10 MB)
-            <input
-              type="file"
-              accept="image/jpeg,image/png,image/webp,application/pdf"
-              disabled={upload.isPending}
-              onChange={(e) => {
-                const file = e.target.files?.[0];
-                if (file) upload.mutate({ itemId: item.id, file, reason: draft ? undefined : fileReason }, { onSuccess: () => setFileReason('') });
-                e.target.value = '';
-              }}
-            />
-          </label>
-          {uploadError ? (
-            <span role="alert" className="block font-bold text-alarm">
-              ⚠ {uploadError}
-            </span>
-          ) : null}
-        </div>
-      ) : null}
+      {may.write && item.attachments.length < 10 ? <AttachmentForm item={item} unitId={unitId} draft={draft} /> : null}
 
       <p className="mt-1 text-sm">
         {item.acknowledgedBy.map((a) => (
@@ -183,18 +233,7 @@ export function BoardItemCard({ board, item, meId, may, stationTime }: Props) {
               <strong>↳ {q.answeredBy}:</strong> {q.answer}
             </p>
           ) : may.write ? (
-            <form
-              className="mt-1 flex gap-2"
-              onSubmit={(e) => {
-                e.preventDefault();
-                action.mutate({ kind: 'answer', queryId: q.id, answer: answers[q.id] ?? '' });
-              }}
-            >
-              <input aria-label="Answer" className="flex-1 rounded-md border border-line bg-field px-2" value={answers[q.id] ?? ''} onChange={(e) => setAnswers({ ...answers, [q.id]: e.target.value })} />
-              <Button type="submit" tone="plain" className="px-2 py-1" disabled={action.isPending}>
-                Answer
-              </Button>
-            </form>
+            <AnswerForm queryId={q.id} unitId={unitId} />
           ) : (
             <p className="font-bold text-watch">▲ open question</p>
           )}
@@ -203,24 +242,11 @@ export function BoardItemCard({ board, item, meId, may, stationTime }: Props) {
       {may.acknowledge && (status === 'submitted' || mayAcknowledgeNow) ? (
         <div className="mt-2 flex flex-wrap gap-2">
           {mayAcknowledgeNow ? (
-            <Button className="px-3 py-1" disabled={action.isPending} onClick={() => action.mutate({ kind: 'acknowledge', itemId: item.id })}>
+            <Button size="sm" disabled={action.isPending} onClick={() => action.mutate({ kind: 'acknowledge', itemId: item.id })}>
               {mustAgain ? 'Acknowledge the amended item' : 'Acknowledge'}
             </Button>
           ) : null}
-          {status === 'submitted' ? (
-            <form
-              className="flex gap-2"
-              onSubmit={(e) => {
-                e.preventDefault();
-                action.mutate({ kind: 'ask', itemId: item.id, question, clientKey: askKey }, { onSuccess: () => { setQuestion(''); newAskKey(); } });
-              }}
-            >
-              <input aria-label="Question" placeholder="Ask about this item" className="rounded-md border border-line bg-field px-2" value={question} onChange={(e) => setQuestion(e.target.value)} />
-              <Button type="submit" tone="plain" className="px-2 py-1" disabled={action.isPending}>
-                Ask
-              </Button>
-            </form>
-          ) : null}
+          {status === 'submitted' ? <AskForm itemId={item.id} unitId={unitId} /> : null}
         </div>
       ) : null}
       {action.error ? (

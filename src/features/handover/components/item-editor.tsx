@@ -1,55 +1,59 @@
-import { useState } from 'react';
+import { editHandoverItemSchema } from '../../../../shared/schemas/handovers';
 import { Button } from '../../../components/ui/button';
-import { ApiError } from '../../../lib/api-client';
+import { FieldMessage, FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
 import { useHandoverAction, type BoardItem } from '../api/handover';
 
 const field = 'rounded-md border border-line bg-field px-2 py-1';
 
+type Values = { title: string; detail: string; priority: BoardItem['priority'] };
+
 /** Edits a draft item. An automatic item keeps its source's title and priority; only its detail is the crew's. */
 export function ItemEditor({ item, unitId, onDone }: { item: BoardItem; unitId: number; onDone: () => void }) {
   const action = useHandoverAction(unitId);
-  const [title, setTitle] = useState(item.title);
-  const [detail, setDetail] = useState(item.detail ?? '');
-  const [priority, setPriority] = useState(item.priority);
-  const fields = action.error instanceof ApiError ? action.error.fields : {};
+  const schema = throughContract(
+    (v: Values) => (item.automatic ? { detail: v.detail || null, version: item.version } : { title: v.title, detail: v.detail || null, priority: v.priority, version: item.version }),
+    editHandoverItemSchema,
+  );
+  const form = useSchemaForm(schema, { defaultValues: { title: item.title, detail: item.detail ?? '', priority: item.priority } });
   return (
     <form
       aria-label={`Edit: ${item.title}`}
+      noValidate
       className="mt-2 grid gap-2 text-sm sm:grid-cols-2"
-      onSubmit={(e) => {
-        e.preventDefault();
-        const body = item.automatic ? { detail: detail || null, version: item.version } : { title, detail: detail || null, priority, version: item.version };
-        action.mutate({ kind: 'edit-item', itemId: item.id, body }, { onSuccess: onDone });
-      }}
+      onSubmit={form.submit(async (body) => {
+        await action.mutateAsync({ kind: 'edit-item', itemId: item.id, body });
+        onDone();
+      })}
     >
       {!item.automatic ? (
         <>
           <label className="flex flex-col sm:col-span-2">
             What
-            <input className={field} value={title} onChange={(e) => setTitle(e.target.value)} />
-            {fields.title ? <span role="alert" className="text-alarm">⚠ {fields.title}</span> : null}
+            <input className={field} {...form.register('title')} />
+            <FieldMessage message={form.error('title')} />
           </label>
           <label className="flex flex-col">
             Priority
-            <select className={field} value={priority} onChange={(e) => setPriority(e.target.value as BoardItem['priority'])}>
+            <select className={field} {...form.register('priority')}>
               <option value="high">High</option>
               <option value="normal">Normal</option>
               <option value="low">Low</option>
             </select>
+            <FieldMessage message={form.error('priority')} />
           </label>
         </>
       ) : null}
       <label className="flex flex-col">
         Detail
-        <input className={field} value={detail} onChange={(e) => setDetail(e.target.value)} />
-        {fields.detail ? <span role="alert" className="text-alarm">⚠ {fields.detail}</span> : null}
+        <input className={field} {...form.register('detail')} />
+        <FieldMessage message={form.error('detail')} />
       </label>
-      {action.error && !Object.keys(fields).length ? <p role="alert" className="font-bold text-alarm sm:col-span-2">⚠ {action.error.message}</p> : null}
+      <FormFailure form={form} className="sm:col-span-2" />
       <div className="flex gap-2 sm:col-span-2">
-        <Button type="submit" className="px-3 py-1" disabled={action.isPending}>
+        <Button type="submit" size="sm" disabled={action.isPending}>
           Save the item
         </Button>
-        <Button tone="plain" className="px-3 py-1" onClick={onDone}>
+        <Button tone="plain" size="sm" onClick={onDone}>
           Cancel
         </Button>
       </div>

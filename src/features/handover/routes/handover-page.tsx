@@ -1,4 +1,3 @@
-import { useState } from 'react';
 import { Link } from 'react-router';
 import { mayAccept, mayAcknowledge, mayWriteHandover, withinWindow } from '../../../../shared/policies/handover';
 import { formatStationTime } from '../../../../shared/station-time';
@@ -8,7 +7,9 @@ import { Notice } from '../../../components/ui/notice';
 import { useBoardPresence, useWatchUnit } from '../../../app/use-live-updates';
 import { useCrews } from '../../../components/plant/crews';
 import { ApiError } from '../../../lib/api-client';
-import { useMe } from '../../session/api/get-me';
+import { handoverAmendmentSchema } from '../../../../shared/schemas/handovers';
+import { FieldMessage, FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
+import { useMe } from '../../session';
 import { useClientKey, useCurrentHandover, useHandoverAction, type ShiftChange } from '../api/handover';
 import { AddItemForm } from '../components/add-item-form';
 import { BoardItemCard } from '../components/board-item';
@@ -25,8 +26,6 @@ export function HandoverPage() {
   const current = useCurrentHandover(unitId);
   const crews = useCrews();
   const action = useHandoverAction(unitId ?? 0);
-  const [amend, setAmend] = useState({ reason: '', text: '' });
-  const [amendKey, newAmendKey] = useClientKey();
   const crewName = (id: number | null) => (id ? `Crew ${crews.data?.find((c) => c.id === id)?.name ?? id}` : 'no crew set');
   const change = current.data?.shiftChange;
   const board = current.data?.board;
@@ -113,32 +112,7 @@ export function HandoverPage() {
               {actionError ? <Notice kind="error">{actionError}</Notice> : null}
             </>
           ) : null}
-          {may.write && h.status !== 'draft' ? (
-            <form
-              aria-label="Amend the handover"
-              className="flex flex-col gap-2 rounded-lg border border-line bg-panel p-3 text-sm"
-              onSubmit={(e) => {
-                e.preventDefault();
-                action.mutate(
-                  { kind: 'amend', id: h.id, body: { ...amend, clientKey: amendKey } },
-                  {
-                    onSuccess: () => {
-                      setAmend({ reason: '', text: '' });
-                      newAmendKey();
-                    },
-                  },
-                );
-              }}
-            >
-              <h3 className="font-bold">Amend the handover as a whole (the handover is read-only once submitted; amend an item on the item)</h3>
-              <input aria-label="Amendment" placeholder="What to add or correct" className="rounded-md border border-line bg-field px-2 py-1" value={amend.text} onChange={(e) => setAmend({ ...amend, text: e.target.value })} />
-              <input aria-label="Reason" placeholder="Why" className="rounded-md border border-line bg-field px-2 py-1" value={amend.reason} onChange={(e) => setAmend({ ...amend, reason: e.target.value })} />
-              <Button type="submit" tone="plain" className="self-start px-3 py-1" disabled={action.isPending}>
-                Add amendment
-              </Button>
-              {actionError ? <Notice kind="error">{actionError}</Notice> : null}
-            </form>
-          ) : null}
+          {may.write && h.status !== 'draft' ? <AmendHandoverForm handoverId={h.id} unitId={h.unitId} /> : null}
           {board.amendments
             .filter((a) => a.itemId === null)
             .map((a) => (
@@ -158,6 +132,37 @@ export function HandoverPage() {
         </>
       ) : null}
     </section>
+  );
+}
+
+/** An amendment to the submitted handover as a whole, with its reason. */
+function AmendHandoverForm({ handoverId, unitId }: { handoverId: number; unitId: number }) {
+  const action = useHandoverAction(unitId);
+  const [clientKey, newClientKey] = useClientKey();
+  const schema = throughContract((v: { text: string; reason: string }) => ({ ...v, clientKey }), handoverAmendmentSchema);
+  const form = useSchemaForm(schema, { defaultValues: { text: '', reason: '' } });
+  const input = 'rounded-md border border-line bg-field px-2 py-1';
+  return (
+    <form
+      aria-label="Amend the handover"
+      noValidate
+      className="flex flex-col gap-2 rounded-lg border border-line bg-panel p-3 text-sm"
+      onSubmit={form.submit(async (body) => {
+        await action.mutateAsync({ kind: 'amend', id: handoverId, body });
+        form.reset();
+        newClientKey();
+      })}
+    >
+      <h3 className="font-bold">Amend the handover as a whole (the handover is read-only once submitted; amend an item on the item)</h3>
+      <input aria-label="Amendment" placeholder="What to add or correct" className={input} {...form.register('text')} />
+      <FieldMessage message={form.error('text')} />
+      <input aria-label="Reason" placeholder="Why" className={input} {...form.register('reason')} />
+      <FieldMessage message={form.error('reason')} />
+      <Button type="submit" tone="plain" size="sm" className="self-start" disabled={action.isPending}>
+        Add amendment
+      </Button>
+      <FormFailure form={form} />
+    </form>
   );
 }
 

@@ -4,6 +4,7 @@ import { ShiftCondenserPanel } from '../../../components/condenser/shift-condens
 import { useHandover } from '../api/handover';
 import { useHandoverHeader, type HandoverHeader } from '../api/get-handover-header';
 import { kindLabels } from '../components/board-item';
+import { Button } from '../../../components/ui/button';
 
 const roleWords: Record<string, string> = { shift_lead: 'shift lead', operator: 'operator', trainee: 'trainee' };
 const crewLine = (crew: HandoverHeader['outgoingCrew']) =>
@@ -86,9 +87,9 @@ export function HandoverPrintPage() {
         </tbody>
       </table>
       <p className="mt-2 text-xs">All times are station time ({head.timeZone}).</p>
-      <button type="button" className="no-print mt-4 rounded-md border border-black px-3 py-1" onClick={() => window.print()}>
+      <Button tone="plain" size="sm" className="no-print mt-4" onClick={() => window.print()}>
         Print
-      </button>
+      </Button>
     </article>
   );
 }

@@ -1,5 +1,7 @@
 import { useState } from 'react';
-import { importFields, type ImportField, type ImportMapping } from '../../../../shared/schemas/imports';
+import { useWatch } from 'react-hook-form';
+import { importFields, importMappingSchema, type ImportField, type ImportMapping } from '../../../../shared/schemas/imports';
+import { FieldMessage, FormFailure, useSchemaForm } from '../../../components/form/schema-form';
 import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-picker';
 import { Button } from '../../../components/ui/button';
 import { CautionNote, Notice } from '../../../components/ui/notice';
@@ -27,7 +29,8 @@ export function ImportPage() {
   const preview = usePreview(unitId);
   const commit = useCommitImport(unitId);
   const [file, setFile] = useState<File | null>(null);
-  const [mapping, setMapping] = useState<ImportMapping>({ source: '', timeColumn: '', columns: {} });
+  const form = useSchemaForm(importMappingSchema, { defaultValues: { source: '', timeColumn: '', columns: {} } });
+  const mapping = useWatch({ control: form.control }) as ImportMapping;
   const headers = inspect.data?.headers ?? [];
 
   const chooseFile = (chosen: File | null) => {
@@ -39,17 +42,16 @@ export function ImportPage() {
       onSuccess: (data) => {
         // Start from the last mapping used for this unit whose columns the file has.
         const fit = remembered.data?.find((m) => data.headers.includes(m.mapping.timeColumn));
-        if (fit) setMapping(fit.mapping);
+        if (fit) form.reset(fit.mapping);
       },
     });
   };
-  const setColumn = (field: ImportField, column: string, unit?: string) =>
-    setMapping((m) => {
-      const columns = { ...m.columns };
-      if (!column) delete columns[field];
-      else columns[field] = { column, unit: unit ?? columns[field]?.unit ?? importFields[field].units[0] };
-      return { ...m, columns };
-    });
+  const setColumn = (field: ImportField, column: string, unit?: string) => {
+    const columns = { ...form.getValues('columns') };
+    if (!column) delete columns[field];
+    else columns[field] = { column, unit: unit ?? columns[field]?.unit ?? importFields[field].units[0] };
+    form.setValue('columns', columns, { shouldDirty: true, shouldValidate: form.formState.isSubmitted });
+  };
 
   return (
     <section className="flex flex-col gap-4">
@@ -70,25 +72,27 @@ export function ImportPage() {
         <form
           aria-label="Map the columns"
           className="flex flex-col gap-3 rounded-lg border border-line bg-panel p-3"
-          onSubmit={(e) => {
-            e.preventDefault();
-            if (file) preview.mutate({ file, mapping });
-          }}
+          noValidate
+          onSubmit={form.submit(async (checked) => {
+            if (file) await preview.mutateAsync({ file, mapping: checked });
+          })}
         >
           <h2 className="font-bold">2 · Map the columns ({inspect.data.rowCount} rows)</h2>
           <div className="grid gap-3 sm:grid-cols-2">
             <label className="flex flex-col text-sm">
               Source name (remembered with this mapping)
-              <input className={selectClass} value={mapping.source} onChange={(e) => setMapping({ ...mapping, source: e.target.value })} />
+              <input className={selectClass} {...form.register('source')} />
+              <FieldMessage message={form.error('source')} />
             </label>
             <label className="flex flex-col text-sm">
               Time column (ISO 8601; without an offset read as station time{unit ? `, ${unit.timeZone}` : ''})
-              <select className={selectClass} value={mapping.timeColumn} onChange={(e) => setMapping({ ...mapping, timeColumn: e.target.value })}>
+              <select className={selectClass} {...form.register('timeColumn')}>
                 <option value="">Choose…</option>
                 {headers.map((h) => (
                   <option key={h}>{h}</option>
                 ))}
               </select>
+              <FieldMessage message={form.error('timeColumn')} />
             </label>
           </div>
           <table className="text-sm">
@@ -104,20 +108,21 @@ export function ImportPage() {
                 <tr key={field}>
                   <td className="pr-2">{importFields[field].label}</td>
                   <td className="pr-2">
-                    <select aria-label={`Column for ${importFields[field].label}`} className={selectClass} value={mapping.columns[field]?.column ?? ''} onChange={(e) => setColumn(field, e.target.value)}>
+                    <select aria-label={`Column for ${importFields[field].label}`} className={selectClass} value={mapping.columns?.[field]?.column ?? ''} onChange={(e) => setColumn(field, e.target.value)}>
                       <option value="">— not in file —</option>
                       {headers.map((h) => (
                         <option key={h}>{h}</option>
                       ))}
                     </select>
+                    <FieldMessage message={form.error(`columns.${field}`)} className="block text-alarm" />
                   </td>
                   <td>
                     <select
                       aria-label={`Unit for ${importFields[field].label}`}
                       className={selectClass}
-                      disabled={!mapping.columns[field]}
-                      value={mapping.columns[field]?.unit ?? importFields[field].units[0]}
-                      onChange={(e) => setColumn(field, mapping.columns[field]!.column, e.target.value)}
+                      disabled={!mapping.columns?.[field]}
+                      value={mapping.columns?.[field]?.unit ?? importFields[field].units[0]}
+                      onChange={(e) => setColumn(field, mapping.columns![field]!.column, e.target.value)}
                     >
                       {importFields[field].units.map((u) => (
                         <option key={u}>{u}</option>
@@ -128,12 +133,12 @@ export function ImportPage() {
               ))}
             </tbody>
           </table>
+          <FormFailure form={form} />
           <Button type="submit" tone="plain" disabled={preview.isPending}>
             3 · Check every row
           </Button>
         </form>
       ) : null}
-      {preview.error ? <Notice kind="error">{errorText(preview.error)}</Notice> : null}
       {preview.data ? (
         <div className="flex flex-col gap-3">
           <Notice kind="info">

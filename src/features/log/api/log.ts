@@ -1,7 +1,10 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { NewLogEntry, StationSettings } from '../../../../shared/schemas/log';
+import type { z } from 'zod';
+import type { NewLogEntry, StationSettings, newConditionSchema } from '../../../../shared/schemas/log';
 import { api } from '../../../lib/api-client';
-import { setupKeys } from '../../plant/api/setup';
+import { setupKeys } from '../../plant';
+
+type NewCondition = z.output<typeof newConditionSchema>;
 
 export type LogEntryView = {
   id: number;
@@ -88,13 +91,13 @@ export const useAddEntry = (unitId: number) => useInvalidating((entry: NewLogEnt
 export const useAmendEntry = () => useInvalidating((a: { id: number; reason: string; text: string }) => api.post(`/api/log/${a.id}/amendments`, { reason: a.reason, text: a.text }));
 export const useSignReview = (unitId: number) => useInvalidating((r: { position: string; shiftStart: string }) => api.post(`/api/units/${unitId}/log/reviews`, r));
 export const useOpenCondition = (unitId: number) =>
-  useInvalidating((c: { title: string; requiredAction: string; startedAt: string; limitHours: number; ownerId: number }) => api.post(`/api/units/${unitId}/conditions`, c));
+  useInvalidating((c: NewCondition) => api.post(`/api/units/${unitId}/conditions`, c));
 export const useCloseCondition = () =>
   useInvalidating((c: { id: number; text: string; position: string; version: number }) => api.post(`/api/conditions/${c.id}/close`, { text: c.text, position: c.position, version: c.version }));
 
 export const useEquipment = (unitId: number | null) =>
   useQuery({
-    queryKey: [...setupKeys.unit(unitId ?? 0), 'equipment'],
+    queryKey: setupKeys.equipment(unitId ?? 0),
     queryFn: async () => (await api.get<{ equipment: { id: number; tag: string; name: string }[] }>(`/api/plant/units/${unitId}/setup`)).equipment,
     enabled: unitId !== null,
     staleTime: 5 * 60_000,

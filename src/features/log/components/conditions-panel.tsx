@@ -1,7 +1,10 @@
 import { useEffect, useState } from 'react';
 import { formatRemaining } from '../../../../shared/conditions';
 import { StatusBadge } from '../../../components/ui/status-badge';
-import { ApiError } from '../../../lib/api-client';
+import { useWatch } from 'react-hook-form';
+import { closeConditionSchema, newConditionSchema } from '../../../../shared/schemas/log';
+import { Button } from '../../../components/ui/button';
+import { FieldMessage, FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
 import { PersonSelect } from '../../../components/people/person-select';
 import { useCloseCondition, useConditions, useOpenCondition, type ConditionView } from '../api/log';
 
@@ -26,59 +29,62 @@ function Countdown({ condition }: { condition: ConditionView }) {
 
 function CloseForm({ condition, position }: { condition: ConditionView; position: string }) {
   const close = useCloseCondition();
-  const [text, setText] = useState('');
+  const schema = throughContract((v: { text: string }) => ({ text: v.text, position, version: condition.version }), closeConditionSchema);
+  const form = useSchemaForm(schema, { defaultValues: { text: '' } });
   return (
-    <form
-      aria-label={`Close ${condition.title}`}
-      className="mt-1 flex gap-2 text-sm"
-      onSubmit={(e) => {
-        e.preventDefault();
-        close.mutate({ id: condition.id, text, position, version: condition.version });
-      }}
-    >
-      <input aria-label="Closing entry" placeholder="Closing entry: what was done" className="flex-1 rounded-md border border-line bg-field px-2 py-1" value={text} onChange={(e) => setText(e.target.value)} />
-      <button type="submit" className="rounded-md border border-line px-2 font-bold">
+    <form aria-label={`Close ${condition.title}`} noValidate className="mt-1 flex gap-2 text-sm" onSubmit={form.submit((input) => close.mutateAsync({ id: condition.id, ...input }))}>
+      <input aria-label="Closing entry" placeholder="Closing entry: what was done" className="flex-1 rounded-md border border-line bg-field px-2 py-1" {...form.register('text')} />
+      <Button type="submit" tone="plain" size="xs">
         Close
-      </button>
-      {close.error ? <span role="alert" className="text-alarm">⚠ {close.error.message}</span> : null}
+      </Button>
+      <FieldMessage message={form.error('text')} />
+      <FormFailure form={form} />
     </form>
   );
 }
 
+type OpenValues = { title: string; requiredAction: string; hours: string; ownerId: string };
+
 function OpenForm({ unitId }: { unitId: number }) {
   const open = useOpenCondition(unitId);
-  const [title, setTitle] = useState('');
-  const [action, setAction] = useState('');
-  const [hours, setHours] = useState('72');
-  const [owner, setOwner] = useState('');
-  const fields = open.error instanceof ApiError ? open.error.fields : {};
+  // The deadline counts from the moment it is opened; the hours are typed, the contract takes a number.
+  const schema = throughContract(
+    (v: OpenValues) => ({ title: v.title, requiredAction: v.requiredAction, startedAt: new Date().toISOString(), limitHours: Number(v.hours.replace(',', '.')), ownerId: Number(v.ownerId) }),
+    newConditionSchema,
+    (path) => (path === 'limitHours' ? 'hours' : undefined),
+  );
+  const form = useSchemaForm(schema, { defaultValues: { title: '', requiredAction: '', hours: '72', ownerId: '' } });
+  const owner = useWatch({ control: form.control, name: 'ownerId' });
   return (
     <form
       aria-label="Open a time-limited condition"
+      noValidate
       className="grid gap-2 border-t border-line pt-2 text-sm sm:grid-cols-2"
-      onSubmit={(e) => {
-        e.preventDefault();
-        open.mutate({ title, requiredAction: action, startedAt: new Date().toISOString(), limitHours: Number(hours), ownerId: Number(owner) }, { onSuccess: () => { setTitle(''); setAction(''); } });
-      }}
+      onSubmit={form.submit(async (condition) => {
+        await open.mutateAsync(condition);
+        form.reset({ ...form.getValues(), title: '', requiredAction: '' });
+      })}
     >
       <label className="flex flex-col">
         Condition
-        <input className="rounded-md border border-line bg-field px-2 py-1" value={title} onChange={(e) => setTitle(e.target.value)} />
-        {fields.title ? <span className="text-alarm">⚠ {fields.title}</span> : null}
+        <input className="rounded-md border border-line bg-field px-2 py-1" {...form.register('title')} />
+        <FieldMessage message={form.error('title')} />
       </label>
       <label className="flex flex-col">
         Required action
-        <input className="rounded-md border border-line bg-field px-2 py-1" value={action} onChange={(e) => setAction(e.target.value)} />
-        {fields.requiredAction ? <span className="text-alarm">⚠ {fields.requiredAction}</span> : null}
+        <input className="rounded-md border border-line bg-field px-2 py-1" {...form.register('requiredAction')} />
+        <FieldMessage message={form.error('requiredAction')} />
       </label>
       <label className="flex flex-col">
         Time allowed (hours from now)
-        <input inputMode="decimal" className="rounded-md border border-line bg-field px-2 py-1" value={hours} onChange={(e) => setHours(e.target.value)} />
+        <input inputMode="decimal" className="rounded-md border border-line bg-field px-2 py-1" {...form.register('hours')} />
+        <FieldMessage message={form.error('hours')} />
       </label>
-      <PersonSelect label="Owner" value={owner} onChange={setOwner} error={fields.ownerId} />
-      <button type="submit" className="rounded-md bg-accent px-3 py-1 font-bold text-on-accent sm:col-span-2">
+      <PersonSelect label="Owner" value={owner} onChange={(id) => form.setValue('ownerId', id, { shouldDirty: true })} error={form.error('ownerId')} />
+      <FormFailure form={form} className="sm:col-span-2" />
+      <Button type="submit" size="sm" className="sm:col-span-2">
         Open condition
-      </button>
+      </Button>
     </form>
   );
 }

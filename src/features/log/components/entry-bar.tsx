@@ -1,58 +1,45 @@
-import { useState } from 'react';
-import type { StationSettings } from '../../../../shared/schemas/log';
-import { ApiError } from '../../../lib/api-client';
-import { FormErrorSummary } from '../../../components/ui/form-error-summary';
-import { StationTimeInput, readStationTime, useStationTimeField } from '../../../components/station-time/station-time-input';
+import { useWatch } from 'react-hook-form';
+import { newLogEntrySchema, type StationSettings } from '../../../../shared/schemas/log';
+import { Button } from '../../../components/ui/button';
+import { FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
+import { emptyStationTime, StationTimeInput, stationTimeToWire, useStationTimeFormField, type StationTimeValue } from '../../../components/station-time/station-time-input';
 import { useAddEntry, useEquipment } from '../api/log';
 
 const field = 'rounded-md border border-line bg-field px-2 py-1';
+
+type Values = { text: string; category: string; eventAt: StationTimeValue; equipmentId: string; carryToHandover: boolean };
 
 /** One line, keyboard only: type, Enter. Category, time and links are optional extras. */
 export function EntryBar({ unitId, settings, position }: { unitId: number; settings: StationSettings; position: string }) {
   const add = useAddEntry(unitId);
   const equipment = useEquipment(unitId);
-  const [text, setText] = useState('');
-  const [category, setCategory] = useState(settings.categories[0]?.key ?? 'other');
-  const eventAt = useStationTimeField();
-  const [equipmentId, setEquipmentId] = useState('');
-  const [carry, setCarry] = useState(false);
-  // An empty entry is said so beside the box, not silently ignored.
-  const [missing, setMissing] = useState(false);
-  const fields = add.error instanceof ApiError ? add.error.fields : {};
-  const textError = missing ? 'Entry text is missing: write what happened' : fields.text;
+  const schema = throughContract(
+    (v: Values, fail) => {
+      // An empty entry is said so beside the box in the words of this bar, not silently ignored.
+      if (!v.text.trim()) fail('text', 'Entry text is missing: write what happened');
+      const eventAt = stationTimeToWire(v.eventAt, settings.timeZone, fail, 'eventAt');
+      return { position, category: v.category, text: v.text.trim(), ...(eventAt ? { eventAt } : {}), equipmentId: v.equipmentId ? Number(v.equipmentId) : null, carryToHandover: v.carryToHandover };
+    },
+    newLogEntrySchema,
+  );
+  const form = useSchemaForm(schema, {
+    defaultValues: { text: '', category: settings.categories[0]?.key ?? 'other', eventAt: emptyStationTime, equipmentId: '', carryToHandover: false },
+  });
+  const eventAt = useStationTimeFormField(form, 'eventAt');
+  const equipmentId = useWatch({ control: form.control, name: 'equipmentId' });
+  const textError = form.error('text');
   const tag = equipment.data?.find((e) => String(e.id) === equipmentId)?.tag;
-
-  const submit = () => {
-    const typed = readStationTime(eventAt, settings.timeZone);
-    setMissing(!text.trim());
-    if (!text.trim() || !typed.ok) return;
-    add.mutate(
-      {
-        position,
-        category,
-        text: text.trim(),
-        ...(typed.at ? { eventAt: typed.at.toISOString() } : {}),
-        equipmentId: equipmentId ? Number(equipmentId) : null,
-        carryToHandover: carry,
-      },
-      {
-        onSuccess: () => {
-          setText('');
-          eventAt.reset();
-          setCarry(false);
-        },
-      },
-    );
-  };
+  const onSubmit = form.submit(async (entry) => {
+    await add.mutateAsync(entry);
+    form.reset({ ...form.getValues(), text: '', eventAt: emptyStationTime, carryToHandover: false });
+  });
 
   return (
     <form
       aria-label="New log entry"
       className="flex flex-col gap-2 rounded-lg border-2 border-accent bg-panel p-3"
-      onSubmit={(e) => {
-        e.preventDefault();
-        submit();
-      }}
+      noValidate
+      onSubmit={onSubmit}
     >
       <div className="flex flex-wrap gap-2">
         <input
@@ -61,16 +48,12 @@ export function EntryBar({ unitId, settings, position }: { unitId: number; setti
           aria-describedby={textError ? 'entry-text-error' : undefined}
           className={`${field} min-w-0 flex-1 text-lg aria-[invalid=true]:border-alarm`}
           placeholder="What happened? Enter saves."
-          value={text}
-          onChange={(e) => {
-            setText(e.target.value);
-            if (e.target.value.trim()) setMissing(false);
-          }}
           maxLength={4000}
+          {...form.register('text')}
         />
-        <button type="submit" className="rounded-md bg-accent px-4 py-1 font-bold text-on-accent" disabled={add.isPending}>
+        <Button type="submit" size="sm" disabled={add.isPending}>
           Log it
-        </button>
+        </Button>
       </div>
       {textError ? (
         <p id="entry-text-error" role="alert" className="text-sm font-bold text-alarm">
@@ -80,7 +63,7 @@ export function EntryBar({ unitId, settings, position }: { unitId: number; setti
       <div className="flex flex-wrap items-start gap-2 text-sm">
         <label className="flex flex-col">
           Category
-          <select className={field} value={category} onChange={(e) => setCategory(e.target.value)}>
+          <select className={field} {...form.register('category')}>
             {settings.categories.map((c) => (
               <option key={c.key} value={c.key}>
                 {c.label}
@@ -88,10 +71,10 @@ export function EntryBar({ unitId, settings, position }: { unitId: number; setti
             ))}
           </select>
         </label>
-        <StationTimeInput label="Event time (empty = now)" field={eventAt} timeZone={settings.timeZone} error={fields.eventAt} />
+        <StationTimeInput label="Event time (empty = now)" field={eventAt} timeZone={settings.timeZone} error={form.error('eventAt')} />
         <label className="flex flex-col">
           Equipment
-          <select className={field} value={equipmentId} onChange={(e) => setEquipmentId(e.target.value)}>
+          <select className={field} {...form.register('equipmentId')}>
             <option value="">—</option>
             {equipment.data?.map((e) => (
               <option key={e.id} value={e.id}>
@@ -101,25 +84,24 @@ export function EntryBar({ unitId, settings, position }: { unitId: number; setti
           </select>
         </label>
         <label className="flex items-center gap-1">
-          <input type="checkbox" checked={carry} onChange={(e) => setCarry(e.target.checked)} /> Carry to handover
+          <input type="checkbox" {...form.register('carryToHandover')} /> Carry to handover
         </label>
       </div>
       <div className="flex flex-wrap gap-1 text-sm" aria-label="Templates">
         {settings.templates.map((t) => (
-          <button
+          <Button
             key={t.label}
-            type="button"
-            className="rounded-full border border-line px-2 py-0.5"
+            tone="chip"
             onClick={() => {
-              setText(t.text.replace('{equipment}', tag ?? '…'));
-              setCategory(t.category);
+              form.setValue('text', t.text.replace('{equipment}', tag ?? '…'), { shouldDirty: true });
+              form.setValue('category', t.category, { shouldDirty: true });
             }}
           >
             {t.label}
-          </button>
+          </Button>
         ))}
       </div>
-      <FormErrorSummary error={add.error} placed={['text', 'eventAt']} />
+      <FormFailure form={form} />
       {add.data?.late ? <p className="text-sm font-bold text-watch">▲ Saved as a late entry (made well after the event).</p> : null}
     </form>
   );

@@ -1,31 +1,36 @@
 import { useState } from 'react';
 import type { StationSettings } from '../../../../shared/schemas/log';
 import { formatStationTime } from '../../../../shared/station-time';
+import { amendLogEntrySchema } from '../../../../shared/schemas/log';
+import { Button } from '../../../components/ui/button';
+import { FieldMessage, FormFailure, useSchemaForm } from '../../../components/form/schema-form';
 import { useAmendEntry, type LogEntryView } from '../api/log';
 
 function AmendInline({ entry, onDone }: { entry: LogEntryView; onDone: () => void }) {
   const amend = useAmendEntry();
-  const [text, setText] = useState(entry.amendments.at(-1)?.text ?? entry.text);
-  const [reason, setReason] = useState('');
+  const form = useSchemaForm(amendLogEntrySchema, { defaultValues: { text: entry.amendments.at(-1)?.text ?? entry.text, reason: '' } });
   return (
     <form
       aria-label="Amend entry"
+      noValidate
       className="mt-2 flex flex-col gap-1 text-sm"
-      onSubmit={(e) => {
-        e.preventDefault();
-        amend.mutate({ id: entry.id, reason, text }, { onSuccess: onDone });
-      }}
+      onSubmit={form.submit(async (input) => {
+        await amend.mutateAsync({ id: entry.id, ...input });
+        onDone();
+      })}
     >
-      <input aria-label="Corrected text" className="rounded-md border border-line bg-field px-2 py-1" value={text} onChange={(e) => setText(e.target.value)} />
-      <input aria-label="Reason for the amendment" placeholder="Why is it corrected?" className="rounded-md border border-line bg-field px-2 py-1" value={reason} onChange={(e) => setReason(e.target.value)} />
-      {amend.error ? <span role="alert" className="text-alarm">⚠ {amend.error.message}</span> : null}
+      <input aria-label="Corrected text" className="rounded-md border border-line bg-field px-2 py-1" {...form.register('text')} />
+      <FieldMessage message={form.error('text')} />
+      <input aria-label="Reason for the amendment" placeholder="Why is it corrected?" className="rounded-md border border-line bg-field px-2 py-1" {...form.register('reason')} />
+      <FieldMessage message={form.error('reason')} />
+      <FormFailure form={form} />
       <div className="flex gap-2">
-        <button type="submit" className="rounded-md bg-accent px-3 py-0.5 font-bold text-on-accent">
+        <Button type="submit" size="sm">
           Save amendment
-        </button>
-        <button type="button" className="underline" onClick={onDone}>
+        </Button>
+        <Button tone="link" onClick={onDone}>
           Cancel
-        </button>
+        </Button>
       </div>
     </form>
   );
@@ -71,9 +76,9 @@ export function EntryList({ entries, settings }: { entries: LogEntryView[]; sett
               </div>
             ))}
             {e.mayAmend && amending !== e.id ? (
-              <button type="button" className="mt-1 text-sm underline" onClick={() => setAmending(e.id)}>
+              <Button tone="link" className="mt-1 text-sm" onClick={() => setAmending(e.id)}>
                 Amend
-              </button>
+              </Button>
             ) : null}
             {amending === e.id ? <AmendInline entry={e} onDone={() => setAmending(null)} /> : null}
           </li>

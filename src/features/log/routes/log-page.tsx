@@ -5,11 +5,12 @@ import { Notice } from '../../../components/ui/notice';
 import { ZoneNote } from '../../../components/station-time/zone-note';
 import { FilterSelect, keyedOptions } from '../../../components/ui/filter-select';
 import { useWatchUnit } from '../../../app/use-live-updates';
-import { useMe } from '../../session/api/get-me';
+import { useMe } from '../../session';
 import { useLog, useShifts, useSignReview, type LogFilters } from '../api/log';
 import { ConditionsPanel } from '../components/conditions-panel';
 import { EntryBar } from '../components/entry-bar';
 import { EntryList } from '../components/entry-list';
+import { Button } from '../../../components/ui/button';
 
 const field = 'rounded-md border border-line bg-field px-2 py-1';
 
@@ -96,13 +97,9 @@ export function LogPage() {
                   ✔ Reviewed by {signed.by}
                 </p>
               ) : me && can(me.role, 'log.review') && reviewShift ? (
-                <button
-                  type="button"
-                  className="mt-1 rounded-md bg-accent px-3 py-1 font-bold text-on-accent"
-                  onClick={() => review.mutate({ position: reviewPosition, shiftStart: reviewShift })}
-                >
+                <Button size="sm" className="mt-1" onClick={() => review.mutate({ position: reviewPosition, shiftStart: reviewShift })}>
                   Sign as reviewed
-                </button>
+                </Button>
               ) : (
                 <p className="text-muted">Not yet reviewed. The shift lead signs it.</p>
               )}

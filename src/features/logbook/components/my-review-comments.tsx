@@ -1,7 +1,7 @@
 import { Link } from 'react-router';
 import { formatStationTime } from '../../../../shared/station-time';
 import { useZoneOfUnit } from '../../../components/station-time/use-station-zone';
-import { useMe } from '../../session/api/get-me';
+import { useMe } from '../../session';
 import { useMyReviewComments } from '../api/logbook';
 
 /** Trainers' comments on records the person wrote or their crew's shifts produced. */

@@ -1,18 +1,50 @@
 import { useState, type ReactNode } from 'react';
-import { Notice } from '../../../components/ui/notice';
-import { ApiError } from '../../../lib/api-client';
+import { reviewCommentSchema } from '../../../../shared/schemas/logbook';
+import { Button } from '../../../components/ui/button';
+import { FieldMessage, FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
 import { formatStationTime } from '../../../../shared/station-time';
 import { useAddReviewComment, type ReviewCommentView } from '../api/logbook';
 
 type Props = { documentId: number | undefined; comments: ReviewCommentView[]; mayComment: boolean; children: ReactNode; label: string; timeZone: string };
 
+function ReviewCommentForm({ documentId, onDone }: { documentId: number; onDone: () => void }) {
+  const add = useAddReviewComment();
+  const form = useSchemaForm(
+    throughContract((v: { body: string }) => ({ documentId, body: v.body }), reviewCommentSchema),
+    { defaultValues: { body: '' } },
+  );
+  const body = form.error('body');
+  return (
+    <form
+      className="mt-2 flex flex-col gap-2"
+      noValidate
+      onSubmit={form.submit(async (input) => {
+        await add.mutateAsync(input);
+        onDone();
+      })}
+    >
+      <label className="flex flex-col text-sm font-bold">
+        Review comment
+        <textarea className="rounded-md border border-line bg-field p-2 font-normal" rows={3} aria-invalid={Boolean(body)} {...form.register('body')} />
+      </label>
+      <FieldMessage message={body} className="text-sm font-bold text-alarm" />
+      <FormFailure form={form} />
+      <div className="flex gap-2">
+        <Button type="submit" size="sm" disabled={add.isPending}>
+          Save comment
+        </Button>
+        <Button tone="plain" size="sm" onClick={onDone}>
+          Cancel
+        </Button>
+      </div>
+    </form>
+  );
+}
+
 /** One past record with the review comments on it and, for trainers, a way to add one. */
 export function ReviewedRecord({ documentId, comments, mayComment, children, label, timeZone }: Props) {
   const mine = comments.filter((c) => c.documentId === documentId);
   const [open, setOpen] = useState(false);
-  const [body, setBody] = useState('');
-  const add = useAddReviewComment();
-  const fields = add.error instanceof ApiError ? add.error.fields : {};
   return (
     <article id={documentId ? `record-${documentId}` : undefined} aria-label={label} className="rounded-md border border-line bg-panel p-3 target:border-2 target:border-accent">
       {children}
@@ -28,32 +60,11 @@ export function ReviewedRecord({ documentId, comments, mayComment, children, lab
       ) : null}
       {mayComment && documentId ? (
         open ? (
-          <form
-            className="mt-2 flex flex-col gap-2"
-            onSubmit={(e) => {
-              e.preventDefault();
-              add.mutate({ documentId, body }, { onSuccess: () => { setBody(''); setOpen(false); } });
-            }}
-          >
-            <label className="flex flex-col text-sm font-bold">
-              Review comment
-              <textarea className="rounded-md border border-line bg-field p-2 font-normal" rows={3} value={body} onChange={(e) => setBody(e.target.value)} aria-invalid={Boolean(fields.body)} />
-            </label>
-            {fields.body ? <p role="alert" className="text-sm font-bold text-alarm">⚠ {fields.body}</p> : null}
-            {add.error && !fields.body ? <Notice kind="error">{add.error.message}</Notice> : null}
-            <div className="flex gap-2">
-              <button type="submit" className="rounded-md bg-accent px-3 py-1 font-bold text-on-accent" disabled={add.isPending}>
-                Save comment
-              </button>
-              <button type="button" className="rounded-md border border-line px-3 py-1" onClick={() => setOpen(false)}>
-                Cancel
-              </button>
-            </div>
-          </form>
+          <ReviewCommentForm documentId={documentId} onDone={() => setOpen(false)} />
         ) : (
-          <button type="button" className="mt-2 text-sm underline" onClick={() => setOpen(true)}>
+          <Button tone="link" className="mt-2 text-sm" onClick={() => setOpen(true)}>
             Add a review comment
-          </button>
+          </Button>
         )
       ) : null}
     </article>

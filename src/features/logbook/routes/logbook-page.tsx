@@ -1,6 +1,7 @@
-import { useState, type FormEvent } from 'react';
 import { Link, useSearchParams } from 'react-router';
-import { documentKindLabels } from '../../../../shared/schemas/logbook';
+import { documentKindLabels, logbookSearchSchema } from '../../../../shared/schemas/logbook';
+import { Button } from '../../../components/ui/button';
+import { FieldMessage, FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
 import { useUnitList } from '../../../components/readings/unit-picker';
 import { useCrews } from '../../../components/plant/crews';
 import { usePeople } from '../../../components/people/person-select';
@@ -8,7 +9,7 @@ import { FilterSelect } from '../../../components/ui/filter-select';
 import { Notice } from '../../../components/ui/notice';
 import { useStationZone, useUnitZone, useZoneOfUnit } from '../../../components/station-time/use-station-zone';
 import { formatStationTime } from '../../../../shared/station-time';
-import { useMe } from '../../session/api/get-me';
+import { useMe } from '../../session';
 import { ApiError } from '../../../lib/api-client';
 import { searchParams, shiftLink, useLogbookSearch, type SearchFilters } from '../api/logbook';
 import { MyReviewComments } from '../components/my-review-comments';
@@ -38,7 +39,11 @@ function useFilters(): [SearchFilters, (next: Partial<SearchFilters>) => void] {
 
 export function LogbookPage() {
   const [filters, update] = useFilters();
-  const [text, setText] = useState(filters.q);
+  // The words are checked by the search contract before they go into the address; the other filters apply as they are chosen.
+  const form = useSchemaForm(
+    throughContract((v: { q: string }) => ({ q: v.q.trim() }), logbookSearchSchema),
+    { defaultValues: { q: filters.q } },
+  );
   const units = useUnitList();
   const crews = useCrews();
   const people = usePeople();
@@ -53,27 +58,24 @@ export function LogbookPage() {
   const dayZone = filters.unitId ? unitZone : firstZone;
   const zoneOf = useZoneOfUnit(useMe().data?.crewId);
 
-  const submit = (e: FormEvent) => {
-    e.preventDefault();
-    update({ q: text.trim() });
-  };
+  const submit = form.submit((search) => update({ q: search.q ?? '' }));
+  const wordsError = form.error('q') ?? fieldErrors.q;
   return (
     <section className="flex flex-col gap-4">
       <div>
         <h1 className="text-2xl font-bold">Logbook history</h1>
         <p className="text-muted">Search past log entries, standing orders, handovers, flags, conditions and rounds; open any shift as it was recorded.</p>
       </div>
-      <form role="search" aria-label="Search the logbook" onSubmit={submit} className="flex flex-col gap-3 rounded-lg border border-line bg-panel p-3">
+      <form role="search" aria-label="Search the logbook" noValidate onSubmit={submit} className="flex flex-col gap-3 rounded-lg border border-line bg-panel p-3">
         <div className="flex flex-wrap items-end gap-2">
           <label className="flex min-w-64 flex-1 flex-col text-sm font-bold">
             Words to find
-            <input className={`${inputClass} text-base font-normal`} value={text} onChange={(e) => setText(e.target.value)} placeholder="e.g. air ejector, waterbox backwash" aria-invalid={Boolean(fieldErrors.q)} />
+            <input className={`${inputClass} text-base font-normal`} placeholder="e.g. air ejector, waterbox backwash" aria-invalid={Boolean(wordsError)} {...form.register('q')} />
           </label>
-          <button type="submit" className="rounded-md bg-accent px-4 py-2 font-bold text-on-accent">
-            Search
-          </button>
+          <Button type="submit">Search</Button>
         </div>
-        {fieldErrors.q ? <p role="alert" className="text-sm font-bold text-alarm">⚠ {fieldErrors.q}</p> : null}
+        <FieldMessage message={wordsError} className="text-sm font-bold text-alarm" />
+        <FormFailure form={form} />
         <div className="flex flex-wrap gap-3 text-sm">
           <FilterSelect label="Unit" anyLabel="All units" value={filters.unitId} options={(units.data ?? []).map((u) => ({ value: u.id, label: u.name }))} onChange={(v) => update({ unitId: v })} />
           <FilterSelect label="Crew on shift" anyLabel="Any crew" value={filters.crewId} options={(crews.data ?? []).map((c) => ({ value: c.id, label: `Crew ${c.name}` }))} onChange={(v) => update({ crewId: v })} />
@@ -134,15 +136,15 @@ export function LogbookPage() {
           </ol>
           {pages > 1 ? (
             <nav aria-label="Result pages" className="flex items-center gap-3">
-              <button type="button" className="rounded-md border border-line px-3 py-1 disabled:opacity-50" disabled={filters.page <= 1} onClick={() => update({ page: filters.page - 1 })}>
+              <Button tone="plain" size="sm" disabled={filters.page <= 1} onClick={() => update({ page: filters.page - 1 })}>
                 ← Previous
-              </button>
+              </Button>
               <span>
                 Page {filters.page} of {pages}
               </span>
-              <button type="button" className="rounded-md border border-line px-3 py-1 disabled:opacity-50" disabled={filters.page >= pages} onClick={() => update({ page: filters.page + 1 })}>
+              <Button tone="plain" size="sm" disabled={filters.page >= pages} onClick={() => update({ page: filters.page + 1 })}>
                 Next →
-              </button>
+              </Button>
             </nav>
           ) : null}
         </div>

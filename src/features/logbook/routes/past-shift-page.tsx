@@ -7,7 +7,7 @@ import { defaultDisplayPreferences, displayQuantity } from '../../../../shared/d
 import { formatStationTime } from '../../../../shared/station-time';
 import { CautionNote, Notice } from '../../../components/ui/notice';
 import { StatusBadge } from '../../../components/ui/status-badge';
-import { useMe } from '../../session/api/get-me';
+import { useMe } from '../../session';
 import { usePastShift, type PastShift } from '../api/logbook';
 import { ReviewedRecord } from '../components/reviewed-record';
 import { HandedOverCondenser, ItemAttachments } from '../components/handover-record-extras';

@@ -1,5 +1,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
+import type { z } from 'zod';
+import type { standingOrderSchema } from '../../../../shared/schemas/log';
 
 export type OrderView = {
   id: number;
@@ -48,7 +50,7 @@ export function useAcknowledge() {
   return useMutation({ mutationFn: (id: number) => api.post(`/api/standing-orders/${id}/acknowledge`), onSuccess: invalidate });
 }
 
-export type NewOrder = { title: string; bodyHtml: string; effectiveFrom: string; effectiveTo: string | null; crewIds: number[]; positions: string[] };
+export type NewOrder = z.output<typeof standingOrderSchema>;
 export function useIssueOrder() {
   const invalidate = useInvalidate();
   return useMutation({ mutationFn: (order: NewOrder) => api.post<{ order: OrderView }>('/api/standing-orders', order), onSuccess: invalidate });

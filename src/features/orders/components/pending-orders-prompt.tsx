@@ -1,5 +1,6 @@
 import { Notice } from '../../../components/ui/notice';
 import { useAcknowledge, usePendingOrders } from '../api/orders';
+import { Button } from '../../../components/ui/button';
 
 /** Shown after sign-in until every standing order addressed to this person is acknowledged. */
 export function PendingOrdersPrompt({ enabled }: { enabled: boolean }) {
@@ -14,9 +15,9 @@ export function PendingOrdersPrompt({ enabled }: { enabled: boolean }) {
         <article key={order.id} className="border-t border-line pt-2">
           <h3 className="font-bold">{order.title}</h3>
           <div className="order-body" dangerouslySetInnerHTML={{ __html: order.bodyHtml }} />
-          <button type="button" className="mt-2 rounded-md bg-accent px-3 py-1 font-bold text-on-accent" onClick={() => acknowledge.mutate(order.id)}>
+          <Button size="sm" className="mt-2" onClick={() => acknowledge.mutate(order.id)}>
             I have read this order
-          </button>
+          </Button>
         </article>
       ))}
     </section>

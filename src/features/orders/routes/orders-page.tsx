@@ -5,10 +5,11 @@ import { Notice } from '../../../components/ui/notice';
 import { useStationZone } from '../../../components/station-time/use-station-zone';
 import { ZoneNote } from '../../../components/station-time/zone-note';
 import { formatStationTime } from '../../../../shared/station-time';
-import { useMe } from '../../session/api/get-me';
+import { useMe } from '../../session';
 import { useOrder, useOrders } from '../api/orders';
 import { IssueOrderForm } from '../components/issue-order-form';
-import { useStationSettings } from '../../shifts/api/station-settings';
+import { useStationSettings } from '../../shifts';
+import { Button } from '../../../components/ui/button';
 
 
 function WhoHasRead({ id, stamp }: { id: number; stamp: (iso: string) => string }) {
@@ -69,9 +70,9 @@ export function OrdersPage() {
             </span>
           </header>
           <div className="order-body mt-1" dangerouslySetInnerHTML={{ __html: o.bodyHtml }} />
-          <button type="button" className="mt-1 text-sm underline" onClick={() => setOpen(open === o.id ? null : o.id)}>
+          <Button tone="link" className="mt-1 text-sm" onClick={() => setOpen(open === o.id ? null : o.id)}>
             {open === o.id ? 'Hide who has read it' : 'Who has read it'}
-          </button>
+          </Button>
           {open === o.id ? <WhoHasRead id={o.id} stamp={stamp} /> : null}
         </article>
       ))}

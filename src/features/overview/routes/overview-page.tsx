@@ -1,7 +1,7 @@
 import { useEffect } from 'react';
 import { roleLabels } from '../../../../shared/roles';
 import { CautionNote, Notice } from '../../../components/ui/notice';
-import { useMe } from '../../session/api/get-me';
+import { useMe } from '../../session';
 import { useOverview } from '../api/get-overview';
 import { useNow } from '../components/clock';
 import { UnitPanel } from '../components/unit-panel';

@@ -1,9 +1,10 @@
-import { useState } from 'react';
+import { useFieldArray, useWatch } from 'react-hook-form';
 import { tubeGauges, tubeMaterials } from '../../../../shared/calc/hei';
 import { parseTypedNumber, roundForEntry } from '../../../../shared/entry-units';
-import type { UnitDesign } from '../../../../shared/schemas/plant';
+import { newDesignVersionSchema, type UnitDesign } from '../../../../shared/schemas/plant';
+import { Button } from '../../../components/ui/button';
+import { FieldMessage, FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
 import { Notice } from '../../../components/ui/notice';
-import { ApiError } from '../../../lib/api-client';
 import { useChangeSetup } from '../api/setup';
 import { SaveVersion } from './save-version';
 
@@ -38,56 +39,76 @@ const toText = (design: UnitDesign) =>
     }),
   ) as Record<string, string>;
 
-export function DesignForm({ unitId, design, editable }: { unitId: number; design: UnitDesign; editable: boolean }) {
-  const change = useChangeSetup(unitId);
-  const [text, setText] = useState(() => toText(design));
-  const [curve, setCurve] = useState(() => design.backpressureCorrection.map(([p, mw]) => [String(roundForEntry(p / 1000)), String(roundForEntry(mw))]));
-  const [material, setMaterial] = useState<string>(design.tubeMaterial);
-  const [gauge, setGauge] = useState(design.tubeGaugeBwg);
-  const [currency, setCurrency] = useState(design.currency ?? '');
-  const [note, setNote] = useState('');
-  // Boxes that do not hold a number, found before anything is sent; the server's messages otherwise.
-  const [typingErrors, setTypingErrors] = useState<Record<string, string>>({});
-  const fields = { ...(change.error instanceof ApiError ? change.error.fields : {}), ...typingErrors };
+type Values = { boxes: Record<string, string>; curve: { backpressure: string; mw: string }[]; tubeMaterial: string; tubeGaugeBwg: string; currency: string; note: string };
 
-  const save = () => {
+// Each box converts from its shown unit to SI; a box that is not a number is its own message and nothing is sent.
+// The shared design-version contract then checks the whole as the server does.
+const designForm = throughContract(
+  (v: Values, fail) => {
     const values: Record<string, unknown> = {};
-    const errors: Record<string, string> = {};
     for (const s of specs) {
-      const typed = parseTypedNumber(text[s.key] ?? '');
+      const typed = parseTypedNumber(v.boxes[s.key] ?? '');
       if (typed.empty) {
         if (s.optional) values[s.key] = null;
-        else errors[`design.${s.key}`] = `${s.label} is missing`;
-      } else if ('error' in typed) errors[`design.${s.key}`] = typed.error;
+        else fail(`boxes.${s.key}`, `${s.label} is missing`);
+      } else if ('error' in typed) fail(`boxes.${s.key}`, typed.error);
       else values[s.key] = s.toSi ? s.toSi(typed.value) : typed.value;
     }
     const points: [number, number][] = [];
-    curve.forEach(([p, mw], i) => {
-      const [bp, loss] = [parseTypedNumber(p ?? ''), parseTypedNumber(mw ?? '')];
+    let curveFailed = false;
+    v.curve.forEach(({ backpressure, mw }, i) => {
+      const [bp, loss] = [parseTypedNumber(backpressure), parseTypedNumber(mw)];
       if ('value' in bp && 'value' in loss) points.push([bp.value * 1000, loss.value]);
-      else errors['design.backpressureCorrection'] ??= `Curve row ${i + 1}: give the backpressure and the MW as numbers`;
+      else if (!curveFailed) {
+        curveFailed = true;
+        fail('curve', `Curve row ${i + 1}: give the backpressure and the MW as numbers`);
+      }
     });
-    setTypingErrors(errors);
-    if (Object.keys(errors).length) return;
-    const design = { ...values, tubeMaterial: material, tubeGaugeBwg: gauge, currency: currency || null, backpressureCorrection: points } as unknown as UnitDesign;
-    change.mutate({ kind: 'design', design, note }, { onSuccess: () => setNote('') });
-  };
+    const design = { ...values, tubeMaterial: v.tubeMaterial, tubeGaugeBwg: Number(v.tubeGaugeBwg), currency: v.currency || null, backpressureCorrection: points };
+    return { design, note: v.note };
+  },
+  newDesignVersionSchema,
+  (path) => designFieldFor(path),
+);
+
+// The contract's paths are design.<field>; the form keeps the numbers in boxes and the curve apart.
+function designFieldFor(path: string) {
+  const [head, field] = path.split('.');
+  if (head !== 'design' || !field) return undefined;
+  if (field === 'backpressureCorrection') return 'curve';
+  return specs.some((s) => s.key === field) ? `boxes.${field}` : field;
+}
+
+export function DesignForm({ unitId, design, editable }: { unitId: number; design: UnitDesign; editable: boolean }) {
+  const change = useChangeSetup(unitId);
+  const form = useSchemaForm(designForm, {
+    defaultValues: {
+      boxes: toText(design),
+      curve: design.backpressureCorrection.map(([p, mw]) => ({ backpressure: String(roundForEntry(p / 1000)), mw: String(roundForEntry(mw)) })),
+      tubeMaterial: design.tubeMaterial,
+      tubeGaugeBwg: String(design.tubeGaugeBwg),
+      currency: design.currency ?? '',
+      note: '',
+    },
+    fieldFor: designFieldFor,
+  });
+  const curve = useFieldArray({ control: form.control, name: 'curve' });
+  const note = useWatch({ control: form.control, name: 'note' });
+  const typingErrors = !form.failure && Object.keys(form.formState.errors).some((f) => f === 'boxes' || f === 'curve');
 
   return (
     <form
       aria-label="Design data"
       className="flex flex-col gap-3 rounded-lg border border-line bg-panel p-3"
-      onSubmit={(e) => {
-        e.preventDefault();
-        save();
-      }}
+      noValidate
+      onSubmit={form.submit(async (version) => {
+        // The contract's tube material is one of tubeMaterials (its enum is typed as string).
+        await change.mutateAsync({ kind: 'design', design: version.design as UnitDesign, note: version.note });
+        form.reset({ ...form.getValues(), note: '' });
+      })}
     >
       <h2 className="font-bold">Design data</h2>
-      {Object.keys(typingErrors).length ? (
-        <Notice kind="error">Nothing was saved: the marked boxes need a number.</Notice>
-      ) : change.error ? (
-        <Notice kind="error">{change.error.message}</Notice>
-      ) : null}
+      {typingErrors ? <Notice kind="error">Nothing was saved: the marked boxes need a number.</Notice> : <FormFailure form={form} />}
       {change.isSuccess ? <Notice kind="success">Saved as a new version; readings from now on are judged by it.</Notice> : null}
       <fieldset disabled={!editable} className="grid gap-3 sm:grid-cols-2">
         {specs.map((s) => (
@@ -96,19 +117,18 @@ export function DesignForm({ unitId, design, editable }: { unitId: number; desig
             <span className="flex items-center gap-2">
               <input
                 className="reading w-full rounded-md border border-line bg-field px-2 py-1 aria-[invalid=true]:border-alarm"
-                aria-invalid={Boolean(fields[`design.${s.key}`])}
+                aria-invalid={Boolean(form.error(`boxes.${s.key}`))}
                 inputMode="decimal"
-                value={text[s.key] ?? ''}
-                onChange={(e) => setText({ ...text, [s.key]: e.target.value })}
+                {...form.register(`boxes.${s.key}`)}
               />
               <span className="shrink-0 text-muted">{s.unit}</span>
             </span>
-            {fields[`design.${s.key}`] ? <span role="alert" className="text-alarm">⚠ {fields[`design.${s.key}`]}</span> : null}
+            <FieldMessage message={form.error(`boxes.${s.key}`)} />
           </label>
         ))}
         <label className="flex flex-col text-sm">
           Tube material
-          <select className="rounded-md border border-line bg-field px-2 py-1" value={material} onChange={(e) => setMaterial(e.target.value)}>
+          <select className="rounded-md border border-line bg-field px-2 py-1" {...form.register('tubeMaterial')}>
             {tubeMaterials.map((m) => (
               <option key={m}>{m}</option>
             ))}
@@ -116,7 +136,7 @@ export function DesignForm({ unitId, design, editable }: { unitId: number; desig
         </label>
         <label className="flex flex-col text-sm">
           Tube gauge
-          <select className="rounded-md border border-line bg-field px-2 py-1" value={gauge} onChange={(e) => setGauge(Number(e.target.value))}>
+          <select className="rounded-md border border-line bg-field px-2 py-1" {...form.register('tubeGaugeBwg')}>
             {tubeGauges.map((g) => (
               <option key={g} value={g}>
                 {g} BWG
@@ -126,32 +146,32 @@ export function DesignForm({ unitId, design, editable }: { unitId: number; desig
         </label>
         <label className="flex flex-col text-sm">
           Currency
-          <input className="rounded-md border border-line bg-field px-2 py-1" value={currency} onChange={(e) => setCurrency(e.target.value)} />
+          <input className="rounded-md border border-line bg-field px-2 py-1" {...form.register('currency')} />
         </label>
         <div className="flex flex-col gap-1 text-sm sm:col-span-2">
           <span className="font-bold">Backpressure correction curve (MW lost against design; linear between rows, never beyond them)</span>
-          {curve.map(([p, mw], i) => (
-            <div key={i} className="flex items-center gap-2">
-              <input aria-label={`Curve row ${i + 1} backpressure`} className="reading w-28 rounded-md border border-line bg-field px-2 py-1" value={p} onChange={(e) => setCurve(curve.map((r, j) => (j === i ? [e.target.value, r[1]!] : r)))} />
+          {curve.fields.map((row, i) => (
+            <div key={row.id} className="flex items-center gap-2">
+              <input aria-label={`Curve row ${i + 1} backpressure`} className="reading w-28 rounded-md border border-line bg-field px-2 py-1" {...form.register(`curve.${i}.backpressure`)} />
               <span className="text-muted">kPa a →</span>
-              <input aria-label={`Curve row ${i + 1} MW`} className="reading w-28 rounded-md border border-line bg-field px-2 py-1" value={mw} onChange={(e) => setCurve(curve.map((r, j) => (j === i ? [r[0]!, e.target.value] : r)))} />
+              <input aria-label={`Curve row ${i + 1} MW`} className="reading w-28 rounded-md border border-line bg-field px-2 py-1" {...form.register(`curve.${i}.mw`)} />
               <span className="text-muted">MW</span>
               {editable ? (
-                <button type="button" className="text-sm underline" onClick={() => setCurve(curve.filter((_, j) => j !== i))}>
+                <Button tone="link" className="text-sm" onClick={() => curve.remove(i)}>
                   remove
-                </button>
+                </Button>
               ) : null}
             </div>
           ))}
           {editable ? (
-            <button type="button" className="self-start text-sm underline" onClick={() => setCurve([...curve, ['', '']])}>
+            <Button tone="link" className="self-start text-sm" onClick={() => curve.append({ backpressure: '', mw: '' })}>
               add a row
-            </button>
+            </Button>
           ) : null}
-          {fields['design.backpressureCorrection'] ? <span role="alert" className="text-alarm">⚠ {fields['design.backpressureCorrection']}</span> : null}
+          <FieldMessage message={form.error('curve')} />
         </div>
       </fieldset>
-      <SaveVersion editable={editable} note={note} onNote={setNote} error={fields.note} pending={change.isPending} saveLabel="Save as a new version" readOnlyText="Only an administrator changes design data." />
+      <SaveVersion editable={editable} note={note} onNote={(text) => form.setValue('note', text, { shouldDirty: true })} error={form.error('note')} pending={change.isPending} saveLabel="Save as a new version" readOnlyText="Only an administrator changes design data." />
     </form>
   );
 }

@@ -1,9 +1,10 @@
-import { useState } from 'react';
+import { useWatch } from 'react-hook-form';
 import { checkCatalog, checkKeys, type CheckKey } from '../../../../shared/calc/check-catalog';
 import type { LimitSet } from '../../../../shared/calc/limits';
 import { convertForDisplay, defaultDisplayPreferences } from '../../../../shared/display';
 import { Notice } from '../../../components/ui/notice';
-import { ApiError } from '../../../lib/api-client';
+import { newLimitVersionSchema } from '../../../../shared/schemas/plant';
+import { FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
 import { useChangeSetup } from '../api/setup';
 import { bandKeys, bandLabels, limitField, limitSetFromText, limitTextFrom, type LimitText } from '../lib/limit-entry';
 import { SaveVersion } from './save-version';
@@ -11,37 +12,42 @@ import { SaveVersion } from './save-version';
 const prefs = { ...defaultDisplayPreferences, currency: 'money' };
 const unitOf = (key: CheckKey) => convertForDisplay(1, checkCatalog[key].quantity, prefs).unit;
 
+type Values = { limits: LimitText; note: string };
+
+// The boxes hold numbers in the shown units: a box that is not a number is its own message and nothing is sent;
+// the rest goes to SI and the shared limit-version contract checks it as the server does.
+const limitsForm = throughContract((v: Values, fail) => {
+  const { limits, errors } = limitSetFromText(v.limits, prefs);
+  for (const [field, message] of Object.entries(errors)) fail(field, message);
+  return { limits, note: v.note };
+}, newLimitVersionSchema);
+
+/** The number of boxes with a message: a leaf of the errors under `limits`. */
+const countBoxes = (node: unknown): number =>
+  !node || typeof node !== 'object' ? 0 : typeof (node as { message?: unknown }).message === 'string' ? 1 : Object.entries(node).reduce((n, [k, child]) => n + (k === 'ref' ? 0 : countBoxes(child)), 0);
+
 export function LimitsForm({ unitId, limits, editable }: { unitId: number; limits: LimitSet; editable: boolean }) {
   const change = useChangeSetup(unitId);
-  const [text, setText] = useState<LimitText>(() => limitTextFrom(limits, prefs));
-  const [note, setNote] = useState('');
-  // Boxes that do not hold a number, found before anything is sent; the server's messages otherwise.
-  const [typingErrors, setTypingErrors] = useState<Record<string, string>>({});
-  const fields = { ...(change.error instanceof ApiError ? change.error.fields : {}), ...typingErrors };
-  const boxErrors = Object.keys(fields).filter((f) => f.startsWith('limits.')).length;
-
-  const save = () => {
-    const { limits: next, errors } = limitSetFromText(text, prefs);
-    setTypingErrors(errors);
-    if (Object.keys(errors).length) return;
-    change.mutate({ kind: 'limits', limits: next, note }, { onSuccess: () => setNote('') });
-  };
+  const form = useSchemaForm(limitsForm, { defaultValues: { limits: limitTextFrom(limits, prefs), note: '' } });
+  const boxErrors = form.failure ? 0 : countBoxes(form.formState.errors.limits);
+  const note = useWatch({ control: form.control, name: 'note' });
 
   return (
     <form
       aria-label="Limit set"
       className="flex flex-col gap-3 rounded-lg border border-line bg-panel p-3"
-      onSubmit={(e) => {
-        e.preventDefault();
-        save();
-      }}
+      noValidate
+      onSubmit={form.submit(async (version) => {
+        await change.mutateAsync({ kind: 'limits', ...version });
+        form.reset({ ...form.getValues(), note: '' });
+      })}
     >
       <h2 className="font-bold">Limits (watch and alarm)</h2>
       {boxErrors ? (
         <Notice kind="error">{`Nothing was saved: ${boxErrors === 1 ? 'one box needs' : `${boxErrors} boxes need`} a number (marked below), or leave a box empty for no limit.`}</Notice>
-      ) : change.error ? (
-        <Notice kind="error">{change.error.message}</Notice>
-      ) : null}
+      ) : (
+        <FormFailure form={form} />
+      )}
       {change.isSuccess ? <Notice kind="success">Saved as a new version; earlier readings keep the limits of their time.</Notice> : null}
       <div className="overflow-x-auto">
         <table className="w-full text-left text-sm">
@@ -60,7 +66,7 @@ export function LimitsForm({ unitId, limits, editable }: { unitId: number; limit
               <tr key={key} className="border-t border-line">
                 <td className="pr-2">{checkCatalog[key].label}</td>
                 {bandKeys.map((b) => {
-                  const error = fields[limitField(key, b)];
+                  const error = form.error(limitField(key, b));
                   const errorId = `limit-error-${key}-${b}`;
                   return (
                     <td key={b} className="pr-1 align-top">
@@ -71,11 +77,7 @@ export function LimitsForm({ unitId, limits, editable }: { unitId: number; limit
                         disabled={!editable}
                         inputMode="decimal"
                         className="reading w-20 rounded-md border border-line bg-field px-1 py-0.5 aria-[invalid=true]:border-alarm"
-                        value={text[key][b]}
-                        onChange={(e) => {
-                          setText({ ...text, [key]: { ...text[key], [b]: e.target.value } });
-                          if (typingErrors[limitField(key, b)]) setTypingErrors(({ [limitField(key, b)]: _, ...rest }) => rest);
-                        }}
+                        {...form.register(`limits.${key}.${b}`)}
                       />
                       {error ? (
                         <span id={errorId} role="alert" className="block max-w-40 text-xs text-alarm">
@@ -91,7 +93,7 @@ export function LimitsForm({ unitId, limits, editable }: { unitId: number; limit
           </tbody>
         </table>
       </div>
-      <SaveVersion editable={editable} note={note} onNote={setNote} error={fields.note} pending={change.isPending} saveLabel="Save limits as a new version" readOnlyText="Only an administrator changes limits." />
+      <SaveVersion editable={editable} note={note} onNote={(text) => form.setValue('note', text, { shouldDirty: true })} error={form.error('note')} pending={change.isPending} saveLabel="Save limits as a new version" readOnlyText="Only an administrator changes limits." />
     </form>
   );
 }

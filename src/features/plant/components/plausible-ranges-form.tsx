@@ -1,8 +1,9 @@
-import { useState } from 'react';
+import { useWatch } from 'react-hook-form';
 import { plausibleCatalog, plausibleKeys, type PlausibleKey, type PlausibleRanges } from '../../../../shared/calc/plausibility';
 import { plausibleSettingUnits } from '../../../../shared/plausibility-display';
 import { Notice } from '../../../components/ui/notice';
-import { ApiError } from '../../../lib/api-client';
+import { newPlausibleVersionSchema } from '../../../../shared/schemas/plant';
+import { FieldMessage, FormFailure, throughContract, useSchemaForm, type Fail } from '../../../components/form/schema-form';
 import { useChangeSetup } from '../api/setup';
 import { SaveVersion } from './save-version';
 
@@ -10,52 +11,48 @@ const ends = ['low', 'high'] as const;
 type End = (typeof ends)[number];
 type Texts = Record<PlausibleKey, Record<End, string>>;
 
-/** Typed text → SI, or a message per box for text that is not a number (nothing is sent then). */
-function parse(text: Texts): { ranges: PlausibleRanges | null; errors: Record<string, string> } {
-  const errors: Record<string, string> = {};
+/** Typed text → SI, with a message per box for text that is not a number (nothing is sent then). */
+function parse(text: Texts, fail: Fail): PlausibleRanges {
   const ranges = {} as PlausibleRanges;
   for (const key of plausibleKeys) {
     const units = plausibleSettingUnits(key);
     const [low, high] = ends.map((end) => {
       const typed = text[key][end].trim().replace(',', '.');
       const value = typed === '' ? NaN : Number(typed);
-      if (!Number.isFinite(value)) errors[`ranges.${key}.${end}`] = `${plausibleCatalog[key].label}: enter the ${end} end as a number`;
+      if (!Number.isFinite(value)) fail(`ranges.${key}.${end}`, `${plausibleCatalog[key].label}: enter the ${end} end as a number`);
       return units.toSi(value);
     }) as [number, number];
     ranges[key] = { low, high };
   }
-  return { ranges: Object.keys(errors).length ? null : ranges, errors };
+  return ranges;
 }
+
+type Values = { ranges: Texts; note: string };
+const rangesForm = throughContract((v: Values, fail) => ({ ranges: parse(v.ranges, fail), note: v.note }), newPlausibleVersionSchema);
 
 type Props = { unitId: number; ranges: PlausibleRanges; own: boolean; editable: boolean };
 
 export function PlausibleRangesForm({ unitId, ranges, own, editable }: Props) {
   const change = useChangeSetup(unitId);
-  const [text, setText] = useState<Texts>(
-    () =>
-      Object.fromEntries(
+  const form = useSchemaForm(rangesForm, {
+    defaultValues: {
+      ranges: Object.fromEntries(
         plausibleKeys.map((key) => [key, Object.fromEntries(ends.map((end) => [end, String(plausibleSettingUnits(key).toShown(ranges[key][end]))]))]),
       ) as Texts,
-  );
-  const [note, setNote] = useState('');
-  const [typedErrors, setTypedErrors] = useState<Record<string, string>>({});
-  const fields = { ...(change.error instanceof ApiError ? change.error.fields : {}), ...typedErrors };
-
-  const save = () => {
-    const parsed = parse(text);
-    setTypedErrors(parsed.errors);
-    if (!parsed.ranges) return;
-    change.mutate({ kind: 'plausible', ranges: parsed.ranges, note }, { onSuccess: () => setNote('') });
-  };
+      note: '',
+    },
+  });
+  const note = useWatch({ control: form.control, name: 'note' });
 
   return (
     <form
       aria-label="Plausible ranges"
       className="flex flex-col gap-3 rounded-lg border border-line bg-panel p-3"
-      onSubmit={(e) => {
-        e.preventDefault();
-        save();
-      }}
+      noValidate
+      onSubmit={form.submit(async (version) => {
+        await change.mutateAsync({ kind: 'plausible', ...version });
+        form.reset({ ...form.getValues(), note: '' });
+      })}
     >
       <h2 className="font-bold">Plausible ranges</h2>
       <p className="text-sm text-muted">
@@ -66,7 +63,7 @@ export function PlausibleRangesForm({ unitId, ranges, own, editable }: Props) {
           : 'This unit has no ranges of its own yet: these are the starting ranges, common practice for surface condensers with no source — set this unit’s from its design.'}{' '}
         Flows are per cent of the design CW flow, and of the design duty ÷ 2210 kJ/kg (HEI) for exhaust steam.
       </p>
-      {change.error ? <Notice kind="error">{change.error.message}</Notice> : null}
+      <FormFailure form={form} />
       {change.isSuccess ? <Notice kind="success">Saved as a new version; earlier readings keep the ranges of their time.</Notice> : null}
       <div className="overflow-x-auto">
         <table className="w-full text-left text-sm">
@@ -83,7 +80,9 @@ export function PlausibleRangesForm({ unitId, ranges, own, editable }: Props) {
               <tr key={key} className="border-t border-line">
                 <td className="pr-2">
                   {plausibleCatalog[key].label}
-                  {ends.map((end) => (fields[`ranges.${key}.${end}`] ? <span key={end} role="alert" className="block text-alarm">⚠ {fields[`ranges.${key}.${end}`]}</span> : null))}
+                  {ends.map((end) => (
+                    <FieldMessage key={end} message={form.error(`ranges.${key}.${end}`)} className="block text-alarm" />
+                  ))}
                 </td>
                 {ends.map((end) => (
                   <td key={end} className="pr-1">
@@ -92,8 +91,7 @@ export function PlausibleRangesForm({ unitId, ranges, own, editable }: Props) {
                       disabled={!editable}
                       inputMode="decimal"
                       className="reading w-24 rounded-md border border-line bg-field px-1 py-0.5"
-                      value={text[key][end]}
-                      onChange={(e) => setText({ ...text, [key]: { ...text[key], [end]: e.target.value } })}
+                      {...form.register(`ranges.${key}.${end}`)}
                     />
                   </td>
                 ))}
@@ -106,8 +104,8 @@ export function PlausibleRangesForm({ unitId, ranges, own, editable }: Props) {
       <SaveVersion
         editable={editable}
         note={note}
-        onNote={setNote}
-        error={fields.note}
+        onNote={(text) => form.setValue('note', text, { shouldDirty: true })}
+        error={form.error('note')}
         pending={change.isPending}
         saveLabel="Save plausible ranges as a new version"
         readOnlyText="Only an administrator changes plausible ranges."

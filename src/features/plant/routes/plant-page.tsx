@@ -1,11 +1,12 @@
-import { useState } from 'react';
 import { can } from '../../../../shared/policies/permissions';
 import { formatStationTime } from '../../../../shared/station-time';
 import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-picker';
 import { Notice } from '../../../components/ui/notice';
 import { ZoneNote } from '../../../components/station-time/zone-note';
-import { ApiError } from '../../../lib/api-client';
-import { useMe } from '../../session/api/get-me';
+import { equipmentSchema } from '../../../../shared/schemas/plant';
+import { Button } from '../../../components/ui/button';
+import { FormFailure, useSchemaForm } from '../../../components/form/schema-form';
+import { useMe } from '../../session';
 import { useChangeSetup, useUnitSetup, type UnitSetup } from '../api/setup';
 import { DesignForm } from '../components/design-form';
 import { LimitsForm } from '../components/limits-form';
@@ -30,8 +31,8 @@ function History({ title, rows, timeZone }: { title: string; rows: UnitSetup['de
 
 function Equipment({ setup, editable }: { setup: UnitSetup; editable: boolean }) {
   const change = useChangeSetup(setup.unit.id);
-  const [item, setItem] = useState({ kind: 'cw_pump', tag: '', name: '' });
-  const fields = change.error instanceof ApiError ? change.error.fields : {};
+  const form = useSchemaForm(equipmentSchema, { defaultValues: { kind: 'cw_pump', tag: '', name: '' }, placed: [] });
+  const input = 'rounded-md border border-line bg-field px-2 py-1';
   return (
     <div className="rounded-lg border border-line bg-panel p-3 text-sm">
       <h2 className="font-bold">Equipment</h2>
@@ -45,25 +46,27 @@ function Equipment({ setup, editable }: { setup: UnitSetup; editable: boolean })
       {editable ? (
         <form
           aria-label="Add equipment"
+          noValidate
           className="mt-2 flex flex-wrap items-end gap-2"
-          onSubmit={(e) => {
-            e.preventDefault();
-            change.mutate({ kind: 'equipment', equipment: item }, { onSuccess: () => setItem({ ...item, tag: '', name: '' }) });
-          }}
+          onSubmit={form.submit(async (equipment) => {
+            await change.mutateAsync({ kind: 'equipment', equipment });
+            form.reset({ ...form.getValues(), tag: '', name: '' });
+          })}
         >
-          <select aria-label="Kind" className="rounded-md border border-line bg-field px-2 py-1" value={item.kind} onChange={(e) => setItem({ ...item, kind: e.target.value })}>
+          <select aria-label="Kind" className={input} {...form.register('kind')}>
             <option value="cw_pump">CW pump</option>
             <option value="condenser">Condenser</option>
             <option value="cooling_tower">Cooling tower</option>
             <option value="air_removal">Air removal</option>
             <option value="other">Other</option>
           </select>
-          <input aria-label="Tag" placeholder="Tag" className="rounded-md border border-line bg-field px-2 py-1" value={item.tag} onChange={(e) => setItem({ ...item, tag: e.target.value })} />
-          <input aria-label="Name" placeholder="Name" className="rounded-md border border-line bg-field px-2 py-1" value={item.name} onChange={(e) => setItem({ ...item, name: e.target.value })} />
-          <button type="submit" className="rounded-md bg-accent px-3 py-1 font-bold text-on-accent">
+          <input aria-label="Tag" placeholder="Tag" className={input} {...form.register('tag')} />
+          <input aria-label="Name" placeholder="Name" className={input} {...form.register('name')} />
+          <Button type="submit" size="sm">
             Add
-          </button>
-          {Object.values(fields).length ? <span role="alert" className="w-full text-alarm">⚠ {Object.entries(fields).map(([k, v]) => `${k}: ${v}`).join('; ')}</span> : null}
+          </Button>
+          {/* The three boxes sit on one line: their messages follow it, each named by its label. */}
+          <FormFailure form={form} className="w-full" />
         </form>
       ) : null}
     </div>

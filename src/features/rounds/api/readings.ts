@@ -11,6 +11,7 @@ export type ReadingSummary = {
   id: number;
   takenAt: string;
   recordedBy: string;
+  recordedById: number;
   recordedAsTrainee: boolean;
   needsCountersign: boolean;
   source: 'round' | 'import';

@@ -1,17 +1,17 @@
 import { Link } from 'react-router';
-import { can } from '../../../../shared/policies/permissions';
+import { mayCountersignRound } from '../../../../shared/policies/readings';
+import { Button } from '../../../components/ui/button';
 import { formatStationTime } from '../../../../shared/station-time';
 import { pressureUnitLabels, type PressureUnit } from '../../../../shared/units';
 import { StatusBadge } from '../../../components/ui/status-badge';
 import { Notice } from '../../../components/ui/notice';
 import { OutsidePlausibleTag } from '../../../components/readings/plausibility';
-import { useMe } from '../../session/api/get-me';
+import { useMe } from '../../session';
 import { useCountersign, type ReadingSummary } from '../api/readings';
 
 export function RecentReadings({ readings, timeZone }: { readings: ReadingSummary[]; timeZone: string }) {
   const { data: me } = useMe();
   const countersign = useCountersign();
-  const maySign = Boolean(me && can(me.role, 'reading.countersign'));
   if (!readings.length) return <Notice kind="info">No rounds recorded for this unit yet.</Notice>;
   return (
     <div className="overflow-x-auto rounded-lg border border-line bg-panel p-3">
@@ -54,10 +54,10 @@ export function RecentReadings({ readings, timeZone }: { readings: ReadingSummar
               </td>
               <td className="py-1 text-right">
                 {r.needsCountersign ? (
-                  maySign && r.recordedBy !== me?.name ? (
-                    <button type="button" className="rounded-md border border-line px-2 py-0.5 font-bold" onClick={() => countersign.mutate(r.id)}>
+                  me && mayCountersignRound(me, r) ? (
+                    <Button tone="plain" size="xs" onClick={() => countersign.mutate(r.id)}>
                       Countersign
-                    </button>
+                    </Button>
                   ) : (
                     <span className="text-xs font-bold text-watch">▲ awaiting countersign</span>
                   )

@@ -1,6 +1,7 @@
-import { useState } from 'react';
+import { useMemo, useState } from 'react';
 import { can } from '../../../../shared/policies/permissions';
-import { useForm, useWatch } from 'react-hook-form';
+import { mayCountersignRound } from '../../../../shared/policies/readings';
+import { useWatch } from 'react-hook-form';
 import { Link, useParams } from 'react-router';
 import type { Evaluation } from '../../../../shared/calc/evaluate';
 import { CheckResults } from '../../../components/readings/check-results';
@@ -8,7 +9,9 @@ import { ReadingFormFields } from '../../../components/readings/reading-form-fie
 import { ConfirmOutsidePlausible, OutsidePlausibleTag, useOutsidePlausibleQuestion } from '../../../components/readings/plausibility';
 import type { PlausibleKey } from '../../../../shared/calc/plausibility';
 import { useCondenserDesign } from '../../../components/readings/get-condenser-design';
-import { formErrorsFromServer, formValuesFromReading, type FormErrors, type ReadingFormValues } from '../../../components/readings/reading-form';
+import { formValuesFromReading, readingFieldFor, readingSetWire, type FormErrors, type ReadingFormValues } from '../../../components/readings/reading-form';
+import { amendReadingSchema } from '../../../../shared/schemas/readings';
+import { FieldMessage, FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
 import { useLiveEvaluation } from '../../../components/readings/use-live-evaluation';
 import { Button } from '../../../components/ui/button';
 import { CautionNote, Notice } from '../../../components/ui/notice';
@@ -16,9 +19,8 @@ import { StatusBadge } from '../../../components/ui/status-badge';
 import { useUnitZone } from '../../../components/station-time/use-station-zone';
 import { ZoneNote } from '../../../components/station-time/zone-note';
 import { formatStationTime } from '../../../../shared/station-time';
-import { ApiError } from '../../../lib/api-client';
 import type { DisplayPreferences } from '../../../../shared/display';
-import { useMe } from '../../session/api/get-me';
+import { useMe } from '../../session';
 import { useAmendReading, useCountersign, useReading, type ReadingDetail } from '../api/readings';
 import { useSelectedUnit } from '../../../components/readings/unit-picker';
 import { useWatchUnit } from '../../../app/use-live-updates';
@@ -39,9 +41,9 @@ function Version({ title, superseded, results, outsidePlausible, prefs, children
         <h2 className={`font-bold ${superseded ? 'line-through' : ''}`}>{title}</h2>
         {superseded ? <span className="text-xs font-bold text-muted">superseded by a later amendment — kept as recorded</span> : <span className="text-xs font-bold text-accent">current</span>}
         {outsidePlausible.length ? <OutsidePlausibleTag keys={outsidePlausible} /> : null}
-        <button type="button" className="ml-auto text-sm underline" onClick={() => setOpen(!open)}>
+        <Button tone="link" className="ml-auto text-sm" onClick={() => setOpen(!open)}>
           {open ? 'Hide checks' : 'Show checks'}
-        </button>
+        </Button>
       </header>
       {children}
       {open ? (
@@ -53,35 +55,50 @@ function Version({ title, superseded, results, outsidePlausible, prefs, children
   );
 }
 
+type AmendValues = ReadingFormValues & { reason: string };
+
+// An amendment's messages: the reason beside its box, each reading beside the box that holds it.
+const amendFieldFor = (path: string) => (path === 'reason' ? 'reason' : path.startsWith('reading.') ? readingFieldFor(path.slice('reading.'.length)) : undefined);
+
 function AmendForm({ detail, onDone }: { detail: ReadingDetail; onDone: () => void }) {
   const latest = detail.amendments.at(-1)?.raw ?? detail.reading.raw;
-  const form = useForm<ReadingFormValues>({ defaultValues: formValuesFromReading(latest) });
-  const values = useWatch({ control: form.control }) as ReadingFormValues;
+  const schema = throughContract(
+    ({ reason, ...boxes }: AmendValues) => {
+      const { unitId: _unit, ...reading } = readingSetWire(detail.reading.unitId, boxes);
+      return { reason, reading };
+    },
+    amendReadingSchema,
+    amendFieldFor,
+  );
+  const form = useSchemaForm(schema, { defaultValues: { ...formValuesFromReading(latest), reason: '' }, fieldFor: amendFieldFor });
+  const watched = useWatch({ control: form.control }) as AmendValues;
+  const values = useMemo((): ReadingFormValues => {
+    const { reason: _reason, ...boxes } = watched;
+    return boxes;
+  }, [watched]);
   const design = useCondenserDesign(detail.reading.unitId);
   const live = useLiveEvaluation(detail.reading.unitId, values, design.data);
   const amend = useAmendReading(detail.reading.id);
-  const [reason, setReason] = useState('');
-  const [errors, setErrors] = useState<FormErrors & { reason?: string }>({});
-  const [message, setMessage] = useState<string | null>(null);
+  const [refusal, setRefusal] = useState<string | null>(null);
   const question = useOutsidePlausibleQuestion(live.notices);
+  const boxErrors = Object.fromEntries(Object.keys(values).map((box) => [box, form.error(box)]).filter(([, message]) => message)) as FormErrors;
 
-  const submit = (confirmed = false) => {
-    if (!live.input) return setMessage('Some readings are missing or wrong; see the messages beside them.');
-    if (question.mustAsk(confirmed)) return;
-    const { unitId: _unit, ...reading } = live.input;
-    const confirmOutsidePlausible = confirmed ? question.keys() : [];
-    amend.mutate(
-      { reason, reading, ...(confirmOutsidePlausible.length ? { confirmOutsidePlausible } : {}) },
-      {
-        onSuccess: onDone,
-        onError: (error) => {
+  const submit = (confirmed = false) =>
+    form.submit(
+      async (input) => {
+        setRefusal(null);
+        if (question.mustAsk(confirmed)) return;
+        const confirmOutsidePlausible = confirmed ? question.keys() : [];
+        try {
+          await amend.mutateAsync({ ...input, ...(confirmOutsidePlausible.length ? { confirmOutsidePlausible } : {}) });
+        } catch (error) {
           if (question.takeRefusal(error)) return;
-          setMessage(error.message);
-          if (error instanceof ApiError) setErrors({ ...formErrorsFromServer(error.fields), reason: error.fields.reason });
-        },
+          throw error;
+        }
+        onDone();
       },
-    );
-  };
+      () => setRefusal('Some readings are missing or wrong; see the messages beside them.'),
+    )();
 
   return (
     <form
@@ -90,19 +107,20 @@ function AmendForm({ detail, onDone }: { detail: ReadingDetail; onDone: () => vo
       className="flex flex-col gap-4 rounded-lg border-2 border-watch bg-panel p-4"
       onSubmit={(e) => {
         e.preventDefault();
-        submit();
+        void submit();
       }}
     >
       <h2 className="text-lg font-bold">Amend this round</h2>
       <p className="text-sm text-muted">The round as recorded stays visible; your correction is added beside it with your name, the time and your reason.</p>
-      {message ? <Notice kind="error">{message}</Notice> : null}
+      {refusal ? <Notice kind="error">{refusal}</Notice> : null}
+      <FormFailure form={form} />
       <label className="flex flex-col gap-1 text-sm font-bold">
         Reason for the correction
-        <textarea className="rounded-md border border-line bg-field p-2 font-normal" rows={2} value={reason} onChange={(e) => setReason(e.target.value)} />
-        {errors.reason ? <span role="alert" className="text-alarm">⚠ {errors.reason}</span> : null}
+        <textarea className="rounded-md border border-line bg-field p-2 font-normal" rows={2} {...form.register('reason')} />
+        <FieldMessage message={form.error('reason')} />
       </label>
-      <ReadingFormFields form={form} errors={{ ...live.shownErrors, ...errors }} values={values} warnings={live.warnings} />
-      {question.asking ? <ConfirmOutsidePlausible notices={question.notices} pending={amend.isPending} onConfirm={() => submit(true)} onCancel={question.cancel} /> : null}
+      <ReadingFormFields form={form} errors={{ ...live.shownErrors, ...boxErrors }} values={values} warnings={live.warnings} />
+      {question.asking ? <ConfirmOutsidePlausible notices={question.notices} pending={amend.isPending} onConfirm={() => void submit(true)} onCancel={question.cancel} /> : null}
       <Button type="submit" disabled={amend.isPending}>
         Save amendment
       </Button>
@@ -149,7 +167,7 @@ export function ReadingPage() {
         ) : (
           <div className="flex flex-col items-start gap-2">
             <Notice kind="info">Trainee round, awaiting an operator’s countersign.</Notice>
-            {me && can(me.role, 'reading.countersign') && me.id !== detail.reading.recordedById ? (
+            {me && mayCountersignRound(me, { recordedById: detail.reading.recordedById, needsCountersign: !detail.countersign }) ? (
               <Button disabled={countersign.isPending} onClick={() => countersign.mutate(detail.reading.id)}>
                 Countersign this round
               </Button>

@@ -1,6 +1,7 @@
-import { useState } from 'react';
+import { useMemo, useState } from 'react';
 import { can } from '../../../../shared/policies/permissions';
-import { useForm, useWatch } from 'react-hook-form';
+import { roundWaitsForCountersign } from '../../../../shared/policies/readings';
+import { useWatch } from 'react-hook-form';
 import { Link } from 'react-router';
 import { CautionNote, Notice } from '../../../components/ui/notice';
 import { Button } from '../../../components/ui/button';
@@ -8,16 +9,16 @@ import { CheckResults, EnterReadingsNotice } from '../../../components/readings/
 import { ReadingFormFields } from '../../../components/readings/reading-form-fields';
 import { ConfirmOutsidePlausible, useOutsidePlausibleQuestion } from '../../../components/readings/plausibility';
 import { useCondenserDesign } from '../../../components/readings/get-condenser-design';
-import { emptyReadingForm, fieldForPath, formErrorsFromServer, type FormErrors, type ReadingFormValues } from '../../../components/readings/reading-form';
-import { fieldLabel } from '../../../../shared/schemas/field-labels';
+import { boxLabels, emptyReadingForm, readingSetWire, roundFieldFor, type FormErrors, type ReadingFormValues } from '../../../components/readings/reading-form';
+import { recordReadingSchema } from '../../../../shared/schemas/readings';
+import { FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
 import { loadUnitChoices, useRememberUnitChoices } from '../../../components/readings/unit-choices';
 import { useLiveEvaluation } from '../../../components/readings/use-live-evaluation';
 import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-picker';
-import { StationTimeInput, readStationTime, useStationTimeField } from '../../../components/station-time/station-time-input';
+import { emptyStationTime, StationTimeInput, stationTimeToWire, useStationTimeFormField, type StationTimeValue } from '../../../components/station-time/station-time-input';
 import { formatStationTime } from '../../../../shared/station-time';
 import { pressureUnitLabels, temperatureUnits, type PressureUnit, type TemperatureUnit } from '../../../../shared/units';
-import { ApiError } from '../../../lib/api-client';
-import { useMe } from '../../session/api/get-me';
+import { useMe } from '../../session';
 import { useReadings, useRecordReading, type ReadingSummary } from '../api/readings';
 import { RecentReadings } from '../components/recent-readings';
 import { useWatchUnit } from '../../../app/use-live-updates';
@@ -34,6 +35,8 @@ function LastReadingHint({ last, timeZone }: { last: ReadingSummary | undefined;
   );
 }
 
+type RoundValues = ReadingFormValues & { takenAt: StationTimeValue };
+
 export function RoundsPage() {
   const { data: me } = useMe();
   const { unitId, unit } = useSelectedUnit();
@@ -41,56 +44,61 @@ export function RoundsPage() {
   const design = useCondenserDesign(unitId);
   const readings = useReadings(unitId);
   const record = useRecordReading();
-  const form = useForm<ReadingFormValues>({ defaultValues: emptyReadingForm(loadUnitChoices(me?.id)) });
-  const values = useWatch({ control: form.control }) as ReadingFormValues;
+  const timeZone = unit?.timeZone ?? 'UTC';
+  // The boxes hold text in the round's units; the shared round contract checks what they make, and its
+  // messages come back beside the box that holds each value.
+  const schema = throughContract(
+    ({ takenAt, ...boxes }: RoundValues, fail) => {
+      const { unitId: _unit, ...reading } = readingSetWire(unitId ?? 0, boxes);
+      const at = stationTimeToWire(takenAt, timeZone, fail, 'takenAt');
+      return { ...reading, ...(at ? { takenAt: at } : {}) };
+    },
+    recordReadingSchema,
+    roundFieldFor,
+  );
+  const blank = (): RoundValues => ({ ...emptyReadingForm(loadUnitChoices(me?.id)), takenAt: emptyStationTime });
+  const form = useSchemaForm(schema, { defaultValues: blank(), fieldFor: roundFieldFor });
+  const watched = useWatch({ control: form.control }) as RoundValues;
+  const values = useMemo((): ReadingFormValues => {
+    const { takenAt: _takenAt, ...boxes } = watched;
+    return boxes;
+  }, [watched]);
   useRememberUnitChoices(values, me?.id);
   const live = useLiveEvaluation(unitId, values, design.data);
-  const takenAt = useStationTimeField();
-  const [serverErrors, setServerErrors] = useState<FormErrors>({});
-  const [saveError, setSaveError] = useState<string | null>(null);
-  const [takenAtError, setTakenAtError] = useState<string | undefined>();
+  const takenAt = useStationTimeFormField(form, 'takenAt');
+  const [refusal, setRefusal] = useState<string | null>(null);
   const question = useOutsidePlausibleQuestion(live.notices);
   const mayRecord = me && can(me.role, 'reading.record');
+  const boxErrors = Object.fromEntries(Object.keys(values).map((box) => [box, form.error(box)]).filter(([, message]) => message)) as FormErrors;
 
   /** `confirmed`: the person has seen the readings outside the plausible range and saves them anyway. */
-  const save = (confirmed = false) => {
-    setSaveError(null);
-    setServerErrors({});
-    setTakenAtError(undefined);
-    if (!unitId || !live.input) {
-      // Empty required boxes are quiet while typing; on save each says it is missing.
-      setServerErrors(live.allErrors);
-      const boxes = Object.keys(live.allErrors).map((box) => fieldLabel(Object.keys(fieldForPath).find((path) => fieldForPath[path] === box) ?? box));
-      setSaveError(boxes.length ? `Nothing was saved; see the readings marked below: ${boxes.join(', ')}.` : 'Some readings are missing or wrong; see the messages beside them.');
-      return;
-    }
-    const typed = unit ? readStationTime(takenAt, unit.timeZone) : { ok: true as const, at: null };
-    if (!typed.ok) {
-      setSaveError('Check the “Taken at” time; see the message beside it.');
-      return;
-    }
-    if (question.mustAsk(confirmed)) return;
-    const { unitId: _unit, ...reading } = live.input;
-    const confirmOutsidePlausible = confirmed ? question.keys() : [];
-    record.mutate(
-      { unitId, reading: { ...reading, ...(typed.at ? { takenAt: typed.at.toISOString() } : {}), ...(confirmOutsidePlausible.length ? { confirmOutsidePlausible } : {}) } },
-      {
-        onSuccess: () => {
-          form.reset(emptyReadingForm(loadUnitChoices(me?.id)));
-          takenAt.reset();
-          question.reset();
-        },
-        onError: (error) => {
+  const save = (confirmed = false) =>
+    form.submit(
+      async (reading) => {
+        setRefusal(null);
+        if (!unitId || question.mustAsk(confirmed)) return;
+        const confirmOutsidePlausible = confirmed ? question.keys() : [];
+        try {
+          await record.mutateAsync({ unitId, reading: { ...reading, ...(confirmOutsidePlausible.length ? { confirmOutsidePlausible } : {}) } });
+        } catch (error) {
           if (question.takeRefusal(error)) return;
-          setSaveError(error.message);
-          if (error instanceof ApiError) {
-            setServerErrors(formErrorsFromServer(error.fields));
-            setTakenAtError(error.fields.takenAt);
-          }
-        },
+          throw error;
+        }
+        form.reset(blank());
+        question.reset();
       },
-    );
-  };
+      (errors) => {
+        // Empty required boxes are quiet while typing; on save each says it is missing.
+        const boxes = Object.keys(errors).filter((box) => box !== 'takenAt');
+        setRefusal(
+          boxes.length
+            ? `Nothing was saved; see the readings marked below: ${boxLabels(boxes).join(', ')}.`
+            : errors.takenAt
+              ? 'Check the “Taken at” time; see the message beside it.'
+              : 'Some readings are missing or wrong; see the messages beside them.',
+        );
+      },
+    )();
 
   return (
     <section className="flex flex-col gap-4">
@@ -102,7 +110,7 @@ export function RoundsPage() {
         <UnitPicker />
       </div>
       <CautionNote />
-      {me?.role === 'trainee' ? <Notice kind="info">Your rounds are marked as a trainee’s and wait for an operator’s countersign.</Notice> : null}
+      {me && roundWaitsForCountersign(me.role) ? <Notice kind="info">Your rounds are marked as a trainee’s and wait for an operator’s countersign.</Notice> : null}
       {unit ? <LastReadingHint last={readings.data?.[0]} timeZone={unit.timeZone} /> : null}
       {record.isSuccess ? (
         <Notice kind="success">
@@ -113,7 +121,8 @@ export function RoundsPage() {
           {record.data.flagsRaised ? ` — ${record.data.flagsRaised} new flag(s) raised.` : ''}
         </Notice>
       ) : null}
-      {saveError ? <Notice kind="error">{saveError}</Notice> : null}
+      {refusal ? <Notice kind="error">{refusal}</Notice> : null}
+      <FormFailure form={form} />
       {design.error ? <Notice kind="error">{design.error.message}</Notice> : null}
       <div className="grid gap-6 lg:grid-cols-2">
         <form
@@ -122,13 +131,13 @@ export function RoundsPage() {
           className="flex flex-col gap-4 rounded-lg border border-line bg-panel p-4"
           onSubmit={(e) => {
             e.preventDefault();
-            save();
+            void save();
           }}
         >
-          {unit ? <StationTimeInput className="text-sm font-bold" label="Taken at (leave empty for now)" field={takenAt} timeZone={unit.timeZone} error={takenAtError} /> : null}
-          <ReadingFormFields form={form} errors={{ ...live.shownErrors, ...serverErrors }} values={values} warnings={live.warnings} />
+          {unit ? <StationTimeInput className="text-sm font-bold" label="Taken at (leave empty for now)" field={takenAt} timeZone={unit.timeZone} error={form.error('takenAt')} /> : null}
+          <ReadingFormFields form={form} errors={{ ...live.shownErrors, ...boxErrors }} values={values} warnings={live.warnings} />
           {mayRecord && question.asking ? (
-            <ConfirmOutsidePlausible notices={question.notices} pending={record.isPending} onConfirm={() => save(true)} onCancel={question.cancel} />
+            <ConfirmOutsidePlausible notices={question.notices} pending={record.isPending} onConfirm={() => void save(true)} onCancel={question.cancel} />
           ) : null}
           {mayRecord ? (
             <Button type="submit" disabled={record.isPending}>

@@ -1,11 +1,9 @@
-import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useNavigate } from 'react-router';
-import { changePasswordSchema, type ChangePasswordInput } from '../../../../shared/schemas/auth';
+import { changePasswordSchema } from '../../../../shared/schemas/auth';
 import { TextField } from '../../../components/ui/form-field';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
-import { applyServerErrors } from '../../../lib/form-errors';
+import { FormFailure, useSchemaForm } from '../../../components/form/schema-form';
 import { useMe } from '../api/get-me';
 import { useChangePassword } from '../api/change-password';
 
@@ -13,20 +11,15 @@ export function ChangePasswordPage() {
   const { data: me } = useMe();
   const navigate = useNavigate();
   const change = useChangePassword();
-  const form = useForm<ChangePasswordInput>({
-    resolver: zodResolver(changePasswordSchema),
+  const form = useSchemaForm(changePasswordSchema, {
     defaultValues: { currentPassword: '', newPassword: '' },
   });
   const { errors } = form.formState;
-  const onSubmit = form.handleSubmit((values) =>
-    change.mutate(values, {
-      onSuccess: () => {
-        form.reset();
-        if (me?.mustChangePassword) navigate('/', { replace: true });
-      },
-      onError: (error) => form.setError('root', { message: applyServerErrors(error, form.setError) }),
-    }),
-  );
+  const onSubmit = form.submit(async (values) => {
+    await change.mutateAsync(values);
+    form.reset();
+    if (me?.mustChangePassword) navigate('/', { replace: true });
+  });
 
   return (
     <section className="max-w-md">
@@ -37,7 +30,7 @@ export function ChangePasswordPage() {
         </div>
       ) : null}
       <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4 rounded-lg border border-line bg-panel p-6">
-        {errors.root?.message ? <Notice kind="error">{errors.root.message}</Notice> : null}
+        <FormFailure form={form} />
         {change.isSuccess ? <Notice kind="success">Your password is changed. Any other browser signed in as you has been signed out.</Notice> : null}
         <TextField
           label="Current password"

@@ -1,11 +1,9 @@
-import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
 import { Navigate, useNavigate, useSearchParams } from 'react-router';
-import { signInSchema, type SignInInput } from '../../../../shared/schemas/auth';
+import { signInSchema } from '../../../../shared/schemas/auth';
 import { TextField } from '../../../components/ui/form-field';
 import { Button } from '../../../components/ui/button';
-import { CautionNote, Notice } from '../../../components/ui/notice';
-import { applyServerErrors } from '../../../lib/form-errors';
+import { CautionNote } from '../../../components/ui/notice';
+import { FormFailure, useSchemaForm } from '../../../components/form/schema-form';
 import { useMe } from '../api/get-me';
 import { useSignIn } from '../api/sign-in';
 
@@ -19,17 +17,15 @@ export function SignInPage() {
   const [params] = useSearchParams();
   const navigate = useNavigate();
   const signIn = useSignIn();
-  const form = useForm<SignInInput>({ resolver: zodResolver(signInSchema), defaultValues: { email: '', password: '' } });
+  const form = useSchemaForm(signInSchema, { defaultValues: { email: '', password: '' } });
   const next = safeNext(params.get('next'));
 
   if (me) return <Navigate to={next} replace />;
 
-  const onSubmit = form.handleSubmit((values) =>
-    signIn.mutate(values, {
-      onSuccess: (user) => navigate(user.mustChangePassword ? '/account/password' : next, { replace: true }),
-      onError: (error) => form.setError('root', { message: applyServerErrors(error, form.setError) }),
-    }),
-  );
+  const onSubmit = form.submit(async (values) => {
+    const user = await signIn.mutateAsync(values);
+    navigate(user.mustChangePassword ? '/account/password' : next, { replace: true });
+  });
   const { errors } = form.formState;
 
   return (
@@ -40,7 +36,7 @@ export function SignInPage() {
       </div>
       <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4 rounded-lg border border-line bg-panel p-6">
         <h2 className="text-xl font-bold">Sign in</h2>
-        {errors.root?.message ? <Notice kind="error">{errors.root.message}</Notice> : null}
+        <FormFailure form={form} />
         <TextField label="E-mail" type="email" autoComplete="username" error={errors.email?.message} {...form.register('email')} />
         <TextField
           label="Password"

@@ -1,37 +1,106 @@
-import { useState } from 'react';
-import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { StationSettings } from '../../../../shared/schemas/log';
+import { useWatch } from 'react-hook-form';
+import { crewRotationSchema, crewSwapSchema } from '../../../../shared/schemas/handovers';
 import { useSelectedUnit } from '../../../components/readings/unit-picker';
+import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
-import { FormErrorSummary } from '../../../components/ui/form-error-summary';
-import { ApiError, api } from '../../../lib/api-client';
 import { useCrews } from '../../../components/plant/crews';
-import { StationTimeInput, readStationTime, useStationTimeField } from '../../../components/station-time/station-time-input';
+import { FieldMessage, FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
+import { emptyStationTime, StationTimeInput, stationTimeToWire, useStationTimeFormField, type StationTimeValue } from '../../../components/station-time/station-time-input';
+import { useShifts } from '../../log';
 import { useStationSettings } from '../api/station-settings';
+import { useAddSwap, useSaveRotation } from '../api/crew-rotation';
 import { StationSettingsForm } from '../components/station-settings-form';
-import { logKeys } from '../../log/api/log';
 
 const field = 'rounded-md border border-line bg-field px-2 py-1';
+
+function RotationForm({ stationId, timeZone, shifts }: { stationId: number | null; timeZone: string; shifts: { start: string; label: string }[] }) {
+  const crews = useCrews();
+  const save = useSaveRotation(stationId);
+  const form = useSchemaForm(crewRotationSchema, { defaultValues: { anchorShiftStart: '', crewIds: [] } });
+  const order = useWatch({ control: form.control, name: 'crewIds' });
+  const toggle = (id: number) => form.setValue('crewIds', order.includes(id) ? order.filter((x) => x !== id) : [...order, id], { shouldDirty: true });
+  return (
+    <form aria-label="Crew rotation" noValidate className="flex flex-col gap-2 rounded-lg border border-line bg-panel p-3 text-sm" onSubmit={form.submit((values) => save.mutateAsync(values))}>
+      <h2 className="font-bold">Crew rotation</h2>
+      <p>Crews take the shifts in the order ticked, one shift each, starting with the chosen shift.</p>
+      <label className="flex flex-col">
+        First shift of the rotation (station time, {timeZone})
+        <select className={field} {...form.register('anchorShiftStart')}>
+          <option value="">Choose…</option>
+          {shifts.map((s) => (
+            <option key={s.start} value={s.start}>
+              {s.label}
+            </option>
+          ))}
+        </select>
+        <FieldMessage message={form.error('anchorShiftStart')} />
+      </label>
+      <div className="flex flex-wrap gap-2">
+        {crews.data?.map((c) => (
+          <Button key={c.id} tone="toggle" pressed={order.includes(c.id)} onClick={() => toggle(c.id)}>
+            Crew {c.name}
+            {order.includes(c.id) ? ` (#${order.indexOf(c.id) + 1})` : ''}
+          </Button>
+        ))}
+      </div>
+      <FieldMessage message={form.error('crewIds')} />
+      <FormFailure form={form} />
+      {save.isSuccess ? <Notice kind="success">Rotation saved.</Notice> : null}
+      <Button type="submit" size="sm" className="self-start">
+        Save rotation
+      </Button>
+    </form>
+  );
+}
+
+type SwapValues = { shiftStart: StationTimeValue; crewId: string; reason: string };
+
+function SwapForm({ stationId, timeZone }: { stationId: number | null; timeZone: string }) {
+  const crews = useCrews();
+  const add = useAddSwap(stationId);
+  // Read on the station's saved clock; an unsaved zone typed above does not apply yet.
+  const schema = throughContract(
+    (v: SwapValues, fail) => ({ shiftStart: stationTimeToWire(v.shiftStart, timeZone, fail, 'shiftStart') ?? '', crewId: Number(v.crewId), reason: v.reason }),
+    crewSwapSchema,
+  );
+  const form = useSchemaForm(schema, { defaultValues: { shiftStart: emptyStationTime, crewId: '', reason: '' } });
+  const shiftStart = useStationTimeFormField(form, 'shiftStart');
+  return (
+    <form aria-label="One-off swap" noValidate className="flex flex-col gap-2 rounded-lg border border-line bg-panel p-3 text-sm" onSubmit={form.submit((values) => add.mutateAsync(values))}>
+      <h2 className="font-bold">One-off swap</h2>
+      <StationTimeInput label="Shift starting" field={shiftStart} timeZone={timeZone} error={form.error('shiftStart')} />
+      <label className="flex flex-col">
+        Crew working it instead
+        <select className={field} {...form.register('crewId')}>
+          <option value="">Choose…</option>
+          {crews.data?.map((c) => (
+            <option key={c.id} value={c.id}>
+              Crew {c.name}
+            </option>
+          ))}
+        </select>
+        <FieldMessage message={form.error('crewId')} />
+      </label>
+      <label className="flex flex-col">
+        Reason
+        <input className={field} {...form.register('reason')} />
+        <FieldMessage message={form.error('reason')} />
+      </label>
+      <FormFailure form={form} />
+      {add.isSuccess ? <Notice kind="success">Swap recorded.</Notice> : null}
+      <Button type="submit" size="sm" className="self-start">
+        Record swap
+      </Button>
+    </form>
+  );
+}
 
 /** Administrators: the station's clock and shift pattern, crew rotation and one-off swaps. */
 export function ShiftsPage() {
   const { unit, unitId } = useSelectedUnit();
   const stationId = unit?.stationId ?? null;
-  const queryClient = useQueryClient();
-  const crews = useCrews();
   const stationSettings = useStationSettings(stationId);
-  const shifts = useQuery({
-    queryKey: logKeys.shifts(unitId ?? 0),
-    queryFn: () => api.get<{ settings: StationSettings; shifts: { start: string; label: string }[] }>(`/api/units/${unitId}/log/shifts`),
-    enabled: unitId !== null,
-  });
-  const [anchor, setAnchor] = useState('');
-  const [order, setOrder] = useState<number[]>([]);
-  const [swap, setSwap] = useState({ crewId: '', reason: '' });
-  const swapStart = useStationTimeField();
-  const refresh = () => void queryClient.invalidateQueries();
-  const saveRotation = useMutation({ mutationFn: (body: { anchorShiftStart: string; crewIds: number[] }) => api.put(`/api/stations/${stationId}/crew-rotation`, body), onSuccess: refresh });
-  const addSwap = useMutation({ mutationFn: (body: { shiftStart: string; crewId: number; reason: string }) => api.post(`/api/stations/${stationId}/crew-swaps`, body), onSuccess: refresh });
+  const shifts = useShifts(unitId);
   const settings = shifts.data?.settings;
   if (!settings) return <p className="text-muted">Loading…</p>;
 
@@ -40,77 +109,8 @@ export function ShiftsPage() {
       <h1 className="text-2xl font-bold">Shifts and crews</h1>
       {stationId !== null && stationSettings.data ? <StationSettingsForm key={stationId} stationId={stationId} settings={stationSettings.data} /> : null}
       {stationSettings.error ? <Notice kind="error">{stationSettings.error.message}</Notice> : null}
-
-      <form
-        aria-label="Crew rotation"
-        className="flex flex-col gap-2 rounded-lg border border-line bg-panel p-3 text-sm"
-        onSubmit={(e) => {
-          e.preventDefault();
-          saveRotation.mutate({ anchorShiftStart: anchor, crewIds: order });
-        }}
-      >
-        <h2 className="font-bold">Crew rotation</h2>
-        <p>Crews take the shifts in the order ticked, one shift each, starting with the chosen shift.</p>
-        <label className="flex flex-col">
-          First shift of the rotation (station time, {settings.timeZone})
-          <select className={field} value={anchor} onChange={(e) => setAnchor(e.target.value)}>
-            <option value="">Choose…</option>
-            {shifts.data?.shifts.map((s) => (
-              <option key={s.start} value={s.start}>
-                {s.label}
-              </option>
-            ))}
-          </select>
-        </label>
-        <div className="flex flex-wrap gap-2">
-          {crews.data?.map((c) => (
-            <button key={c.id} type="button" className={`rounded-md border px-2 py-1 ${order.includes(c.id) ? 'border-accent font-bold' : 'border-line'}`} onClick={() => setOrder(order.includes(c.id) ? order.filter((x) => x !== c.id) : [...order, c.id])}>
-              Crew {c.name}
-              {order.includes(c.id) ? ` (#${order.indexOf(c.id) + 1})` : ''}
-            </button>
-          ))}
-        </div>
-        <FormErrorSummary error={saveRotation.error} />
-        {saveRotation.isSuccess ? <Notice kind="success">Rotation saved.</Notice> : null}
-        <button type="submit" className="self-start rounded-md bg-accent px-3 py-1 font-bold text-on-accent">
-          Save rotation
-        </button>
-      </form>
-
-      <form
-        aria-label="One-off swap"
-        className="flex flex-col gap-2 rounded-lg border border-line bg-panel p-3 text-sm"
-        onSubmit={(e) => {
-          e.preventDefault();
-          // Read on the station's saved clock; an unsaved zone typed above does not apply yet.
-          const start = readStationTime(swapStart, settings.timeZone);
-          if (!start.ok) return;
-          addSwap.mutate({ shiftStart: start.at ? start.at.toISOString() : '', crewId: Number(swap.crewId), reason: swap.reason });
-        }}
-      >
-        <h2 className="font-bold">One-off swap</h2>
-        <StationTimeInput label="Shift starting" field={swapStart} timeZone={settings.timeZone} error={addSwap.error instanceof ApiError ? addSwap.error.fields.shiftStart : undefined} />
-        <label className="flex flex-col">
-          Crew working it instead
-          <select className={field} value={swap.crewId} onChange={(e) => setSwap({ ...swap, crewId: e.target.value })}>
-            <option value="">Choose…</option>
-            {crews.data?.map((c) => (
-              <option key={c.id} value={c.id}>
-                Crew {c.name}
-              </option>
-            ))}
-          </select>
-        </label>
-        <label className="flex flex-col">
-          Reason
-          <input className={field} value={swap.reason} onChange={(e) => setSwap({ ...swap, reason: e.target.value })} />
-        </label>
-        <FormErrorSummary error={addSwap.error} placed={['shiftStart']} />
-        {addSwap.isSuccess ? <Notice kind="success">Swap recorded.</Notice> : null}
-        <button type="submit" className="self-start rounded-md bg-accent px-3 py-1 font-bold text-on-accent">
-          Record swap
-        </button>
-      </form>
+      <RotationForm stationId={stationId} timeZone={settings.timeZone} shifts={shifts.data?.shifts ?? []} />
+      <SwapForm stationId={stationId} timeZone={settings.timeZone} />
     </section>
   );
 }

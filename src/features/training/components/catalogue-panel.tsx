@@ -1,9 +1,9 @@
 import { useState } from 'react';
-import { useForm } from 'react-hook-form';
-import { qualificationSystemLabels, qualificationSystems } from '../../../../shared/schemas/training';
+import { newTaskSchema, qualificationSystemLabels, qualificationSystems, taskChangeSchema } from '../../../../shared/schemas/training';
+import { Button } from '../../../components/ui/button';
+import { FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
 import { SelectField, TextField } from '../../../components/ui/form-field';
 import { Notice } from '../../../components/ui/notice';
-import { applyServerErrors } from '../../../lib/form-errors';
 import { ApiError } from '../../../lib/api-client';
 import { useRetireTask, useSaveTask, useTasks, useTaskVersions, type TaskView } from '../api/training';
 import { formatStationTime } from '../../../../shared/station-time';
@@ -13,26 +13,26 @@ import { groupBySystem } from '../lib/group-by-system';
 type Values = { taskKey: string; position: string; system: string; title: string; standard: string; procedureRef: string; requiredPerformances: string; changeNote: string };
 const blank: Values = { taskKey: '', position: 'field_operator', system: 'circulating_water', title: '', standard: '', procedureRef: '', requiredPerformances: '3', changeNote: '' };
 
+// The number of performances is typed; a new task names its key, a change says why.
+const taskFields = (v: Values) => ({ position: v.position, system: v.system, title: v.title, standard: v.standard, procedureRef: v.procedureRef || null, requiredPerformances: Number(v.requiredPerformances) });
+const newTaskForm = throughContract((v: Values) => ({ ...taskFields(v), taskKey: v.taskKey }), newTaskSchema);
+const changeTaskForm = throughContract((v: Values) => ({ ...taskFields(v), changeNote: v.changeNote }), taskChangeSchema);
+
 function TaskForm({ editing, onDone }: { editing: TaskView | null; onDone: () => void }) {
   const save = useSaveTask();
-  const form = useForm<Values>({
+  const form = useSchemaForm(editing ? changeTaskForm : newTaskForm, {
     defaultValues: editing ? { ...blank, ...editing, procedureRef: editing.procedureRef ?? '', requiredPerformances: String(editing.requiredPerformances), changeNote: '' } : blank,
   });
   const errors = form.formState.errors;
-  const submit = form.handleSubmit(async (v) => {
-    const body: Record<string, unknown> = { position: v.position, system: v.system, title: v.title, standard: v.standard, procedureRef: v.procedureRef || null, requiredPerformances: Number(v.requiredPerformances) };
-    if (editing) body.changeNote = v.changeNote;
-    try {
-      await save.mutateAsync({ mode: editing ? 'change' : 'create', taskKey: editing?.taskKey ?? v.taskKey, body });
-      onDone();
-    } catch (error) {
-      form.setError('root', { message: applyServerErrors(error, form.setError) });
-    }
+  const submit = form.submit(async (task) => {
+    const { taskKey, ...body } = 'taskKey' in task ? task : { ...task, taskKey: editing?.taskKey ?? '' };
+    await save.mutateAsync({ mode: editing ? 'change' : 'create', taskKey, body });
+    onDone();
   });
   return (
-    <form onSubmit={submit} aria-label={editing ? `Change ${editing.taskKey}` : 'New task'} className="grid gap-3 rounded-lg border border-accent bg-panel p-3 sm:grid-cols-2">
+    <form onSubmit={submit} noValidate aria-label={editing ? `Change ${editing.taskKey}` : 'New task'} className="grid gap-3 rounded-lg border border-accent bg-panel p-3 sm:grid-cols-2">
       <h3 className="font-bold sm:col-span-2">{editing ? `Change ${editing.taskKey} (becomes version ${editing.version + 1})` : 'New qualification task'}</h3>
-      {errors.root?.message ? <div className="sm:col-span-2"><Notice kind="error">{errors.root.message}</Notice></div> : null}
+      <FormFailure form={form} className="sm:col-span-2" />
       {editing ? null : <TextField label="Key" hint="e.g. CW-07" error={errors.taskKey?.message} {...form.register('taskKey')} />}
       <TextField label="Position" hint="e.g. field_operator, control_room_operator" list="qualification-positions" error={errors.position?.message} {...form.register('position')} />
       <datalist id="qualification-positions">
@@ -58,12 +58,12 @@ function TaskForm({ editing, onDone }: { editing: TaskView | null; onDone: () =>
         </div>
       ) : null}
       <div className="flex gap-2 sm:col-span-2">
-        <button type="submit" className="rounded-md bg-accent px-3 py-2 font-bold text-on-accent" disabled={form.formState.isSubmitting}>
+        <Button type="submit" disabled={form.formState.isSubmitting}>
           Save
-        </button>
-        <button type="button" className="rounded-md border border-line px-3 py-2" onClick={onDone}>
+        </Button>
+        <Button tone="plain" onClick={onDone}>
           Cancel
-        </button>
+        </Button>
       </div>
     </form>
   );
@@ -94,9 +94,9 @@ export function CataloguePanel({ mayEdit }: { mayEdit: boolean }) {
       <div className="flex items-center gap-3">
         <h2 className="text-lg font-bold">Qualification catalogue</h2>
         {mayEdit && editing === null ? (
-          <button type="button" className="rounded-md border border-line px-3 py-1" onClick={() => setEditing('new')}>
+          <Button tone="plain" size="sm" onClick={() => setEditing('new')}>
             New task
-          </button>
+          </Button>
         ) : null}
       </div>
       {editing ? <TaskForm editing={editing === 'new' ? null : editing} onDone={() => setEditing(null)} /> : null}
@@ -133,25 +133,25 @@ export function CataloguePanel({ mayEdit }: { mayEdit: boolean }) {
                 <td className="p-2">{t.procedureRef ?? '—'}</td>
                 <td className="p-2 text-right">{t.requiredPerformances}</td>
                 <td className="p-2">
-                  <button type="button" className="underline" onClick={() => setHistory(history === t.taskKey ? null : t.taskKey)}>
+                  <Button tone="link" onClick={() => setHistory(history === t.taskKey ? null : t.taskKey)}>
                     v{t.version}
-                  </button>
+                  </Button>
                   {history === t.taskKey ? <Versions taskKey={t.taskKey} /> : null}
                   {mayEdit ? (
                     <span className="mt-1 flex gap-2 text-xs">
-                      <button type="button" className="underline" onClick={() => setEditing(t)}>
+                      <Button tone="link" onClick={() => setEditing(t)}>
                         Change
-                      </button>
-                      <button
-                        type="button"
-                        className="text-alarm underline"
+                      </Button>
+                      <Button
+                        tone="link"
+                        className="text-alarm"
                         onClick={() => {
                           const note = window.prompt(`Why is ${t.taskKey} retired?`);
                           if (note) retire.mutate({ taskKey: t.taskKey, changeNote: note });
                         }}
                       >
                         Retire
-                      </button>
+                      </Button>
                     </span>
                   ) : null}
                 </td>

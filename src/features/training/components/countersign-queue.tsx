@@ -1,14 +1,31 @@
 import { useState } from 'react';
-import { trainingLevelLabels } from '../../../../shared/schemas/training';
+import { rejectEntrySchema, trainingLevelLabels } from '../../../../shared/schemas/training';
 import { Notice } from '../../../components/ui/notice';
-import { ApiError } from '../../../lib/api-client';
+import { Button } from '../../../components/ui/button';
+import { FieldMessage, FormFailure, useSchemaForm } from '../../../components/form/schema-form';
 import { useCountersignQueue, useSettleEntry, type QueueEntry } from '../api/training';
+
+function RejectForm({ entryId }: { entryId: number }) {
+  const settle = useSettleEntry();
+  const form = useSchemaForm(rejectEntrySchema, { defaultValues: { reason: '' } });
+  return (
+    <form className="flex flex-wrap items-end gap-2" noValidate onSubmit={form.submit((v) => settle.mutateAsync({ id: entryId, action: 'reject', reason: v.reason }))}>
+      <label className="flex flex-col">
+        Reason
+        <input className="rounded-md border border-line bg-field px-2 py-1" {...form.register('reason')} />
+      </label>
+      <Button type="submit" tone="danger" size="sm">
+        Reject
+      </Button>
+      <FieldMessage message={form.error('reason')} />
+      <FormFailure form={form} className="w-full" />
+    </form>
+  );
+}
 
 function QueueItem({ entry }: { entry: QueueEntry }) {
   const settle = useSettleEntry();
   const [rejecting, setRejecting] = useState(false);
-  const [reason, setReason] = useState('');
-  const fields = settle.error instanceof ApiError ? settle.error.fields : {};
   return (
     <li className="rounded-md border border-line bg-panel p-2 text-sm" data-testid="countersign-entry">
       <p>
@@ -16,32 +33,17 @@ function QueueItem({ entry }: { entry: QueueEntry }) {
         {entry.supervisor ? ` · names ${entry.supervisor}` : ''}
       </p>
       <p>{entry.note}</p>
-      {settle.error && !fields.reason ? <Notice kind="error">{settle.error.message}</Notice> : null}
+      {settle.error ? <Notice kind="error">{settle.error.message}</Notice> : null}
       <div className="mt-1 flex flex-wrap items-end gap-2">
-        <button type="button" className="rounded-md bg-accent px-3 py-1 font-bold text-on-accent" disabled={settle.isPending} onClick={() => settle.mutate({ id: entry.id, action: 'countersign' })}>
+        <Button size="sm" disabled={settle.isPending} onClick={() => settle.mutate({ id: entry.id, action: 'countersign' })}>
           Countersign
-        </button>
+        </Button>
         {rejecting ? (
-          <form
-            className="flex flex-wrap items-end gap-2"
-            onSubmit={(e) => {
-              e.preventDefault();
-              settle.mutate({ id: entry.id, action: 'reject', reason });
-            }}
-          >
-            <label className="flex flex-col">
-              Reason
-              <input className="rounded-md border border-line bg-field px-2 py-1" value={reason} onChange={(e) => setReason(e.target.value)} />
-            </label>
-            <button type="submit" className="rounded-md border border-alarm px-3 py-1 text-alarm">
-              Reject
-            </button>
-            {fields.reason ? <span role="alert" className="text-alarm">⚠ {fields.reason}</span> : null}
-          </form>
+          <RejectForm entryId={entry.id} />
         ) : (
-          <button type="button" className="rounded-md border border-line px-3 py-1" onClick={() => setRejecting(true)}>
+          <Button tone="plain" size="sm" onClick={() => setRejecting(true)}>
             Reject…
-          </button>
+          </Button>
         )}
       </div>
     </li>

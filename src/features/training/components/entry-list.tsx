@@ -1,50 +1,55 @@
 import { useState } from 'react';
 import { Link } from 'react-router';
-import { trainingLevelLabels } from '../../../../shared/schemas/training';
-import { Notice } from '../../../components/ui/notice';
-import { ApiError } from '../../../lib/api-client';
+import { trainingAmendmentSchema, trainingLevelLabels } from '../../../../shared/schemas/training';
+import { Button } from '../../../components/ui/button';
+import { FieldMessage, FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
 import { useZoneOfUnit } from '../../../components/station-time/use-station-zone';
 import { formatStationTime } from '../../../../shared/station-time';
-import { useMe } from '../../session/api/get-me';
+import { useMe } from '../../session';
 import { useAmendTraining, type EntryView } from '../api/training';
 
 const statusWords = { awaiting_countersign: '… awaiting countersign', countersigned: '✔ countersigned', rejected: '✖ rejected' };
 
 function AmendEntry({ entry }: { entry: EntryView }) {
-  const amend = useAmendTraining();
   const [open, setOpen] = useState(false);
-  const [reason, setReason] = useState('');
-  const [text, setText] = useState('');
-  const fields = amend.error instanceof ApiError ? amend.error.fields : {};
   if (!open) {
     return (
-      <button type="button" className="text-xs underline" onClick={() => setOpen(true)}>
+      <Button tone="link" className="text-xs" onClick={() => setOpen(true)}>
         Add an amendment
-      </button>
+      </Button>
     );
   }
+  return <AmendEntryForm entryId={entry.id} onDone={() => setOpen(false)} />;
+}
+
+function AmendEntryForm({ entryId, onDone }: { entryId: number; onDone: () => void }) {
+  const amend = useAmendTraining();
+  const schema = throughContract((v: { reason: string; text: string }) => ({ target: 'entry', targetId: entryId, ...v }), trainingAmendmentSchema);
+  const form = useSchemaForm(schema, { defaultValues: { reason: '', text: '' } });
+  const input = 'rounded-md border border-line bg-field px-2 py-1';
   return (
     <form
       className="mt-1 flex flex-col gap-1 text-sm"
-      onSubmit={(e) => {
-        e.preventDefault();
-        amend.mutate({ target: 'entry', targetId: entry.id, reason, text }, { onSuccess: () => setOpen(false) });
-      }}
+      noValidate
+      onSubmit={form.submit(async (v) => {
+        await amend.mutateAsync(v);
+        onDone();
+      })}
     >
       <label className="flex flex-col">
         Why
-        <input className="rounded-md border border-line bg-field px-2 py-1" value={reason} onChange={(e) => setReason(e.target.value)} />
+        <input className={input} {...form.register('reason')} />
       </label>
-      {fields.reason ? <span role="alert" className="text-alarm">⚠ {fields.reason}</span> : null}
+      <FieldMessage message={form.error('reason')} />
       <label className="flex flex-col">
         Correction
-        <input className="rounded-md border border-line bg-field px-2 py-1" value={text} onChange={(e) => setText(e.target.value)} />
+        <input className={input} {...form.register('text')} />
       </label>
-      {fields.text ? <span role="alert" className="text-alarm">⚠ {fields.text}</span> : null}
-      {amend.error && !Object.keys(fields).length ? <Notice kind="error">{amend.error.message}</Notice> : null}
-      <button type="submit" className="self-start rounded-md border border-line px-2 py-1">
+      <FieldMessage message={form.error('text')} />
+      <FormFailure form={form} />
+      <Button type="submit" tone="plain" size="xs" className="self-start">
         Save amendment
-      </button>
+      </Button>
     </form>
   );
 }

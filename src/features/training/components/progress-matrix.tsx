@@ -1,9 +1,8 @@
-import { useState } from 'react';
 import { formatStationTime } from '../../../../shared/station-time';
 import { useTrainingZone } from '../lib/use-training-zone';
-import { qualificationSystemLabels, taskStatusLabels, type TaskStatus } from '../../../../shared/schemas/training';
-import { Notice } from '../../../components/ui/notice';
-import { ApiError } from '../../../lib/api-client';
+import { decisionSchema, qualificationSystemLabels, type TaskStatus, taskStatusLabels } from '../../../../shared/schemas/training';
+import { Button } from '../../../components/ui/button';
+import { FieldMessage, FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
 import { useDecide, type Progress, type ProgressRow } from '../api/training';
 import { groupBySystem } from '../lib/group-by-system';
 
@@ -26,24 +25,31 @@ export function TaskStatusLabel({ status }: { status: TaskStatus }) {
 
 function DecisionForm({ traineeId, row }: { traineeId: number; row: ProgressRow }) {
   const decide = useDecide();
-  const [comments, setComments] = useState('');
-  const fields = decide.error instanceof ApiError ? decide.error.fields : {};
-  const send = (decision: 'signed_off' | 'returned') => decide.mutate({ traineeId, taskKey: row.task.taskKey, decision, comments }, { onSuccess: () => setComments('') });
+  // Which of the two buttons was pressed is a value of the form: the decision is part of what the contract checks.
+  const schema = throughContract((v: { comments: string; decision: string }) => ({ traineeId, taskKey: row.task.taskKey, ...v }), decisionSchema);
+  const form = useSchemaForm(schema, { defaultValues: { comments: '', decision: '' } });
+  const send = (chosen: 'signed_off' | 'returned') => {
+    form.setValue('decision', chosen);
+    void form.submit(async (input) => {
+      await decide.mutateAsync(input);
+      form.reset();
+    })();
+  };
   return (
-    <form className="flex flex-col gap-1" aria-label={`Decide on ${row.task.taskKey}`} onSubmit={(e) => e.preventDefault()}>
+    <form className="flex flex-col gap-1" aria-label={`Decide on ${row.task.taskKey}`} noValidate onSubmit={(e) => e.preventDefault()}>
       <label className="flex flex-col text-xs font-bold">
         Trainer’s comments
-        <textarea className="rounded-md border border-line bg-field p-1 font-normal" rows={2} value={comments} onChange={(e) => setComments(e.target.value)} />
+        <textarea className="rounded-md border border-line bg-field p-1 font-normal" rows={2} {...form.register('comments')} />
       </label>
-      {fields.comments ? <span role="alert" className="text-xs font-bold text-alarm">⚠ {fields.comments}</span> : null}
-      {decide.error && !fields.comments ? <Notice kind="error">{decide.error.message}</Notice> : null}
+      <FieldMessage message={form.error('comments')} className="text-xs font-bold text-alarm" />
+      <FormFailure form={form} />
       <div className="flex gap-1">
-        <button type="button" className="rounded-md bg-accent px-2 py-1 text-xs font-bold text-on-accent disabled:opacity-50" disabled={decide.isPending || row.status !== 'ready_for_sign_off'} onClick={() => send('signed_off')}>
+        <Button size="xs" className="text-xs" disabled={decide.isPending || row.status !== 'ready_for_sign_off'} onClick={() => send('signed_off')}>
           Sign off
-        </button>
-        <button type="button" className="rounded-md border border-line px-2 py-1 text-xs" disabled={decide.isPending} onClick={() => send('returned')}>
+        </Button>
+        <Button tone="plain" size="xs" className="text-xs" disabled={decide.isPending} onClick={() => send('returned')}>
           Return with comments
-        </button>
+        </Button>
       </div>
     </form>
   );

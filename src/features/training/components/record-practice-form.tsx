@@ -1,15 +1,15 @@
-import { useForm } from 'react-hook-form';
 import { can } from '../../../../shared/policies/permissions';
 import type { Role } from '../../../../shared/roles';
 import { Link, useSearchParams } from 'react-router';
 import { formatStationTime, stationToday } from '../../../../shared/station-time';
-import { trainingLevelLabels, trainingLevels, type NewTrainingEntry } from '../../../../shared/schemas/training';
+import { newTrainingEntrySchema, trainingLevelLabels, trainingLevels } from '../../../../shared/schemas/training';
+import { Button } from '../../../components/ui/button';
+import { FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
 import { SelectField, TextField } from '../../../components/ui/form-field';
 import { Notice } from '../../../components/ui/notice';
 import { usePeople } from '../../../components/people/person-select';
 import { useUnitList } from '../../../components/readings/unit-picker';
 import { useUnitZone } from '../../../components/station-time/use-station-zone';
-import { applyServerErrors } from '../../../lib/form-errors';
 import { useRecordEntry, useTasks } from '../api/training';
 import { groupBySystem } from '../lib/group-by-system';
 import { useTrainingZone } from '../lib/use-training-zone';
@@ -44,27 +44,23 @@ function PracticeForm({ timeZone }: { timeZone: string }) {
   const units = useUnitList();
   const record = useRecordEntry();
   const performedOn = link.shiftStart ? formatStationTime(link.shiftStart, timeZone, 'date') : stationToday(timeZone);
-  const form = useForm<Values>({ defaultValues: { taskKey: '', performedOn, level: 'supervised', supervisorId: '', unitId: link.unitId ? String(link.unitId) : '', note: '' } });
-  const errors = form.formState.errors;
-  const submit = form.handleSubmit(async (values) => {
-    const input: NewTrainingEntry = {
-      taskKey: values.taskKey,
-      performedOn: values.performedOn,
-      level: values.level as NewTrainingEntry['level'],
-      note: values.note,
-      supervisorId: values.supervisorId ? Number(values.supervisorId) : null,
-      unitId: values.unitId ? Number(values.unitId) : null,
+  const schema = throughContract(
+    (v: Values) => ({
+      ...v,
+      supervisorId: v.supervisorId ? Number(v.supervisorId) : null,
+      unitId: v.unitId ? Number(v.unitId) : null,
       ...(linked ? { shiftStart: link.shiftStart, readingSetId: link.readingSetId, handoverItemId: link.handoverItemId } : {}),
-    };
-    try {
-      await record.mutateAsync(input);
-      form.reset({ ...values, note: '' });
-    } catch (error) {
-      form.setError('root', { message: applyServerErrors(error, form.setError) });
-    }
+    }),
+    newTrainingEntrySchema,
+  );
+  const form = useSchemaForm(schema, { defaultValues: { taskKey: '', performedOn, level: 'supervised', supervisorId: '', unitId: link.unitId ? String(link.unitId) : '', note: '' } });
+  const errors = form.formState.errors;
+  const submit = form.submit(async (input) => {
+    await record.mutateAsync(input);
+    form.reset({ ...form.getValues(), note: '' });
   });
   return (
-    <form onSubmit={submit} aria-label="Record a practice" className="grid gap-3 rounded-lg border border-line bg-panel p-3 sm:grid-cols-2">
+    <form onSubmit={submit} noValidate aria-label="Record a practice" className="grid gap-3 rounded-lg border border-line bg-panel p-3 sm:grid-cols-2">
       <h2 className="text-lg font-bold sm:col-span-2">Record a practice</h2>
       {linked ? (
         <p className="text-sm sm:col-span-2" data-testid="practice-link">
@@ -75,12 +71,12 @@ function PracticeForm({ timeZone }: { timeZone: string }) {
               Open it
             </Link>
           ) : null}{' '}
-          <button type="button" className="underline" onClick={clear}>
+          <Button tone="link" onClick={clear}>
             Remove the link
-          </button>
+          </Button>
         </p>
       ) : null}
-      {errors.root?.message ? <div className="sm:col-span-2"><Notice kind="error">{errors.root.message}</Notice></div> : null}
+      <FormFailure form={form} className="sm:col-span-2" />
       {record.isSuccess && !form.formState.isDirty ? <div className="sm:col-span-2"><Notice kind="success">Recorded; it now waits for a countersign.</Notice></div> : null}
       <SelectField label="Task" error={errors.taskKey?.message} {...form.register('taskKey')}>
         <option value="">Choose…</option>
@@ -123,9 +119,9 @@ function PracticeForm({ timeZone }: { timeZone: string }) {
       <div className="sm:col-span-2">
         <TextField label="What you did" error={errors.note?.message} {...form.register('note')} />
       </div>
-      <button type="submit" className="rounded-md bg-accent px-3 py-2 font-bold text-on-accent sm:col-span-1" disabled={form.formState.isSubmitting}>
+      <Button type="submit" className="sm:col-span-1" disabled={form.formState.isSubmitting}>
         Record practice
-      </button>
+      </Button>
     </form>
   );
 }

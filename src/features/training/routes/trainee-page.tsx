@@ -3,7 +3,7 @@ import { can } from '../../../../shared/policies/permissions';
 import { mayAmendTraining } from '../../../../shared/policies/training';
 import { Notice } from '../../../components/ui/notice';
 import { ZoneNote } from '../../../components/station-time/zone-note';
-import { useMe } from '../../session/api/get-me';
+import { useMe } from '../../session';
 import { useTraineeProgress } from '../api/training';
 import { EntryList } from '../components/entry-list';
 import { ProgressMatrix } from '../components/progress-matrix';

@@ -3,8 +3,8 @@ import { can, type Action } from '../../../../shared/policies/permissions';
 import type { Role } from '../../../../shared/roles';
 import { Notice } from '../../../components/ui/notice';
 import { ZoneNote } from '../../../components/station-time/zone-note';
-import { useMe } from '../../session/api/get-me';
-import { MyReviewComments } from '../../logbook/components/my-review-comments';
+import { useMe } from '../../session';
+import { MyReviewComments } from '../../logbook';
 import { useMyProgress } from '../api/training';
 import { CataloguePanel } from '../components/catalogue-panel';
 import { CountersignQueue } from '../components/countersign-queue';
@@ -14,6 +14,7 @@ import { ProgressMatrix } from '../components/progress-matrix';
 import { RecordPracticeForm } from '../components/record-practice-form';
 import { ReviewQueue } from '../components/review-queue';
 import { useTrainingZone } from '../lib/use-training-zone';
+import { Button } from '../../../components/ui/button';
 
 type Tab = 'mine' | 'countersign' | 'queue' | 'crews' | 'catalogue';
 const tabLabels: Record<Tab, string> = { mine: 'My qualification record', countersign: 'Countersign', queue: 'Trainer’s queue', crews: 'Crew qualifications', catalogue: 'Catalogue' };
@@ -68,9 +69,9 @@ export function TrainingPage() {
       </aside>
       <div role="group" aria-label="Training views" className="flex flex-wrap gap-1 border-b border-line">
         {tabs.map((t) => (
-          <button key={t} type="button" aria-pressed={t === tab} className={`rounded-t-md px-3 py-2 ${t === tab ? 'border border-b-0 border-line bg-panel font-bold' : 'text-muted'}`} onClick={() => setChosen(t)}>
+          <Button key={t} tone="tab" pressed={t === tab} onClick={() => setChosen(t)}>
             {tabLabels[t]}
-          </button>
+          </Button>
         ))}
       </div>
       <div aria-label={tabLabels[tab]} role="region">

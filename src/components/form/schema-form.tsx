@@ -1,0 +1,167 @@
+// The one way a form is built: react-hook-form checked by a shared zod contract (zodResolver), the
+// server's field messages put back beside the same inputs, and the rest listed by their labels.
+import { useState, type BaseSyntheticEvent } from 'react';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useForm, type FieldErrors, type FieldValues, type UseFormProps, type UseFormReturn } from 'react-hook-form';
+import { z } from 'zod';
+import { applyServerErrors, isPlaced, labelled, otherFieldMessages, type FieldPlacement } from '../../lib/form-errors';
+import { Notice } from '../ui/notice';
+
+/** Reports a value the form cannot turn into the contract's shape (a box that is not a number, a time the clocks skip). */
+export type Fail = (field: string, message: string) => void;
+
+/**
+ * The shared schema as a form sees it, where the form holds values in another shape than the wire (numbers typed in
+ * the person's unit, station-time inputs, one box for a list): `toWire` converts, the shared schema checks exactly as
+ * the server does, and each of its issues comes back on the form field that holds it (`fieldFor`, else its path).
+ * Server validation is untouched: this only asks the same contract earlier.
+ */
+export function throughContract<TForm, TSchema extends z.ZodType>(
+  toWire: (values: TForm, fail: Fail) => unknown,
+  schema: TSchema,
+  fieldFor: (path: string) => string | undefined = () => undefined,
+) {
+  return z.custom<TForm>(() => true).transform((values, ctx): z.output<TSchema> => {
+    const failed = new Set<string>();
+    const wire = toWire(values, (field, message) => {
+      failed.add(field);
+      ctx.addIssue({ code: 'custom', message, path: field.split('.') });
+    });
+    const parsed = schema.safeParse(wire);
+    if (parsed.success && !failed.size) return parsed.data;
+    for (const issue of parsed.error?.issues ?? []) {
+      const path = issue.path.join('.');
+      const field = fieldFor(path) ?? path;
+      if (failed.has(field)) continue;
+      failed.add(field);
+      ctx.addIssue({ code: 'custom', message: issue.message, path: field ? field.split('.') : [] });
+    }
+    return z.NEVER;
+  });
+}
+
+type Options<TIn extends FieldValues, TOut> = Omit<UseFormProps<TIn, unknown, TOut>, 'resolver'> & Partial<FieldPlacement>;
+
+export type SchemaForm<TIn extends FieldValues, TOut> = UseFormReturn<TIn, unknown, TOut> & {
+  placement: FieldPlacement;
+  /** The last failed request, until the next submit. */
+  failure: unknown;
+  /** Shows a failed request: field messages beside their inputs, the rest in the form's summary. */
+  fail: (error: unknown) => void;
+  /** The submit handler: the contract first, then `send`; a failure of `send` is shown on the form. `refused`: the contract said no. */
+  submit: (send: (values: TOut) => Promise<unknown> | unknown, refused?: (errors: FieldErrors<TIn>) => void) => (event?: BaseSyntheticEvent) => Promise<void>;
+  /** The message to show beside a field, if any. */
+  error: (field: string) => string | undefined;
+};
+
+/** react-hook-form with the shared contract as its resolver; see `throughContract` for forms whose values differ from the wire. */
+export function useSchemaForm<TSchema extends z.ZodType<unknown, FieldValues>>(
+  schema: TSchema,
+  { placed, fieldFor, ...options }: Options<z.input<TSchema>, z.output<TSchema>>,
+): SchemaForm<z.input<TSchema>, z.output<TSchema>> {
+  type TIn = z.input<TSchema>;
+  type TOut = z.output<TSchema>;
+  const form = useForm<TIn, unknown, TOut>({ ...options, resolver: zodResolver(schema as never) as never });
+  const [failure, setFailure] = useState<unknown>(null);
+  const placement: FieldPlacement = { placed: placed ?? Object.keys(options.defaultValues ?? {}), fieldFor };
+  const fail = (error: unknown) => {
+    setFailure(error);
+    applyServerErrors(error, form.setError, placement);
+  };
+  return {
+    ...form,
+    placement,
+    failure,
+    fail,
+    submit: (send, refused) =>
+      form.handleSubmit(
+        async (values) => {
+          setFailure(null);
+          try {
+            await send(values);
+          } catch (error) {
+            fail(error);
+          }
+        },
+        (errors) => {
+          setFailure(null);
+          refused?.(errors);
+        },
+      ),
+    error: (field) => messageAt(form.formState.errors, field),
+  };
+}
+
+/** The first message at or under a field (a list's item, a nested box). */
+export function messageAt(errors: unknown, field: string): string | undefined {
+  const node = field.split('.').reduce<unknown>((at, key) => (at && typeof at === 'object' ? (at as Record<string, unknown>)[key] : undefined), errors);
+  return firstMessage(node);
+}
+
+function firstMessage(node: unknown): string | undefined {
+  if (!node || typeof node !== 'object') return undefined;
+  const own = (node as { message?: unknown }).message;
+  if (typeof own === 'string' && own) return own;
+  for (const [key, child] of Object.entries(node)) {
+    if (key === 'ref') continue;
+    const message = firstMessage(child);
+    if (message) return message;
+  }
+  return undefined;
+}
+
+/** Every client-side message on a field that has no input in this form, named by its label. */
+function unplacedMessages(errors: FieldErrors, placed: readonly string[], prefix = ''): string[] {
+  const lines: string[] = [];
+  for (const [key, node] of Object.entries(errors)) {
+    if (key === 'root' || key === 'ref' || !node || typeof node !== 'object') continue;
+    const path = prefix ? `${prefix}.${key}` : key;
+    if (isPlaced(path, placed)) continue;
+    const own = (node as { message?: unknown }).message;
+    if (typeof own === 'string' && own) lines.push(labelled(path, own));
+    else lines.push(...unplacedMessages(node as FieldErrors, placed, path));
+  }
+  return lines;
+}
+
+const messageOf = (error: unknown) =>
+  error && typeof error === 'object' && 'fields' in error && typeof (error as { fields: Record<string, string> }).fields._ === 'string'
+    ? (error as { fields: Record<string, string> }).fields._!
+    : error instanceof Error
+      ? error.message
+      : 'Something went wrong; nothing was saved';
+
+/**
+ * The top of a form: the failed request's message, then one line for each field that has no input here
+ * (the server's and the contract's alike); nothing when all is well.
+ */
+export function FormFailure<TIn extends FieldValues, TOut>({ form, className }: { form: SchemaForm<TIn, TOut>; className?: string }) {
+  const others = [
+    ...(form.failure ? otherFieldMessages(form.failure, form.placement.placed, form.placement.fieldFor) : []),
+    ...unplacedMessages(form.formState.errors as FieldErrors, form.placement.placed),
+  ].filter((line, i, all) => all.indexOf(line) === i);
+  if (!form.failure && !others.length) return null;
+  const notice = (
+    <Notice kind="error">
+      {form.failure ? messageOf(form.failure) : 'Nothing was saved:'}
+      {others.length ? (
+        <ul className="mt-1 list-inside list-disc">
+          {others.map((line) => (
+            <li key={line}>{line}</li>
+          ))}
+        </ul>
+      ) : null}
+    </Notice>
+  );
+  return className ? <div className={className}>{notice}</div> : notice;
+}
+
+/** A field's message as the inline forms show it, beside the input. */
+export function FieldMessage({ message, id, className = 'text-alarm' }: { message: string | undefined; id?: string; className?: string }) {
+  if (!message) return null;
+  return (
+    <span id={id} role="alert" className={className}>
+      ⚠ {message}
+    </span>
+  );
+}

@@ -1,0 +1,5 @@
+// The handover board: keys for the live-update map and its pages, loaded on demand (the board does not load charts).
+export { handoverKeys } from './api/handover';
+export { shiftCondenserKeys } from './api/get-shift-condenser';
+export const loadHandoverPage = async () => (await import('./routes/handover-page')).HandoverPage;
+export const loadHandoverPrintPage = async () => (await import('./routes/print-page')).HandoverPrintPage;

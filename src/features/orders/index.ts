@@ -1,0 +1,4 @@
+// Standing orders: keys, the prompt the shell shows at sign-in, and the page, loaded on demand.
+export { orderKeys } from './api/orders';
+export { PendingOrdersPrompt } from './components/pending-orders-prompt';
+export const loadOrdersPage = async () => (await import('./routes/orders-page')).OrdersPage;
