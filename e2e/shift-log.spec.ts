@@ -1,6 +1,6 @@
 import { expect, test } from '@playwright/test';
 import { toStationInputValue } from '../shared/station-time';
-import { signIn, signInReadingOrders } from './support';
+import { apiAs, signIn, signInReadingOrders } from './support';
 
 test('keyboard-only entries, one late, appear live in a second browser; the lead signs the review', async ({ browser }) => {
   const writerContext = await browser.newContext();
@@ -42,16 +42,34 @@ test('keyboard-only entries, one late, appear live in a second browser; the lead
   await readerContext.close();
 });
 
-test('an operator acknowledges a standing order at sign-in, and the lead sees it counted', async ({ page }) => {
+test('an operator acknowledges a standing order at sign-in, and the lead sees it counted', async ({ page, baseURL }) => {
+  // The scene: whatever operator.a has read in earlier tests (any may sign them in), a shift lead
+  // issues a new order now, so exactly that one waits for them at sign-in.
+  const operator = await apiAs(baseURL!, 'operator.a@fernhollow.example');
+  const { orders } = (await (await operator.api.get('/api/me/pending-orders')).json()) as { orders: { id: number }[] };
+  for (const o of orders) expect((await operator.api.post(`/api/standing-orders/${o.id}/acknowledge`, { headers: { 'x-csrf-token': operator.csrf }, data: {} })).ok()).toBe(true);
+  const title = `Unit 1: hourly TTD while cleanliness is below 0.75 (${Date.now()})`;
+  // For crew A's control room only (operator.a and lead.a, who reads it in a later test of this file).
+  const lead = await apiAs(baseURL!, 'lead.a@fernhollow.example');
+  const crews = ((await (await lead.api.get('/api/plant/crews')).json()) as { crews: { id: number; name: string }[] }).crews;
+  const crewA = crews.find((c) => c.name.toLowerCase() === 'a')!;
+  const issued = await lead.api.post('/api/standing-orders', {
+    headers: { 'x-csrf-token': lead.csrf },
+    data: { title, bodyHtml: '<p>Log TTD every hour until the tubes are cleaned.</p>', effectiveFrom: new Date(Date.now() - 60_000).toISOString(), crewIds: [crewA.id], positions: ['control_room'] },
+  });
+  expect(issued.ok()).toBe(true);
+
   await signIn(page, 'operator.a@fernhollow.example');
   const prompt = page.getByRole('dialog', { name: 'Standing orders to acknowledge' });
-  await expect(prompt).toContainText('hourly TTD while cleanliness is below 0.75');
+  await expect(prompt).toContainText(title);
   await prompt.getByRole('button', { name: 'I have read this order' }).click();
   await expect(prompt).toHaveCount(0);
   await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Standing orders' }).click();
-  const order = page.getByRole('article', { name: /Order: Unit 1: hourly TTD/ });
+  const order = page.getByRole('article', { name: `Order: ${title}` });
   await order.getByRole('button', { name: 'Who has read it' }).click();
   await expect(order.getByRole('list', { name: 'Acknowledgements' })).toContainText('✔ Cato Villanueva');
+  await operator.api.dispose();
+  await lead.api.dispose();
 });
 
 test('a time-limited condition shows its countdown and deadline', async ({ page }) => {

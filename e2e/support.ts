@@ -18,13 +18,28 @@ export async function signInReadingOrders(page: Page, email: string) {
   await signIn(page, email);
   const { orders } = (await (await pending).json()) as { orders: unknown[] };
   const dialog = page.getByRole('dialog', { name: 'Standing orders to acknowledge' });
-  for (let i = 0; i < orders.length; i++) await dialog.getByRole('button', { name: 'I have read this order' }).first().click();
+  // One at a time, each gone before the next click: two quick clicks could both land on the first.
+  const buttons = dialog.getByRole('button', { name: 'I have read this order' });
+  for (let left = orders.length; left > 0; left--) {
+    await buttons.first().click();
+    await expect(buttons).toHaveCount(left - 1);
+  }
   await expect(dialog).toHaveCount(0);
 }
 
 export async function signOut(page: Page) {
   await page.getByRole('button', { name: 'Sign out' }).click();
   await expect(page.getByRole('heading', { name: 'Sign in' })).toBeVisible();
+}
+
+/** A demo person's API session, for setting the scene a test needs (not what it tests). */
+export async function apiAs(baseURL: string, email: string) {
+  const api = await request.newContext({ baseURL });
+  const { csrfToken } = (await (await api.get('/api/session/csrf')).json()) as { csrfToken: string };
+  const signedIn = await api.post('/api/session', { headers: { 'x-csrf-token': csrfToken }, data: { email, password: DEMO_PASSWORD } });
+  expect(signedIn.ok()).toBe(true);
+  const csrf = ((await signedIn.json()) as { csrfToken: string }).csrfToken;
+  return { api, csrf };
 }
 
 /** The demo administrator's API session, for setting the scene a test needs (not what it tests). */
