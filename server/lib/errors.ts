@@ -69,7 +69,7 @@ export function fieldErrorsFromZod(error: ZodError): FieldErrors {
 
 type BodyParserError = Error & { type?: string; status?: number };
 
-export const errorMiddleware: ErrorRequestHandler = (error, _req, res, _next) => {
+export const errorMiddleware: ErrorRequestHandler = (error, req, res, _next) => {
   if (error instanceof ZodError) {
     const fields = fieldErrorsFromZod(error);
     res.status(400).json({ error: { code: 'VALIDATION', message: summaryOf(fields), fields } });
@@ -109,6 +109,9 @@ export const errorMiddleware: ErrorRequestHandler = (error, _req, res, _next) =>
     res.status(parserError.status).json({ error: { code: 'BAD_REQUEST', message: 'The request could not be read as sent; reload the page and try again' } });
     return;
   }
-  console.error(error);
-  res.status(500).json({ error: { code: 'INTERNAL', message: 'Something went wrong on the server; nothing was saved' } });
+  // Logged once, by the request's own line (pino-http writes `res.err` with its stack, the request
+  // id, the person and the route); the answer carries the id so a person can quote it.
+  (res as typeof res & { err?: unknown }).err = error;
+  const requestId = (req as typeof req & { id?: unknown }).id;
+  res.status(500).json({ error: { code: 'INTERNAL', message: 'Something went wrong on the server; nothing was saved', requestId } });
 };
