@@ -2,6 +2,7 @@
 // demo seed that refuses unless asked for by name, and the first administrator.
 import net from 'node:net';
 import request from 'supertest';
+import { io as connect } from 'socket.io-client';
 import { afterAll, describe, expect, it } from 'vitest';
 import { createApp } from '../../server/app';
 import { createSequelize } from '../../server/db/sequelize';
@@ -9,8 +10,8 @@ import { migrationNames } from '../../server/db/migrator';
 import { User } from '../../server/features/users/model';
 import { FirstAdministratorRefused, createFirstAdministrator } from '../../server/features/users/first-administrator';
 import { makeReadiness } from '../../server/lib/readiness';
-import { nodeEnvironment, runServerProcess, startNode } from './support/nodes';
-import { SECRET, buildApp, closeAll, db, makeUser } from './support/test-app';
+import { nodeEnvironment, runServerProcess, signIn, startNode } from './support/nodes';
+import { PASSWORD, SECRET, buildApp, closeAll, db, makeUser } from './support/test-app';
 
 afterAll(closeAll);
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
@@ -70,11 +71,21 @@ async function requestInFlight(port: number) {
 }
 
 describe('stopping a node (SIGTERM)', () => {
-  it('refuses new connections, lets the request under way finish, and exits 0', async () => {
+  it('refuses new connections, lets the request under way finish, tells browsers to reconnect, and exits 0', async () => {
     const node = await startNode({ REDIS_URL: undefined, SHUTDOWN_GRACE_MS: '8000' });
+    const person = await makeUser('operator');
+    const browser = await signIn(node.url, person.email, PASSWORD);
+    const socket = connect(node.url, { transports: ['websocket'], extraHeaders: { cookie: browser.cookie() }, forceNew: true, reconnectionDelay: 60_000 });
+    await new Promise<void>((resolve) => socket.once('connect', () => resolve()));
+    const disconnected = new Promise<string>((resolve) => socket.once('disconnect', resolve));
     const inFlight = await requestInFlight(node.port);
     await sleep(200);
     node.process.kill('SIGTERM');
+    // Closed as a lost connection, which the browser's client answers by reconnecting (through the
+    // balancer, to another node) — not as a deliberate disconnect, after which it would stay away.
+    expect(await disconnected).toBe('transport close');
+    expect(socket.active).toBe(true);
+    socket.disconnect();
     await sleep(500);
     await expect(fetch(`${node.url}/api/health`)).rejects.toThrow();
     expect(node.process.exitCode).toBeNull();
