@@ -117,6 +117,7 @@ async function readLoad(base: string, sessions: Session[], unitIds: number[]) {
   ];
   const times: number[] = [];
   let errors = 0;
+  const statuses = new Map<number, number>();
   const until = performance.now() + SECONDS * 1000;
   await Promise.all(
     Array.from({ length: WORKERS }, async (_, worker) => {
@@ -126,10 +127,12 @@ async function readLoad(base: string, sessions: Session[], unitIds: number[]) {
         const response = await call(base, 'GET', mix[i % mix.length]!(i), session).catch(() => ({ status: 0 }));
         times.push(performance.now() - started);
         if (response.status !== 200) errors += 1;
+        statuses.set(response.status, (statuses.get(response.status) ?? 0) + 1);
       }
     }),
   );
-  return { perSecond: times.length / SECONDS, times, errors };
+  const answered = [...statuses].sort(([x], [y]) => x - y).map(([status, n]) => `${n}× ${status || 'no answer'}`).join(', ');
+  return { perSecond: times.length / SECONDS, times, errors, answered };
 }
 
 async function main() {
@@ -252,8 +255,8 @@ async function main() {
     console.log(`p95 ratio to the floor: ${(percentile(acks, 95) / percentile(floor, 95)).toFixed(2)}×`);
     console.log('');
     console.log(`mixed reads through haproxy, ${WORKERS} loops without think time, ${SECONDS} s each:`);
-    console.log(`  one node:  ${one.perSecond.toFixed(0)} requests/s, ${summary(one.times)}, ${one.errors} errors`);
-    console.log(`  two nodes: ${two.perSecond.toFixed(0)} requests/s, ${summary(two.times)}, ${two.errors} errors`);
+    console.log(`  one node:  ${one.perSecond.toFixed(0)} requests/s, ${summary(one.times)}, ${one.errors} errors (${one.answered})`);
+    console.log(`  two nodes: ${two.perSecond.toFixed(0)} requests/s, ${summary(two.times)}, ${two.errors} errors (${two.answered})`);
     console.log(`  two nodes / one node: ${(two.perSecond / one.perSecond).toFixed(2)}× (machine: ${(await import('node:os')).cpus().length} cores, shared with the database, balancer and this load)`);
   } finally {
     for (const socket of sockets) socket.disconnect();

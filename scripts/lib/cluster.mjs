@@ -61,8 +61,8 @@ export function stopChild(child, ms) {
 
 /**
  * haproxy in front of the nodes. `frontends`: { port, nodes: [{ name, port }] } — the benchmark
- * uses one frontend over a single node and one over both. A node is taken out after one failed
- * readiness check (1 s apart) and back after two good ones; a connection refused by a node that
+ * uses one frontend over a single node and one over both. A node is taken out after three failed
+ * readiness checks (1 s apart, 3 s each at most) and back after two good ones; a connection refused by a node that
  * just stopped is retried on another (redispatch).
  */
 export async function startBalancer({ dir, frontends }) {
@@ -83,6 +83,8 @@ export async function startBalancer({ dir, frontends }) {
     '  timeout connect 2s',
     '  timeout client 60s',
     '  timeout server 60s',
+    // A busy node answers its readiness check late; late is not down.
+    '  timeout check 3s',
     // A live-update WebSocket stays open for the whole shift.
     '  timeout tunnel 12h',
     ...frontends.flatMap(({ port, nodes }, i) => [
@@ -93,7 +95,7 @@ export async function startBalancer({ dir, frontends }) {
       '  balance roundrobin',
       '  option httpchk GET /api/ready',
       '  http-check expect status 200',
-      '  default-server inter 1s fall 1 rise 2',
+      '  default-server inter 1s fall 3 rise 2',
       ...nodes.map((node) => `  server ${node.name} 127.0.0.1:${node.port} check`),
     ]),
     '',
