@@ -35,8 +35,10 @@ export default defineConfig({
     env: {
       DATABASE_URL: databaseUrl,
       PORT: String(port),
-      SESSION_SECRET: 'e2e-only-secret',
+      // Production settings, as a real installation checks them (a secret of 32+ characters, the public address).
+      SESSION_SECRET: 'e2e-only-secret-not-for-any-real-installation',
       NODE_ENV: 'production',
+      PUBLIC_URL: `http://127.0.0.1:${port}`,
       SMTP_URL: process.env.SMTP_URL ?? '',
     },
   },

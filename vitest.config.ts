@@ -26,6 +26,8 @@ export default defineConfig({
           name: 'integration',
           include: ['tests/integration/**/*.test.ts'],
           environment: 'node',
+          // The app's request and error lines would bury the test output; tests that look at them spy.
+          env: { LOG_LEVEL: 'silent' },
           // one real database shared by every file: run files one after another
           fileParallelism: false,
           testTimeout: 20_000,

@@ -14,7 +14,7 @@ if (!databaseUrl) {
 }
 const env = { DATABASE_URL: databaseUrl };
 await runLocalOrExit('tsx', ['server/db/migrate-cli.ts'], env);
-await runLocalOrExit('tsx', ['server/db/seed/seed-cli.ts'], env);
+await runLocalOrExit('tsx', ['server/db/seed/seed-cli.ts', '--demo'], env);
 const children = [
   spawnLocal('tsx', ['watch', 'server/index.ts'], { ...env, PORT: String(apiPort), SESSION_SECRET: 'dev-only-secret' }),
   spawnLocal('vite', [], { API_PORT: String(apiPort) }),

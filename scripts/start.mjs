@@ -1,9 +1,11 @@
-// `npm start`: set everything up on a fresh clone, then serve Hotwell on 127.0.0.1.
+// `npm start`: the one-command demo. Sets everything up on a fresh clone — a private MariaDB, the
+// fictional demo scenario, a local mail catcher — then serves Hotwell on 127.0.0.1 with the same
+// compiled server production runs (`npm run build`, `npm run serve`; see README, Production).
 import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { ensureNodeDependencies } from './lib/node-deps.mjs';
 import { startPrivateMariaDb } from './lib/private-mariadb.mjs';
-import { clientBuildIsStale, runLocalOrExit, spawnLocal } from './lib/run.mjs';
+import { clientBuildIsStale, runLocalOrExit, runNodeOrExit, serverBuildIsStale, spawnNode } from './lib/run.mjs';
 
 const appPort = Number(process.env.PORT ?? 5180);
 const dbPort = Number(process.env.HOTWELL_DB_PORT ?? 3417);
@@ -103,8 +105,13 @@ try {
     console.log(`[db] private MariaDB on 127.0.0.1:${dbPort} (data in ${dataDir})`);
   }
   const env = { DATABASE_URL: databaseUrl };
-  await runLocalOrExit('tsx', ['server/db/migrate-cli.ts'], env);
-  await runLocalOrExit('tsx', ['server/db/seed/seed-cli.ts'], env);
+  if (serverBuildIsStale()) {
+    console.log('[build] compiling the server…');
+    await runNodeOrExit(['scripts/build-server.mjs']);
+  }
+  await runNodeOrExit(['dist-server/migrate.js'], env);
+  // The demo scenario, asked for by name: the seed refuses to run without it.
+  await runLocalOrExit('tsx', ['server/db/seed/seed-cli.ts', '--demo'], env);
   if (clientBuildIsStale()) {
     console.log('[build] building the client…');
     await runLocalOrExit('vite', ['build', '--logLevel', 'warn']);
@@ -114,13 +121,15 @@ try {
     smtpPort: Number(process.env.HOTWELL_SMTP_PORT ?? 2525),
     viewerPort: Number(process.env.HOTWELL_MAIL_VIEWER_PORT ?? 5182),
   });
-  server = spawnLocal('tsx', ['server/index.ts'], {
+  server = spawnNode(['dist-server/index.js'], {
     ...env,
     SMTP_URL: process.env.SMTP_URL ?? mail.smtpUrl,
     PUBLIC_URL: process.env.PUBLIC_URL ?? `http://127.0.0.1:${appPort}`,
     PORT: String(appPort),
     SESSION_SECRET: sessionSecret(),
     NODE_ENV: 'production',
+    // Within SERVER_STOP_MS, so the server's own drain ends before this script would kill it.
+    SHUTDOWN_GRACE_MS: String(SERVER_STOP_MS - 2_000),
     // The server stops itself should this process vanish without stopping it (kill -9).
     HOTWELL_SUPERVISOR_PID: String(process.pid),
   });
@@ -131,6 +140,8 @@ try {
   await waitUntilServing(url);
   const people = JSON.parse(readFileSync('server/db/seed/demo-people.json', 'utf8'));
   console.log(`\nHotwell is serving at ${url}`);
+  console.log('This is the DEMO: the fictional Fernhollow Station, with demo people whose password is published.');
+  console.log('For a real installation see README.md, "Production" (npm run build, npm run serve, npm run admin:create).');
   console.log(`E-mail it sends is caught locally: ${mail.viewerUrl}\n`);
   console.log('Demo sign-ins (password for all: see README) —');
   for (const person of people.users) console.log(`  ${person.role.padEnd(11)} ${person.email}`);

@@ -15,6 +15,7 @@ import { createApp } from '../server/app';
 import { createSequelize } from '../server/db/sequelize';
 import { initModels } from '../server/db/models';
 import { createMigrator } from '../server/db/migrator';
+import { createLogger, logger } from '../server/lib/logger';
 import { arrangeShifts, buildWorld, signIn, type Client } from './lib/fault-fixture';
 // @ts-expect-error plain JS helper shared with the bootstrap scripts
 import { startPrivateMariaDb } from './lib/private-mariadb.mjs';
@@ -65,11 +66,19 @@ async function main() {
   initModels(sequelize);
   await createMigrator(sequelize).up();
   const mail = await startMailCatcher({ smtpPort: 0, viewerPort: 0 });
+  // Each failed request is logged by the app; while the database is away that is hundreds of
+  // lines. Warnings and errors are counted and the first few shown; requests that went well are not kept.
+  const logged: string[] = [];
+  const keep = (line: string) => {
+    const entry = JSON.parse(line) as { msg?: string; err?: { message?: string } };
+    logged.push(`${entry.msg ?? ''}${entry.err?.message ? `: ${entry.err.message}` : ''}`.slice(0, 200));
+  };
+  const appLogger = createLogger({ level: 'warn', destination: { write: keep } });
   const built = createApp(
     sequelize,
     { sessionSecret: 'fault-test', behindHttpsProxy: false, smtpUrl: mail.smtpUrl, publicUrl: 'http://127.0.0.1:5180' },
     // Short claims and retries, so what the kill interrupted is sent again within the run.
-    { outbox: { leaseMs: 3_000, retryBaseMs: 500, retryMaxMs: 2_000 } },
+    { outbox: { leaseMs: 3_000, retryBaseMs: 500, retryMaxMs: 2_000 }, logger: appLogger },
   );
   built.outbox.start(300);
   const server = http.createServer(built.app);
@@ -84,13 +93,11 @@ async function main() {
     if (draft.status !== 201) throw new Error(`starting the draft: ${draft.status} ${JSON.stringify(draft.body)}`);
     const draftId = Number((draft.body.board as { handover: { id: number } }).handover.id);
 
-    // Each failed request is logged by the app; while the database is away that is hundreds of
-    // lines. They are counted and the first few shown.
-    const logged: string[] = [];
-    const quiet = (...args: unknown[]) => logged.push(args.map((a) => (a instanceof Error ? a.message : String(a))).join(' ').slice(0, 200));
-    const [error, warn] = [console.error, console.warn];
-    console.error = quiet;
-    console.warn = quiet;
+    // The process's own logger (retries, the outbox) goes to the same count meanwhile.
+    const levelBefore = logger.level;
+    const quiet = (...args: unknown[]) => logged.push(args.map((a) => (typeof a === 'string' ? a : a instanceof Error ? a.message : JSON.stringify(a))).join(' ').slice(0, 200));
+    logger.warn = quiet as typeof logger.warn;
+    logger.error = quiet as typeof logger.error;
 
     const writes: Write[] = [];
     let stop = false;
@@ -147,7 +154,7 @@ async function main() {
     await sleep(WRITE_AFTER_RESTART_MS);
     stop = true;
     await Promise.all(writers);
-    [console.error, console.warn] = [error, warn];
+    logger.level = levelBefore; // setting the level puts pino's own methods back
     console.log(`[faults] the app logged ${logged.length} errors and warnings meanwhile, e.g.:\n  ${[...new Set(logged.map((l) => l.slice(0, 120)))].slice(0, 4).join('\n  ')}`);
 
     const summary = (kind: Write['kind']) => {

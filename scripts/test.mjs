@@ -3,12 +3,14 @@
 // own MariaDB mid-run), Playwright in Debian's chromium.
 import { ensureNodeDependencies } from './lib/node-deps.mjs';
 import { startPrivateMariaDb } from './lib/private-mariadb.mjs';
+import { startPrivateRedis } from './lib/private-redis.mjs';
 import { ensureChromium } from './lib/system-packages.mjs';
 import { runLocal, runLocalOrExit } from './lib/run.mjs';
 
 const dbPort = Number(process.env.HOTWELL_TEST_DB_PORT ?? 3418);
 const results = [];
 let database = null;
+let redis = null;
 let mail = null;
 
 async function step(name, action) {
@@ -27,6 +29,8 @@ async function step(name, action) {
 async function stopDatabase() {
   if (mail) await mail.stop();
   mail = null;
+  if (redis) await redis.stop();
+  redis = null;
   if (database) await database.stop();
   database = null;
 }
@@ -59,14 +63,20 @@ try {
   for (const url of [integrationUrl, e2eUrl]) {
     await runLocalOrExit('tsx', ['server/db/migrate-cli.ts'], { DATABASE_URL: url });
   }
-  await runLocalOrExit('tsx', ['server/db/seed/seed-cli.ts'], { DATABASE_URL: e2eUrl });
+  await runLocalOrExit('tsx', ['server/db/seed/seed-cli.ts', '--demo'], { DATABASE_URL: e2eUrl });
+  // Real Redis for the tests of several app nodes (HOTWELL_TEST_REDIS_PORT, default 6380).
+  let redisUrl = process.env.TEST_REDIS_URL;
+  if (!redisUrl) {
+    redis = await startPrivateRedis({ dataDir: '.data/test-redis', port: Number(process.env.HOTWELL_TEST_REDIS_PORT ?? 6380), label: 'throwaway test' });
+    redisUrl = redis.url;
+  }
 
   await step('typecheck', () => runLocal('tsc', ['-p', 'tsconfig.json', '--noEmit']));
   await step('lint', () => runLocal('eslint', ['.', '--max-warnings=0']));
   await step('vitest unit', () => runLocal('vitest', ['run', '--project', 'unit']));
   await step('vitest client', () => runLocal('vitest', ['run', '--project', 'client']));
   // On its own, so nothing else competes with the shared database while its files run in turn.
-  await step('vitest integration', () => runLocal('vitest', ['run', '--project', 'integration'], { TEST_DATABASE_URL: integrationUrl }));
+  await step('vitest integration', () => runLocal('vitest', ['run', '--project', 'integration'], { TEST_DATABASE_URL: integrationUrl, TEST_REDIS_URL: redisUrl }));
   // Its own MariaDB (HOTWELL_FAULT_DB_PORT, default 3421), killed and restarted mid-run.
   await step('fault test', () => runLocal('tsx', ['scripts/test-faults.ts']));
   await step('client build', () => runLocal('vite', ['build', '--logLevel', 'warn']));

@@ -39,7 +39,10 @@ import { handoverRoutes } from './features/handovers/routes';
 import { makeNotices, type Notices } from './features/handovers/notices';
 import { createMailer, type Mailer } from './lib/mailer';
 import { makeOutboxSender, type OutboxOptions, type OutboxSender } from './lib/outbox';
-import { storageFromEnv, type Storage } from './lib/storage';
+import { storageFor, type Storage } from './lib/storage';
+import { httpLogger, logger as processLogger, markRouteBase, type Logger } from './lib/logger';
+import { makeReadiness, type Readiness } from './lib/readiness';
+import type { RedisClient } from './lib/redis';
 import { attachmentRoutes } from './features/attachments/routes';
 import { makeAttachmentService } from './features/attachments/service';
 import { shiftRoutes } from './features/shifts/routes';
@@ -68,15 +71,30 @@ export type BuiltApp = {
   notices: Notices;
   /** Sends what the notices wrote to the outbox; the server `start`s its loop. */
   outbox: OutboxSender;
+  /** What `/api/ready` answers; the server starts draining it on SIGTERM. */
+  readiness: Readiness;
   close: () => void;
 };
 
 export function createApp(
   sequelize: Sequelize,
-  config: Pick<AppConfig, 'sessionSecret' | 'behindHttpsProxy' | 'smtpUrl' | 'publicUrl'> & Partial<Pick<AppConfig, 'signInLimits' | 'anonymousTokenLimit'>>,
-  deps: { storage?: Storage; importBatchRows?: number; mailer?: Mailer; outbox?: OutboxOptions } = {},
+  config: Pick<AppConfig, 'sessionSecret' | 'behindHttpsProxy' | 'smtpUrl' | 'publicUrl'> &
+    Partial<Pick<AppConfig, 'signInLimits' | 'anonymousTokenLimit' | 'storage'>>,
+  deps: {
+    storage?: Storage;
+    importBatchRows?: number;
+    mailer?: Mailer;
+    outbox?: OutboxOptions;
+    logger?: Logger;
+    /** Shared by every node: the sign-in form limit counts there (else in this process). */
+    redis?: RedisClient;
+  } = {},
 ): BuiltApp {
   const app = express();
+  // First, so every line (errors included) carries the request id, and the answer returns it.
+  app.use(httpLogger(deps.logger ?? processLogger));
+  // A router mounted with `mount` is named by its pattern on the request's log line.
+  const mount = (prefix: string, router: express.Router) => app.use(prefix, markRouteBase, router);
   const passport = configurePassport();
   if (config.behindHttpsProxy) app.set('trust proxy', 1);
   app.disable('x-powered-by');
@@ -96,6 +114,16 @@ export function createApp(
     next();
   });
   app.use(express.json({ limit: '1mb' }));
+
+  // Probes for the service manager and the balancer: before sessions, so they never touch one.
+  const readiness = makeReadiness(sequelize);
+  app.get('/api/health', (_req, res) => {
+    res.json({ ok: true });
+  });
+  app.get('/api/ready', async (_req, res) => {
+    const answer = await readiness.check();
+    res.status(answer.ready ? 200 : 503).json(answer);
+  });
 
   const store = createSessionStore(sequelize);
   const sessionMiddleware = session({
@@ -124,42 +152,40 @@ export function createApp(
   const disconnectLive = connectLiveUpdates(sequelize, realtime);
   const outbox = makeOutboxSender(sequelize, deps.mailer ?? createMailer(config.smtpUrl), deps.outbox);
   const notices = makeNotices(sequelize, outbox, config.publicUrl ?? 'http://127.0.0.1:5180');
-  app.get('/api/health', (_req, res) => {
-    res.json({ ok: true });
-  });
-  app.use(
+  mount(
     '/api',
     sessionRoutes({
       users,
       csrf,
       signInLimits: makeSignInLimits(sequelize, config.signInLimits ?? defaultSignInLimits),
       anonymousTokenLimit: config.anonymousTokenLimit ?? DEFAULT_ANONYMOUS_TOKEN_LIMIT,
+      redis: deps.redis,
       onSignedOut: (sessionId) => realtime.disconnect({ sessionId }),
     }),
   );
-  app.use('/api/admin/users', adminUserRoutes(users));
-  app.use('/api/admin/audit-events', adminAuditRoutes());
-  app.use('/api/plant', plantRoutes(makeVersionService(sequelize), makeEquipmentService(sequelize)));
-  app.use('/api', readingRoutes(makeReadingService(sequelize)));
-  app.use('/api', flagRoutes(makeFlagService(sequelize)));
-  app.use('/api', trendRoutes(makeTrendService(sequelize)));
-  app.use('/api', importRoutes(makeImportService(sequelize, { batchRows: deps.importBatchRows })));
+  mount('/api/admin/users', adminUserRoutes(users));
+  mount('/api/admin/audit-events', adminAuditRoutes());
+  mount('/api/plant', plantRoutes(makeVersionService(sequelize), makeEquipmentService(sequelize)));
+  mount('/api', readingRoutes(makeReadingService(sequelize)));
+  mount('/api', flagRoutes(makeFlagService(sequelize)));
+  mount('/api', trendRoutes(makeTrendService(sequelize)));
+  mount('/api', importRoutes(makeImportService(sequelize, { batchRows: deps.importBatchRows })));
   const log = makeLogService(sequelize);
-  app.use('/api', stationRoutes(makeStationService(sequelize)));
-  app.use('/api', logRoutes(log));
-  app.use('/api', standingOrderRoutes(makeStandingOrderService(sequelize)));
-  app.use('/api', conditionRoutes(makeConditionService(sequelize, log)));
+  mount('/api', stationRoutes(makeStationService(sequelize)));
+  mount('/api', logRoutes(log));
+  mount('/api', standingOrderRoutes(makeStandingOrderService(sequelize)));
+  mount('/api', conditionRoutes(makeConditionService(sequelize, log)));
   const handovers = makeHandoverService(sequelize, notices);
-  app.use('/api', handoverRoutes(handovers));
-  app.use('/api', attachmentRoutes(makeAttachmentService(sequelize, deps.storage ?? storageFromEnv(), handovers)));
-  app.use('/api', shiftRoutes(makeShiftService(sequelize)));
+  mount('/api', handoverRoutes(handovers));
+  mount('/api', attachmentRoutes(makeAttachmentService(sequelize, deps.storage ?? storageFor(config.storage), handovers)));
+  mount('/api', shiftRoutes(makeShiftService(sequelize)));
   const reviewComments = makeReviewCommentService(sequelize);
-  app.use('/api', logbookRoutes(makeLogbookService(sequelize), reviewComments));
-  app.use('/api', trainingRoutes(makeTrainingService(sequelize)));
-  app.use('/api', shiftCondenserRoutes(makeShiftCondenserService(sequelize)));
-  app.use('/api', handoverHeaderRoutes());
-  app.use('/api', overviewRoutes(makeOverviewService(sequelize, { reviewCommentsFor: reviewComments.forPerson })));
-  app.use('/api/calc', calcRoutes());
+  mount('/api', logbookRoutes(makeLogbookService(sequelize), reviewComments));
+  mount('/api', trainingRoutes(makeTrainingService(sequelize)));
+  mount('/api', shiftCondenserRoutes(makeShiftCondenserService(sequelize)));
+  mount('/api', handoverHeaderRoutes());
+  mount('/api', overviewRoutes(makeOverviewService(sequelize, { reviewCommentsFor: reviewComments.forPerson })));
+  mount('/api/calc', calcRoutes());
   app.use('/api', (_req, _res, next) => next(new NotFound('That API route')));
 
   const root = process.cwd();
@@ -177,5 +203,5 @@ export function createApp(
     store.stopExpiringSessions();
     disconnectLive();
   };
-  return { app, sessionMiddleware, realtime, notices, outbox, close };
+  return { app, sessionMiddleware, realtime, notices, outbox, readiness, close };
 }

@@ -64,3 +64,11 @@ export function ensureChromium() {
     purpose: 'The end-to-end tests',
   });
 }
+
+export function ensureHaproxy() {
+  return ensureProgram({
+    programs: ['haproxy', '/usr/sbin/haproxy'],
+    debPackages: ['haproxy'],
+    purpose: 'The load balancer in front of the app nodes (npm run start:cluster)',
+  });
+}

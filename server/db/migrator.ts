@@ -35,6 +35,9 @@ const migrations = [
   { name: '0015-outbox', ...outbox },
 ];
 
+/** Every migration this code expects, in order (the readiness probe compares the database with it). */
+export const migrationNames: readonly string[] = migrations.map((m) => m.name);
+
 export function createMigrator(sequelize: Sequelize) {
   const qi = sequelize.getQueryInterface();
   return new Umzug({

@@ -69,11 +69,12 @@ export function fieldErrorsFromZod(error: ZodError): FieldErrors {
 
 type BodyParserError = Error & { type?: string; status?: number };
 
-export const errorMiddleware: ErrorRequestHandler = (error, _req, res, next) => {
+export const errorMiddleware: ErrorRequestHandler = (error, req, res, next) => {
   // An error after the answer began (a stream cut off): too late for a JSON reply; Express's own
-  // handler closes the connection. Answering again threw ERR_HTTP_HEADERS_SENT.
+  // handler closes the connection (and the request's log line carries the error). Answering again
+  // threw ERR_HTTP_HEADERS_SENT.
   if (res.headersSent) {
-    console.error(error);
+    (res as typeof res & { err?: unknown }).err = error;
     next(error);
     return;
   }
@@ -116,6 +117,9 @@ export const errorMiddleware: ErrorRequestHandler = (error, _req, res, next) => 
     res.status(parserError.status).json({ error: { code: 'BAD_REQUEST', message: 'The request could not be read as sent; reload the page and try again' } });
     return;
   }
-  console.error(error);
-  res.status(500).json({ error: { code: 'INTERNAL', message: 'Something went wrong on the server; nothing was saved' } });
+  // Logged once, by the request's own line (pino-http writes `res.err` with its stack, the request
+  // id, the person and the route); the answer carries the id so a person can quote it.
+  (res as typeof res & { err?: unknown }).err = error;
+  const requestId = (req as typeof req & { id?: unknown }).id;
+  res.status(500).json({ error: { code: 'INTERNAL', message: 'Something went wrong on the server; nothing was saved', requestId } });
 };

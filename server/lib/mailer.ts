@@ -1,6 +1,7 @@
 // Outgoing e-mail through nodemailer's SMTP transport. `npm start` and the tests point SMTP_URL at
 // the local catcher; without SMTP_URL messages are written to the server log instead of sent.
 import nodemailer, { type Transporter } from 'nodemailer';
+import { logger } from './logger';
 
 /** `messageId`: a stable Message-ID header (the outbox gives each notice its own). */
 export type Mail = { to: string[]; subject: string; text: string; messageId?: string };
@@ -10,7 +11,7 @@ export function createMailer(smtpUrl: string | undefined, from = 'Hotwell <hotwe
   if (!smtpUrl) {
     return {
       async send(mail) {
-        console.log(`[mail] (no SMTP_URL) to ${mail.to.join(', ')}: ${mail.subject}`);
+        logger.info({ to: mail.to, subject: mail.subject }, 'mail not sent (no SMTP_URL)');
       },
     };
   }

@@ -7,6 +7,7 @@ import { randomUUID } from 'node:crypto';
 import { isRetryable } from './unit-of-work';
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import type { Mailer } from './mailer';
+import { logger } from './logger';
 
 export type Notice = { kind: string; refId: number; to: string[]; subject: string; text: string };
 
@@ -62,7 +63,7 @@ export function makeOutboxSender(sequelize: Sequelize, mailer: Mailer, options: 
   async function putBack(row: Claimed, token: string, error: unknown, now: Date) {
     const delay = Math.min(retryBaseMs * 2 ** Math.max(0, row.attempts - 1), retryMaxMs);
     const message = (error instanceof Error ? error.message : String(error)).slice(0, 1000);
-    console.warn(`[mail] notice ${row.id} not sent (attempt ${row.attempts}): ${message}; next try in ${Math.round(delay / 1000)} s`);
+    logger.warn({ noticeId: row.id, attempt: row.attempts, retryInSeconds: Math.round(delay / 1000) }, `notice not sent: ${message}`);
     try {
       await sequelize.query('UPDATE outbox SET claim_token = NULL, claimed_until = NULL, due_at = ?, last_error = ? WHERE id = ? AND claim_token = ?', {
         replacements: [new Date(now.getTime() + delay), message, row.id, token],
@@ -153,7 +154,7 @@ export function makeOutboxSender(sequelize: Sequelize, mailer: Mailer, options: 
           do result = await pass(new Date());
           while (result.more);
         } catch (error) {
-          console.error('[mail] outbox pass failed (will try again):', (error as Error).message);
+          logger.error({ err: error }, 'outbox pass failed (will try again)');
         }
       } while (again);
     })().finally(() => {

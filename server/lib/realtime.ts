@@ -1,9 +1,12 @@
 // Sockets notify, queries fetch: the server sends a small { entity, id } event to a room after the
 // transaction commits (see live.ts); clients invalidate the matching queries and fetch what changed.
+// With several app nodes the rooms span them through the Redis adapter: every emit and every
+// disconnect here goes by room, so it reaches the person's sockets on whichever node holds them.
 import type { Server as HttpServer, IncomingMessage, ServerResponse } from 'node:http';
 import type { RequestHandler } from 'express';
 import passport from 'passport';
-import { Server, type Socket } from 'socket.io';
+import { Server, type ServerOptions, type Socket } from 'socket.io';
+import { logger } from './logger';
 import type { BoardPresence, LiveEvent } from '../../shared/live-events';
 
 /** Whose live connections: a person's (optionally all but one session's), or one session's. */
@@ -12,9 +15,10 @@ export type SocketsOf = { userId?: number; exceptSessionId?: string; sessionId?:
 export type RealtimeHub = {
   /** To the unit's watchers, one person, or everyone signed in — whichever the event names. */
   send(event: LiveEvent): void;
-  /** Ends the live connections of a person, or of one session. */
+  /** Ends the live connections of a person, or of one session, on every node. */
   disconnect(who: SocketsOf): void;
-  attach(http: HttpServer, sessionMiddleware: RequestHandler): Server;
+  /** `adapter`: the Redis adapter when several nodes share the rooms. */
+  attach(http: HttpServer, sessionMiddleware: RequestHandler, options?: { adapter?: ServerOptions['adapter'] }): Server;
 };
 
 type Middleware = (req: IncomingMessage, res: ServerResponse, next: (error?: unknown) => void) => void;
@@ -27,6 +31,8 @@ const onHandshake = (middleware: Middleware): Middleware => (req, res, next) => 
 };
 
 const unitRoom = (unitId: number) => `unit:${unitId}`;
+const userRoom = (userId: number) => `user:${userId}`;
+const sessionRoom = (sessionId: string) => `session:${sessionId}`;
 const boardRoom = (unitId: number) => `board:${unitId}`;
 const isUnitId = (value: unknown): value is number => typeof value === 'number' && Number.isInteger(value) && value > 0;
 
@@ -47,7 +53,8 @@ export function createRealtimeHub(): RealtimeHub {
     socket.data.name = user.name;
     socket.data.userId = user.id;
     socket.data.sessionId = (socket.request as IncomingMessage & { sessionID?: string }).sessionID;
-    void socket.join(`user:${user.id}`);
+    void socket.join(userRoom(user.id));
+    if (socket.data.sessionId) void socket.join(sessionRoom(socket.data.sessionId));
     // A tab may show several units at once (the overview); each page leaves what it joined.
     socket.on('watch-unit', (unitId: unknown) => {
       if (isUnitId(unitId)) void socket.join(unitRoom(unitId));
@@ -76,20 +83,29 @@ export function createRealtimeHub(): RealtimeHub {
     send(event) {
       if (!io) return;
       if (event.unitId !== undefined) io.to(unitRoom(event.unitId)).emit('changed', event);
-      else if (event.userId !== undefined) io.to(`user:${event.userId}`).emit('changed', event);
+      else if (event.userId !== undefined) io.to(userRoom(event.userId)).emit('changed', event);
       else io.emit('changed', event);
     },
     disconnect(who) {
       if (!io) return;
-      for (const socket of io.sockets.sockets.values()) {
-        const personMatches = who.userId !== undefined && socket.data.userId === who.userId && socket.data.sessionId !== who.exceptSessionId;
-        if (personMatches || (who.sessionId !== undefined && socket.data.sessionId === who.sessionId)) {
-          socket.disconnect(true);
-        }
+      const server = io;
+      if (who.sessionId !== undefined) server.in(sessionRoom(who.sessionId)).disconnectSockets(true);
+      if (who.userId === undefined) return;
+      if (who.exceptSessionId === undefined) {
+        server.in(userRoom(who.userId)).disconnectSockets(true);
+        return;
       }
+      // All but one session's: the sockets are looked up on every node, then ended one by one.
+      server
+        .in(userRoom(who.userId))
+        .fetchSockets()
+        .then((sockets) => {
+          for (const socket of sockets) if (socket.data.sessionId !== who.exceptSessionId) socket.disconnect(true);
+        })
+        .catch((error: unknown) => logger.error({ err: error, userId: who.userId }, 'could not end the sockets of a person'));
     },
-    attach(http, sessionMiddleware) {
-      io = new Server(http, { serveClient: false, cors: { origin: false } });
+    attach(http, sessionMiddleware, options = {}) {
+      io = new Server(http, { serveClient: false, cors: { origin: false }, ...(options.adapter && { adapter: options.adapter }) });
       io.engine.use(onHandshake(sessionMiddleware as unknown as Middleware));
       io.engine.use(onHandshake(passport.session() as unknown as Middleware));
       // Only signed-in people get a socket: the handshake carries the same session as HTTP. A person

@@ -1,9 +1,9 @@
 // Where uploaded files live. Default: a folder under .data (git-ignored). With STORAGE=s3, any
 // S3-compatible store through the AWS SDK (STORAGE_S3_ENDPOINT, _BUCKET, _REGION, _KEY, _SECRET);
-// the tests run it against a local fake.
+// the tests run it against a local fake. The SDK is large: it is loaded only when S3 is configured.
 import { mkdir, readFile, writeFile } from 'node:fs/promises';
 import path from 'node:path';
-import { GetObjectCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
+import type { StorageConfig } from '../config';
 
 export type Storage = {
   put(key: string, bytes: Buffer, contentType: string): Promise<void>;
@@ -26,34 +26,34 @@ export function localStorage(root: string): Storage {
 }
 
 export function s3Storage(options: { endpoint: string; bucket: string; region?: string; accessKeyId: string; secretAccessKey: string }): Storage {
-  const client = new S3Client({
-    endpoint: options.endpoint,
-    region: options.region ?? 'us-east-1',
-    forcePathStyle: true,
-    credentials: { accessKeyId: options.accessKeyId, secretAccessKey: options.secretAccessKey },
-    requestChecksumCalculation: 'WHEN_REQUIRED',
-    responseChecksumValidation: 'WHEN_REQUIRED',
-  });
+  // Loading starts now (at start-up, when S3 is configured), so the first upload does not wait for it.
+  const ready = import('@aws-sdk/client-s3').then((sdk) => ({
+    sdk,
+    client: new sdk.S3Client({
+      endpoint: options.endpoint,
+      region: options.region ?? 'us-east-1',
+      forcePathStyle: true,
+      credentials: { accessKeyId: options.accessKeyId, secretAccessKey: options.secretAccessKey },
+      requestChecksumCalculation: 'WHEN_REQUIRED',
+      responseChecksumValidation: 'WHEN_REQUIRED',
+    }),
+  }));
+  // A failed load is reported by the first put/get, not as an unhandled rejection at start.
+  ready.catch(() => {});
   return {
     async put(key, bytes, contentType) {
-      await client.send(new PutObjectCommand({ Bucket: options.bucket, Key: key, Body: bytes, ContentType: contentType }));
+      const { sdk, client } = await ready;
+      await client.send(new sdk.PutObjectCommand({ Bucket: options.bucket, Key: key, Body: bytes, ContentType: contentType }));
     },
     async get(key) {
-      const result = await client.send(new GetObjectCommand({ Bucket: options.bucket, Key: key }));
+      const { sdk, client } = await ready;
+      const result = await client.send(new sdk.GetObjectCommand({ Bucket: options.bucket, Key: key }));
       return Buffer.from(await result.Body!.transformToByteArray());
     },
   };
 }
 
-export function storageFromEnv(env: NodeJS.ProcessEnv = process.env): Storage {
-  if (env.STORAGE === 's3') {
-    return s3Storage({
-      endpoint: env.STORAGE_S3_ENDPOINT ?? 'http://127.0.0.1:9000',
-      bucket: env.STORAGE_S3_BUCKET ?? 'hotwell',
-      region: env.STORAGE_S3_REGION,
-      accessKeyId: env.STORAGE_S3_KEY ?? 'local',
-      secretAccessKey: env.STORAGE_S3_SECRET ?? 'local',
-    });
-  }
-  return localStorage(env.STORAGE_DIR ?? path.resolve('.data', 'files'));
+/** The store the configuration names (local files unless STORAGE=s3). */
+export function storageFor(config: StorageConfig = { kind: 'local', dir: path.resolve('.data', 'files') }): Storage {
+  return config.kind === 's3' ? s3Storage(config) : localStorage(config.dir);
 }

@@ -2,6 +2,7 @@
 // deadlock victim (two rounds opening flags on one unit, say); the victim's work is rolled back
 // whole, so running it again from the start is safe. A few tries, then the error stands.
 import { DatabaseError, type Sequelize, type Transaction } from 'sequelize';
+import { logger } from './logger';
 
 const RETRYABLE = new Set([
   1213, // ER_LOCK_DEADLOCK
@@ -26,7 +27,7 @@ export async function unitOfWork<T>(sequelize: Sequelize, work: (transaction: Tr
       return await sequelize.transaction(work);
     } catch (error) {
       if (!isRetryable(error) || attempt >= MAX_TRIES) throw error;
-      console.warn(`[db] ${label}: ${(error as Error).message} — retrying (${attempt} of ${MAX_TRIES - 1})`);
+      logger.warn({ unitOfWork: label, attempt, err: error }, `${label}: ${(error as Error).message} — retrying (${attempt} of ${MAX_TRIES - 1})`);
       // A short random pause so the two transactions do not collide again in step.
       await new Promise((resolve) => setTimeout(resolve, 5 + Math.random() * 20 * attempt));
     }

@@ -10,9 +10,20 @@ export class ApiError extends Error {
     readonly fields: FieldErrors = {},
     /** Anything else the server sent for the form to act on (e.g. what to confirm). */
     readonly details?: unknown,
+    /** The server's id of the request (X-Request-Id), which its log lines carry. */
+    readonly requestId?: string,
   ) {
     super(message);
   }
+}
+
+/**
+ * A server failure's message ends with the request's reference, so the person can quote it to
+ * whoever reads the server's log; answers about the input itself (4xx) say what to change instead.
+ */
+export function withReference(message: string, status: number, requestId: string | null | undefined): string {
+  if (status < 500 || !requestId) return message;
+  return `${message} (reference ${requestId})`;
 }
 
 let csrfToken: string | null = null;
@@ -57,6 +68,7 @@ async function send<T>(method: Method, path: string, body?: unknown, retried = f
     | null;
   if (response.ok) return payload as T;
   const error = payload?.error;
+  const requestId = response.headers.get('X-Request-Id') ?? undefined;
   if (response.status === 403 && error?.code === 'CSRF' && !retried) {
     // The session was renewed elsewhere (sign-in, restart): fetch a fresh token once.
     csrfToken = null;
@@ -66,9 +78,10 @@ async function send<T>(method: Method, path: string, body?: unknown, retried = f
   throw new ApiError(
     response.status,
     error?.code ?? 'HTTP_' + response.status,
-    error?.message ?? `The server answered ${response.status}`,
+    withReference(error?.message ?? `The server answered ${response.status}`, response.status, requestId),
     error?.fields ?? {},
     error?.details,
+    requestId,
   );
 }
 

@@ -14,6 +14,7 @@ import { unitOfWork } from '../../server/lib/unit-of-work';
 import { startMailCatcher } from '../../scripts/lib/mail-catcher.mjs';
 import { startCatcher, waitForMail, type Catcher } from './support/mail';
 import { buildApp, closeAll, db, makeStation, makeUser, signedInAgent, type Agent, clearOutbox } from './support/test-app';
+import { logger } from '../../server/lib/logger';
 
 type Row = { id: number; kind: string; ref_id: number; attempts: number; last_error: string | null; sent_at: Date | null; due_at: Date; claim_token: string | null };
 const rowsOf = (kind: string, refIds: number[]) =>
@@ -143,7 +144,7 @@ describe('a mail server that is down', () => {
     const sender = makeOutboxSender(db(), createMailer(`smtp://127.0.0.1:${port}`), { retryBaseMs: 60_000 });
     const refId = Date.now();
     await unitOfWork(db(), (transaction) => enqueueNotice({ kind: 'test_retry', refId, to: ['lead@fernhollow.example'], subject: 'Retry me', text: 'Once' }, transaction));
-    const warn = vi.spyOn(console, 'warn').mockImplementation(() => {});
+    const warn = vi.spyOn(logger, 'warn').mockImplementation(() => {});
     const t0 = new Date();
     expect(await sender.sendDue(t0)).toEqual({ sent: 0, failed: 1 });
     let [row] = await rowsOf('test_retry', [refId]);

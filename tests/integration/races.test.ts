@@ -11,6 +11,7 @@ import { LogEntry } from '../../server/features/log/model';
 import { User } from '../../server/features/users/model';
 import { vacuumRound } from './support/rounds';
 import { buildApp, closeAll, db, makeStation, makeUnit, makeUser, signedInAgent, type Agent } from './support/test-app';
+import { logger } from '../../server/lib/logger';
 
 const built = buildApp();
 const post = (agent: Agent, path: string, body: unknown = {}) => agent.post(path).set('X-CSRF-Token', agent.csrf).send(body as object);
@@ -25,8 +26,8 @@ afterAll(closeAll);
 /** Counts the deadlock and lock-wait retries the unit of work logs while `run` runs. */
 async function countingRetries<T>(run: () => Promise<T>): Promise<{ result: T; retries: string[] }> {
   const retries: string[] = [];
-  const spy = vi.spyOn(console, 'warn').mockImplementation((...args: unknown[]) => {
-    retries.push(args.map(String).join(' '));
+  const spy = vi.spyOn(logger, 'warn').mockImplementation((...args: unknown[]) => {
+    retries.push(args.map((a) => (typeof a === 'string' ? a : JSON.stringify(a))).join(' '));
   });
   try {
     return { result: await run(), retries };

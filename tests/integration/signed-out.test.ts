@@ -4,7 +4,7 @@ import { anonymousAgent, buildApp, closeAll } from './support/test-app';
 afterAll(closeAll);
 const built = buildApp();
 
-// Every API route except sign-in, the CSRF token and the health check needs a session.
+// Every API route except sign-in, the CSRF token and the health and readiness probes needs a session.
 const routes: [method: 'get' | 'post' | 'patch' | 'put', path: string][] = [
   ['get', '/api/me'],
   ['get', '/api/overview'],

@@ -16,6 +16,7 @@ import { ReadingSet } from '../readings/index';
 import { checkTakenAt, storeImportBatch } from '../readings/index';
 import { ImportMappingRow } from './model';
 import { parseCsv } from './parse-csv';
+import { logger } from '../../lib/logger';
 
 type ValidRow = { row: number; takenAt: Date; raw: ReadingSetInput; si: ReadingSetSi };
 
@@ -261,7 +262,7 @@ export function makeImportService(sequelize: Sequelize, options: { batchRows?: n
         totals.batches += 1;
       } catch (error) {
         if (totals.batches === 0 || error instanceof HttpError) throw error;
-        console.error(`[import] unit ${unitId}: batch ${index + 1} of ${batches.length} failed`, error);
+        logger.error({ unitId, batch: index + 1, batches: batches.length, err: error }, 'import batch failed');
         throw new HttpError(
           500,
           'IMPORT_INCOMPLETE',

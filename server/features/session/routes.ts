@@ -1,5 +1,7 @@
 import { Router, type Request, type RequestHandler } from 'express';
 import { rateLimit } from 'express-rate-limit';
+import { RedisStore } from 'rate-limit-redis';
+import type { RedisClient } from '../../lib/redis';
 import { changePasswordSchema, signInSchema } from '../../../shared/schemas/auth';
 import { SIGN_IN_FAILED, authorize } from '../../lib/auth';
 import { hasSignedInSession } from '../../lib/csrf';
@@ -17,11 +19,13 @@ type Deps = {
   /** Sign-in forms (CSRF tokens) handed out per minute per address before sign-in. */
   anonymousTokenLimit: number;
   onSignedOut?: (sessionId: string) => void;
+  /** With several app nodes: the form limit counts in Redis, so it holds whichever node answers. */
+  redis?: RedisClient;
 };
 
 const addressOf = (req: Request) => req.ip ?? req.socket.remoteAddress ?? 'unknown';
 
-export function sessionRoutes({ users, csrf, signInLimits, anonymousTokenLimit, onSignedOut = () => {} }: Deps): Router {
+export function sessionRoutes({ users, csrf, signInLimits, anonymousTokenLimit, onSignedOut = () => {}, redis }: Deps): Router {
   const router = Router();
 
   // Handing out a token stores nothing now, but a flood of them still costs CPU: a ceiling per address.
@@ -29,6 +33,12 @@ export function sessionRoutes({ users, csrf, signInLimits, anonymousTokenLimit, 
     windowMs: 60 * 1000,
     limit: anonymousTokenLimit,
     skip: hasSignedInSession,
+    ...(redis && {
+      store: new RedisStore({ prefix: 'hotwell:sign-in-forms:', sendCommand: (...args: string[]) => redis.sendCommand(args) as Promise<number> }),
+      // Redis away: forms are handed out unlimited rather than nobody being able to sign in; the
+      // per-account and per-address sign-in limits (in MariaDB) still hold.
+      passOnStoreError: true,
+    }),
     standardHeaders: 'draft-8',
     legacyHeaders: false,
     handler: (_req, res) => {

@@ -115,6 +115,7 @@ export function accessPolicies(f: Fixtures): Record<string, Policy> {
   const p = (access: Access, call: Policy['call'], more: Partial<Policy> = {}): Policy => ({ access, call, ...more });
   return {
     'GET /api/health': p('public', () => ({ path: '/api/health' })),
+    'GET /api/ready': p('public', () => ({ path: '/api/ready' })),
     'GET /api/session/csrf': p('public', () => ({ path: '/api/session/csrf' })),
     // Signing in (again) replaces a session: each caller does it as a person of their own.
     'POST /api/session': p('public', async (who) => {
