@@ -30,6 +30,7 @@ import { startBalancer, startNode } from './lib/cluster.mjs';
 import { runNodeOrExit, serverBuildIsStale } from './lib/run.mjs';
 // @ts-expect-error plain JS helper
 import { startMailCatcher } from './lib/mail-catcher.mjs';
+import { httpCall, type Answer, type Session } from './lib/http-call';
 
 const CLIENTS = Number(process.env.BENCH_CLIENTS ?? 400);
 const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 50);
@@ -40,25 +41,9 @@ const SECONDS = Number(process.env.BENCH_SECONDS ?? 20);
 const [portA, portB, portOne, portTwo] = (process.env.BENCH_CLUSTER_PORTS ?? '5290,5291,5292,5293').split(',').map(Number) as [number, number, number, number];
 
 type Child = { process: import('node:child_process').ChildProcess; url: string; stop: () => Promise<void> };
-type Session = { cookie: string; csrf: string };
 
 const agent = new http.Agent({ keepAlive: true, maxSockets: 512 });
-function call(base: string, method: string, path: string, session: Session | null, body?: unknown): Promise<{ status: number; text: string; setCookie?: string[] }> {
-  return new Promise((resolve, reject) => {
-    const headers: Record<string, string> = { accept: 'application/json' };
-    if (session?.cookie) headers.cookie = session.cookie;
-    if (method !== 'GET' && session) headers['x-csrf-token'] = session.csrf;
-    if (body !== undefined) headers['content-type'] = 'application/json';
-    const request = http.request(new URL(path, base), { method, agent, headers }, (response) => {
-      let text = '';
-      response.setEncoding('utf8');
-      response.on('data', (chunk: string) => (text += chunk));
-      response.on('end', () => resolve({ status: response.statusCode ?? 0, text, setCookie: response.headers['set-cookie'] }));
-    });
-    request.on('error', reject);
-    request.end(body === undefined ? undefined : JSON.stringify(body));
-  });
-}
+const call = (base: string, method: string, path: string, session: Session | null, body?: unknown): Promise<Answer> => httpCall(agent, base, method, path, session, body);
 
 async function signIn(base: string, email: string): Promise<Session> {
   const session: Session = { cookie: '', csrf: '' };

@@ -18,6 +18,7 @@ import people from '../server/db/seed/demo-people.json';
 import { percentile } from './lib/bench-harness';
 // @ts-expect-error plain JS helper shared with the bootstrap scripts
 import { startPrivateMariaDb } from './lib/private-mariadb.mjs';
+import { httpCall, type Answer, type Session } from './lib/http-call';
 
 const CLIENTS = Number(process.env.BENCH_CLIENTS ?? 200);
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 60);
@@ -27,24 +28,8 @@ const base = `http://127.0.0.1:${PORT}`;
 const writers = people.users.filter((u) => ['operator', 'shift_lead'].includes(u.role)).map((u) => u.email);
 
 const agent = new http.Agent({ keepAlive: true, maxSockets: CLIENTS * 2 });
-type Session = { cookie: string; csrf: string };
 
-function call(method: string, path: string, session: Session | null, body?: unknown): Promise<{ status: number; text: string; setCookie?: string[] }> {
-  return new Promise((resolve, reject) => {
-    const headers: Record<string, string> = { accept: 'application/json' };
-    if (session?.cookie) headers.cookie = session.cookie;
-    if (method !== 'GET' && session) headers['x-csrf-token'] = session.csrf;
-    if (body !== undefined) headers['content-type'] = 'application/json';
-    const request = http.request(new URL(path, base), { method, agent, headers }, (response) => {
-      let text = '';
-      response.setEncoding('utf8');
-      response.on('data', (chunk: string) => (text += chunk));
-      response.on('end', () => resolve({ status: response.statusCode ?? 0, text, setCookie: response.headers['set-cookie'] }));
-    });
-    request.on('error', reject);
-    request.end(body === undefined ? undefined : JSON.stringify(body));
-  });
-}
+const call = (method: string, path: string, session: Session | null, body?: unknown): Promise<Answer> => httpCall(agent, base, method, path, session, body);
 
 async function signIn(email: string): Promise<Session> {
   const session: Session = { cookie: '', csrf: '' };
