@@ -140,7 +140,7 @@ async function run(url: string) {
 
   // `node --import tsx` rather than the tsx command, so the process measured is the server itself.
   const server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-    env: { ...process.env, DATABASE_URL: url, PORT: String(PORT), SESSION_SECRET: 'bench-load', NODE_ENV: 'production', SIGN_IN_RATE_LIMIT: '1000000', SMTP_URL: '' },
+    env: { ...process.env, DATABASE_URL: url, PORT: String(PORT), SESSION_SECRET: 'bench-load-session-secret-0123456789abcdef', NODE_ENV: 'production', SIGN_IN_RATE_LIMIT: '1000000', PUBLIC_URL: base, SMTP_URL: 'smtp://127.0.0.1:9' },
     stdio: ['ignore', 'ignore', 'inherit'],
   });
   try {
