@@ -147,6 +147,7 @@ async function run(url: string) {
     for (let i = 0; ; i++) {
       const ok = await call('GET', '/api/health', null).then((r) => r.status === 200, () => false);
       if (ok) break;
+      if (server.exitCode !== null) throw new Error(`the server stopped while starting (exit code ${server.exitCode}); its message is above`);
       if (i > 120) throw new Error('the server did not start');
       await new Promise((r) => setTimeout(r, 500));
     }
@@ -160,8 +161,12 @@ async function run(url: string) {
     console.log(`server RSS before ${rssBefore.toFixed(0)} MB, after ${rssAfter.toFixed(0)} MB`);
     console.log(`mix p95 / floor p95: ${(load.p95 / floor.p95).toFixed(2)}× (target within 3×); errors ${load.errors + floor.errors} (target 0)`);
   } finally {
-    server.kill('SIGTERM');
-    await new Promise((r) => server.once('exit', r));
+    // An 'exit' already past would never come again: wait only for a server still running.
+    if (server.exitCode === null && server.signalCode === null) {
+      const exited = new Promise((r) => server.once('exit', r));
+      server.kill('SIGTERM');
+      await exited;
+    }
   }
 }
 
