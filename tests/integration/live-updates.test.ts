@@ -2,8 +2,6 @@
 // (a new write route without an entry here fails the first test); each kind is seen leaving after
 // its commit and only then; sockets join and leave unit rooms; presence counts the board only;
 // a deactivated or signed-out person's socket is closed at once.
-import http from 'node:http';
-import type { AddressInfo } from 'node:net';
 import type { Express } from 'express';
 import { io as connect, type Socket } from 'socket.io-client';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -11,7 +9,7 @@ import type { LiveEntity, LiveEvent } from '../../shared/live-events';
 import { onPublished, publish } from '../../server/lib/live';
 import { unitOfWork } from '../../server/lib/unit-of-work';
 import { vacuumRound } from './support/rounds';
-import { buildApp, closeAll, db, makeStation, makeUser, signedInAgent, PASSWORD, type Agent } from './support/test-app';
+import { buildApp, closeAll, db, makeStation, makeUser, signedInAgent, PASSWORD, type Agent, listenWithSockets } from './support/test-app';
 
 const built = buildApp();
 const post = (agent: Agent, path: string, body: unknown = {}) => agent.post(path).set('X-CSRF-Token', agent.csrf).send(body as object);
@@ -194,18 +192,16 @@ describe('each kind of record goes live from its service', () => {
 });
 
 describe('sockets', () => {
-  let server: http.Server;
+  let listening: Awaited<ReturnType<typeof listenWithSockets>>;
   let base = '';
   const open: Socket[] = [];
   beforeAll(async () => {
-    server = http.createServer(built.app);
-    built.realtime.attach(server, built.sessionMiddleware);
-    await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
-    base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+    listening = await listenWithSockets(built);
+    base = listening.base;
   });
   afterAll(async () => {
     for (const s of open) s.disconnect();
-    await new Promise((resolve) => server.close(resolve));
+    await listening.close();
   });
 
   async function session(email: string, password = PASSWORD) {

@@ -3,14 +3,12 @@
 // e-mail are refused with a message on the field, whether the person chooses it or an administrator
 // sets it as a temporary one. Changing one's password ends one's other sessions and their live
 // connections; the session it was changed in carries on.
-import http from 'node:http';
-import type { AddressInfo } from 'node:net';
 import { io as connect, type Socket } from 'socket.io-client';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { hashPassword } from '../../server/lib/auth';
 import { SessionRow } from '../../server/features/session/model';
 import { User } from '../../server/features/users/model';
-import { PASSWORD, buildApp, closeAll, makeUser, signedInAgent, type Agent } from './support/test-app';
+import { PASSWORD, buildApp, closeAll, makeUser, signedInAgent, type Agent, listenWithSockets } from './support/test-app';
 
 const built = buildApp();
 afterAll(closeAll);
@@ -62,18 +60,16 @@ describe('POST /api/admin/users', () => {
 });
 
 describe('a password change ends the person’s other sessions', () => {
-  let server: http.Server;
+  let listening: Awaited<ReturnType<typeof listenWithSockets>>;
   let base = '';
   const sockets: Socket[] = [];
   beforeAll(async () => {
-    server = http.createServer(built.app);
-    built.realtime.attach(server, built.sessionMiddleware);
-    await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
-    base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+    listening = await listenWithSockets(built);
+    base = listening.base;
   });
   afterAll(async () => {
     for (const s of sockets) s.disconnect();
-    await new Promise((resolve) => server.close(resolve));
+    await listening.close();
   });
 
   /** A browser: its session cookie, its CSRF token and its socket. */

@@ -1,4 +1,6 @@
 // Integration-test harness: the real app, in-process, against the real MariaDB test database.
+import http from 'node:http';
+import type { AddressInfo } from 'node:net';
 import request from 'supertest';
 import type { Sequelize } from 'sequelize';
 import { createApp, type BuiltApp } from '../../../server/app';
@@ -142,4 +144,18 @@ export async function makeStation(crews = 2, options: { plausible?: PlausibleOpt
  */
 export async function clearOutbox() {
   await db().query('UPDATE outbox SET sent_at = NOW(3), claim_token = NULL, claimed_until = NULL WHERE sent_at IS NULL');
+}
+
+/**
+ * The app listening on a free port with its Socket.IO server attached, for tests that open real
+ * sockets; `close` ends the server (disconnect the test's sockets first).
+ */
+export async function listenWithSockets(built: BuiltApp): Promise<{ base: string; close: () => Promise<void> }> {
+  const server = http.createServer(built.app);
+  built.realtime.attach(server, built.sessionMiddleware);
+  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
+  return {
+    base: `http://127.0.0.1:${(server.address() as AddressInfo).port}`,
+    close: () => new Promise<void>((resolve) => server.close(() => resolve())),
+  };
 }
