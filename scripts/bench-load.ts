@@ -139,7 +139,9 @@ async function run(url: string) {
   await sequelize.close();
 
   // `node --import tsx` rather than the tsx command, so the process measured is the server itself.
-  const server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+  // BENCH_SERVER_NODE_ARGS, e.g. "--cpu-prof --cpu-prof-dir=/tmp/prof", to see where the server's time goes.
+  const extraArgs = (process.env.BENCH_SERVER_NODE_ARGS ?? '').split(' ').filter(Boolean);
+  const server = spawn(process.execPath, [...extraArgs, '--import', 'tsx', 'server/index.ts'], {
     env: { ...process.env, DATABASE_URL: url, PORT: String(PORT), SESSION_SECRET: 'bench-load-session-secret-0123456789abcdef', NODE_ENV: 'production', SIGN_IN_RATE_LIMIT: '1000000', PUBLIC_URL: base, SMTP_URL: 'smtp://127.0.0.1:9' },
     stdio: ['ignore', 'ignore', 'inherit'],
   });

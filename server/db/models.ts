@@ -17,6 +17,10 @@ import { initTrainingModels } from '../features/training/model';
 import { initLogbookModels } from '../features/logbook/model';
 import { registerLogbookIndexHooks } from '../features/logbook/index-hooks';
 import { registerHandoverDraftHooks } from '../features/handovers/draft-hooks';
+import { watchReferenceModels } from '../lib/reference-cache';
+import { Crew, LimitSetVersion, PlantUnit, PlausibleRangeVersion, Station, UnitDesignVersion } from '../features/plant/model';
+import { StationSettingsRow } from '../features/stations/model';
+import { CrewSwap } from '../features/shifts/model';
 
 /** Registers every model on the instance. Schema comes from migrations, never from sync(). */
 export function initModels(sequelize: Sequelize) {
@@ -38,4 +42,6 @@ export function initModels(sequelize: Sequelize) {
   initLogbookModels(sequelize);
   registerLogbookIndexHooks(sequelize);
   registerHandoverDraftHooks();
+  // Reference data is cached (lib/reference-cache.ts); a write to any of these forgets it.
+  watchReferenceModels([Station, PlantUnit, Crew, UnitDesignVersion, LimitSetVersion, PlausibleRangeVersion, StationSettingsRow, CrewSwap]);
 }

@@ -26,6 +26,12 @@ const transactionContext = {
 };
 Sequelize.useCLS(transactionContext);
 
+/** The transaction whose work is running here (null outside one, or once it has finished). */
+export function openTransaction(): Transaction | null {
+  const open = transactionContext.get('transaction') as (Transaction & { finished?: string }) | null | undefined;
+  return open && !open.finished ? open : null;
+}
+
 const POOL_MAX = 10;
 
 export function createSequelize(databaseUrl: string): Sequelize {

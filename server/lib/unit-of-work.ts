@@ -3,6 +3,7 @@
 // whole, so running it again from the start is safe. A few tries, then the error stands.
 import { DatabaseError, type Sequelize, type Transaction } from 'sequelize';
 import { logger } from './logger';
+import { noteTransactionBegun } from './reference-cache';
 
 const RETRYABLE = new Set([
   1213, // ER_LOCK_DEADLOCK
@@ -24,7 +25,10 @@ export function isRetryable(error: unknown): boolean {
 export async function unitOfWork<T>(sequelize: Sequelize, work: (transaction: Transaction) => Promise<T>, label = 'unit of work'): Promise<T> {
   for (let attempt = 1; ; attempt++) {
     try {
-      return await sequelize.transaction(work);
+      return await sequelize.transaction((transaction) => {
+        noteTransactionBegun(transaction);
+        return work(transaction);
+      });
     } catch (error) {
       if (!isRetryable(error) || attempt >= MAX_TRIES) throw error;
       logger.warn({ unitOfWork: label, attempt, err: error }, `${label}: ${(error as Error).message} — retrying (${attempt} of ${MAX_TRIES - 1})`);

@@ -17,6 +17,7 @@ let balancer: Balancer;
 let catcher: Catcher;
 let unitId = 0;
 let unitName = '';
+let stationId = 0;
 const itemIds: number[] = [];
 let handoverId = 0;
 let incoming: Client[] = [];
@@ -58,7 +59,8 @@ beforeAll(async () => {
   await redis.close();
 
   catcher = await startCatcher();
-  const { unit, crews } = await makeStation(2);
+  const { station, unit, crews } = await makeStation(2);
+  stationId = station.id;
   unitId = unit.id;
   unitName = unit.name;
   const [outgoing, incomingCrew] = crews as [(typeof crews)[0], (typeof crews)[0]];
@@ -108,6 +110,25 @@ describe('two app nodes on Redis', () => {
     const response = await acknowledge(incoming[1]!, a.url, itemIds[0]!);
     expect(response.status).toBe(201);
     expect(await event).toMatchObject({ entity: 'handover', id: handoverId });
+  });
+
+  it('a station setting changed on node A is what node B answers next (each node caches reference data)', async () => {
+    const admin = await signIn(a.url, (await makeUser('admin')).email, PASSWORD);
+    const settingsOn = async (base: string) => ((await (await admin.call(base, `/api/stations/${stationId}/settings`)).json()) as { settings: { lateEntryMinutes: number } }).settings;
+    // Node B reads, and keeps, the settings as they are.
+    const before = await settingsOn(b.url);
+    const changed = { ...before, lateEntryMinutes: before.lateEntryMinutes + 7 };
+    const saved = await admin.call(a.url, `/api/stations/${stationId}/settings`, { method: 'PUT', headers: { 'x-csrf-token': admin.csrf }, body: JSON.stringify(changed) });
+    expect(saved.status).toBe(200);
+    // Node A forgot at its commit; node B forgets when Redis tells it (milliseconds; its own limit is a minute).
+    const deadline = Date.now() + 2_000;
+    let seen = (await settingsOn(b.url)).lateEntryMinutes;
+    while (seen !== changed.lateEntryMinutes && Date.now() < deadline) {
+      await new Promise((r) => setTimeout(r, 50));
+      seen = (await settingsOn(b.url)).lateEntryMinutes;
+    }
+    expect(seen).toBe(changed.lateEntryMinutes);
+    expect((await settingsOn(a.url)).lateEntryMinutes).toBe(changed.lateEntryMinutes);
   });
 
   it('sends the late-acceptance reminder exactly once, with both nodes checking every second', async () => {

@@ -6,6 +6,7 @@ import type { NewLogEntry } from '../../../shared/schemas/log';
 import { Conflict, Forbidden, NotFound, ValidationError } from '../../lib/errors';
 import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
+import { coalesced } from '../../lib/coalesce';
 import { recordAudit } from '../../lib/audit';
 import { mayAmendLogEntry, whyNotAmendLogEntry, type LogActor } from '../../../shared/policies/log';
 import { findEquipment, findUnit } from '../plant/index';
@@ -123,26 +124,35 @@ export type LogService = ReturnType<typeof makeLogService>;
 
 type LogQuery = { position?: string; category?: string; authorId?: number; shiftStart?: string; limit: number; before?: number };
 
+/** One page of a unit's entries with everything beside them; the same for every viewer, so shared by requests asked at once. */
+const entriesPage = coalesced(
+  async ({ unitId, q }: { unitId: number; q: LogQuery }) => {
+    // 404 for an unknown unit before anything is read.
+    await settingsForUnit(unitId);
+    const where: Record<string | symbol, unknown> = { unitId };
+    if (q.position) where.position = q.position;
+    if (q.category) where.category = q.category;
+    if (q.authorId) where.authorId = q.authorId;
+    if (q.shiftStart) where.shiftStart = new Date(q.shiftStart);
+    if (q.before) where.id = { [Op.lt]: q.before };
+    const entries = await LogEntry.findAll({ where, order: [['eventAt', 'DESC'], ['id', 'DESC']], limit: q.limit });
+    const ids = entries.map((e) => e.id);
+    const amendments = ids.length ? await LogAmendment.findAll({ where: { entryId: ids }, order: [['id', 'ASC']] }) : [];
+    const shifts = [...new Set(entries.map((e) => e.shiftStart.getTime()))].map((t) => new Date(t));
+    const reviews = shifts.length ? await LogReview.findAll({ where: { unitId, shiftStart: shifts } }) : [];
+    const people = new Map(
+      await namesOf([...entries.map((e) => e.authorId), ...amendments.map((a) => a.authorId), ...reviews.map((r) => r.reviewedBy)]),
+    );
+    const unit = await findUnit(unitId);
+    const crews = unit ? await crewsOfShifts(unit.stationId, shifts) : new Map<number, number | null>();
+    return { entries, amendments, reviews, people, crews };
+  },
+  ({ unitId, q }) => `${unitId}:${JSON.stringify([q.position, q.category, q.authorId, q.shiftStart, q.limit, q.before])}`,
+);
+
 /** Entries newest event first, each with its amendments, whether it came after the review and whether the viewer may amend it. */
 export async function listEntries(unitId: number, q: LogQuery, viewer: LogActor) {
-  // 404 for an unknown unit before anything is read.
-  await settingsForUnit(unitId);
-  const where: Record<string | symbol, unknown> = { unitId };
-  if (q.position) where.position = q.position;
-  if (q.category) where.category = q.category;
-  if (q.authorId) where.authorId = q.authorId;
-  if (q.shiftStart) where.shiftStart = new Date(q.shiftStart);
-  if (q.before) where.id = { [Op.lt]: q.before };
-  const entries = await LogEntry.findAll({ where, order: [['eventAt', 'DESC'], ['id', 'DESC']], limit: q.limit });
-  const ids = entries.map((e) => e.id);
-  const amendments = ids.length ? await LogAmendment.findAll({ where: { entryId: ids }, order: [['id', 'ASC']] }) : [];
-  const shifts = [...new Set(entries.map((e) => e.shiftStart.getTime()))].map((t) => new Date(t));
-  const reviews = shifts.length ? await LogReview.findAll({ where: { unitId, shiftStart: shifts } }) : [];
-  const people = new Map(
-    await namesOf([...entries.map((e) => e.authorId), ...amendments.map((a) => a.authorId), ...reviews.map((r) => r.reviewedBy)]),
-  );
-  const unit = await findUnit(unitId);
-  const crews = unit ? await crewsOfShifts(unit.stationId, shifts) : new Map<number, number | null>();
+  const { entries, amendments, reviews, people, crews } = await entriesPage({ unitId, q });
   const reviewOf = (e: LogEntry) => reviews.find((r) => r.position === e.position && r.shiftStart.getTime() === e.shiftStart.getTime());
   return entries.map((e) => {
     const review = reviewOf(e);

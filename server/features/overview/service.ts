@@ -7,6 +7,7 @@ import { shiftRoles } from '../../../shared/policies/handover';
 import { remainingTime } from '../../../shared/conditions';
 import type { Overview, OverviewHandover, OverviewUnit } from '../../../shared/schemas/overview';
 import { stationLocalLabel } from '../../../shared/shift-time';
+import { coalesced } from '../../lib/coalesce';
 import { peopleOnCrewsOrIds } from '../users/index';
 import { shiftNow } from './shift-now';
 import { currentHandovers, latestRounds, openConditions, openFlags, type CurrentHandovers } from './unit-state';
@@ -15,20 +16,32 @@ import { handoverItemsFor, handoverQuestionsFor, handoversToAcceptFor, reviewCom
 const roleOrder: Record<string, number> = { shift_lead: 0, operator: 1, trainee: 2 };
 
 export function makeOverviewService(sequelize: Sequelize, deps: { reviewCommentsFor: ReviewCommentsFor }) {
-  async function overview(viewer: Express.User, now = new Date()): Promise<Overview> {
+  /** What every viewer sees alike: the shift and each unit's state. Shared by requests asked at once. */
+  async function unitPicture(now: Date) {
     const shift = await shiftNow(now);
     const unitIds = shift.units.map((u) => u.id);
     const stationOf = (stationId: number) => shift.stations.get(stationId)!;
-    const [rounds, flags, conditions, handovers, traineeRounds, trainingEntries, standingOrders, reviewComments] = await Promise.all([
+    const [rounds, flags, conditions, handovers] = await Promise.all([
       latestRounds(sequelize, unitIds),
       openFlags(sequelize, unitIds),
       openConditions(unitIds),
       currentHandovers(shift.units.map((u) => ({ unitId: u.id, shiftStart: stationOf(u.stationId).shiftStart }))),
+    ]);
+    return { now, shift, rounds, flags, conditions, handovers };
+  }
+  // The page asked for now (no time given) is the one shared: its time is when the shared read began.
+  const sharedPicture = coalesced((at: Date | null) => unitPicture(at ?? new Date()), (at) => (at ? String(at.getTime()) : 'now'));
+
+  async function overview(viewer: Express.User, at?: Date): Promise<Overview> {
+    const [picture, traineeRounds, trainingEntries, standingOrders, reviewComments] = await Promise.all([
+      sharedPicture(at ?? null),
       traineeRoundsFor(viewer),
       trainingEntriesFor(viewer),
       standingOrdersFor(viewer),
-      reviewCommentsFor(viewer, deps.reviewCommentsFor, now),
+      reviewCommentsFor(viewer, deps.reviewCommentsFor, at ?? new Date()),
     ]);
+    const { now, shift, rounds, flags, conditions, handovers } = picture;
+    const stationOf = (stationId: number) => shift.stations.get(stationId)!;
 
     // Everyone named on the page, and the crews whose acknowledgements are counted, in one read.
     const crewIds = new Set<number>();

@@ -1,6 +1,7 @@
 // Plant setup and the plant lookups other features ask for: units, stations, crews, equipment.
 import { UniqueConstraintError, type Sequelize, type Transaction } from 'sequelize';
 import { recordAudit } from '../../lib/audit';
+import { referenceRead } from '../../lib/reference-cache';
 import { ValidationError } from '../../lib/errors';
 import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
@@ -8,18 +9,19 @@ import { namesOf } from '../users/index';
 import { Crew, Equipment, LimitSetVersion, PlantUnit, PlausibleRangeVersion, Station, UnitDesignVersion, type EquipmentKind } from './model';
 import { designInForce, limitsInForce, plausibleInForce, requireUnit } from './versions';
 
+// Units, stations and crews are reference data: read through the cache (lib/reference-cache.ts).
 export function findUnit(unitId: number, transaction?: Transaction) {
-  return PlantUnit.findByPk(unitId, { transaction });
+  return referenceRead(`unit:${unitId}`, () => PlantUnit.findByPk(unitId, { transaction }), transaction);
 }
 
 /** Every unit, by code. */
 export function allUnits() {
-  return PlantUnit.findAll({ order: [['code', 'ASC']] });
+  return referenceRead('units', () => PlantUnit.findAll({ order: [['code', 'ASC']] }));
 }
 
 /** Ids of a station's units. */
 export async function unitIdsOfStation(stationId: number, transaction?: Transaction) {
-  return (await PlantUnit.findAll({ where: { stationId }, attributes: ['id'], transaction })).map((u) => u.id);
+  return referenceRead(`unit-ids:${stationId}`, async () => (await PlantUnit.findAll({ where: { stationId }, attributes: ['id'], transaction })).map((u) => u.id), transaction);
 }
 
 /**
@@ -31,11 +33,11 @@ export async function lockUnit(unitId: number, transaction: Transaction) {
 }
 
 export function findStation(stationId: number) {
-  return Station.findByPk(stationId);
+  return referenceRead(`station:${stationId}`, () => Station.findByPk(stationId));
 }
 
 export function allStations() {
-  return Station.findAll({ order: [['id', 'ASC']] });
+  return referenceRead('stations', () => Station.findAll({ order: [['id', 'ASC']] }));
 }
 
 /** The station with the lowest id: the one pages without a unit or crew use. */
@@ -55,8 +57,9 @@ export async function listCrews() {
 /** Crew names by id (every crew when `ids` is left out). */
 export async function crewNamesOf(ids?: number[]): Promise<Map<number, string>> {
   if (ids && ids.length === 0) return new Map();
-  const crews = await Crew.findAll({ ...(ids ? { where: { id: ids } } : {}), attributes: ['id', 'name'] });
-  return new Map(crews.map((c) => [c.id, c.name]));
+  const every = await referenceRead('crew-names', async () => (await Crew.findAll({ attributes: ['id', 'name'] })).map((c) => [c.id, c.name] as const));
+  const wanted = ids ? new Set(ids) : null;
+  return new Map(every.filter(([id]) => !wanted || wanted.has(id)));
 }
 
 /** How many of these crews belong to the station (a rotation or swap names crews of its station only). */

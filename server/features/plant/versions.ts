@@ -8,6 +8,7 @@ import { recordAudit } from '../../lib/audit';
 import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
 import { NotFound } from '../../lib/errors';
+import { referenceRead } from '../../lib/reference-cache';
 import { LimitSetVersion, PlantUnit, PlausibleRangeVersion, UnitDesignVersion } from './model';
 
 const inForce = (unitId: number, at: Date) => ({
@@ -18,26 +19,42 @@ const inForce = (unitId: number, at: Date) => ({
   ] as [string, string][],
 });
 
+// Versions are reference data (lib/reference-cache.ts): each unit's whole history of each kind is
+// read once, oldest first, and the one in force at a moment is picked from it here — the same rule as
+// `inForce`: the latest effective at or before the moment, the later-made one on a tie.
+const byStart = { order: [['effectiveFrom', 'ASC'], ['id', 'ASC']] as [string, string][] };
+const designsOf = (unitId: number, transaction?: Transaction) =>
+  referenceRead(`designs:${unitId}`, () => UnitDesignVersion.findAll({ where: { unitId }, ...byStart, transaction }), transaction);
+const limitSetsOf = (unitId: number, transaction?: Transaction) =>
+  referenceRead(`limit-sets:${unitId}`, () => LimitSetVersion.findAll({ where: { unitId }, ...byStart, transaction }), transaction);
+const plausibleOf = (unitId: number, transaction?: Transaction) =>
+  referenceRead(`plausible:${unitId}`, () => PlausibleRangeVersion.findAll({ where: { unitId }, ...byStart, transaction }), transaction);
+
+function inForceAt<V extends { effectiveFrom: Date }>(oldestFirst: V[], at: Date): V | null {
+  for (let i = oldestFirst.length - 1; i >= 0; i--) if (oldestFirst[i]!.effectiveFrom.getTime() <= at.getTime()) return oldestFirst[i]!;
+  return null;
+}
+
 export async function designInForce(unitId: number, at = new Date(), transaction?: Transaction): Promise<UnitDesignVersion> {
-  const version = await UnitDesignVersion.findOne({ ...inForce(unitId, at), transaction });
+  const version = inForceAt(await designsOf(unitId, transaction), at);
   if (!version) throw new NotFound('Design data in force for that unit and time');
   return version;
 }
 
 /** The design data in force at a moment, or null before the unit's first. */
-export function designInForceOrNone(unitId: number, at: Date, transaction?: Transaction) {
-  return UnitDesignVersion.findOne({ ...inForce(unitId, at), transaction });
+export async function designInForceOrNone(unitId: number, at: Date, transaction?: Transaction) {
+  return inForceAt(await designsOf(unitId, transaction), at);
 }
 
 export async function limitsInForce(unitId: number, at = new Date(), transaction?: Transaction): Promise<LimitSetVersion> {
-  const version = await LimitSetVersion.findOne({ ...inForce(unitId, at), transaction });
+  const version = inForceAt(await limitSetsOf(unitId, transaction), at);
   if (!version) throw new NotFound('A limit set in force for that unit and time');
   return version;
 }
 
 /** Every limit set that came into force up to `to`, oldest first (trends draw their bands from them). */
-export function limitVersionsUpTo(unitId: number, to: Date) {
-  return LimitSetVersion.findAll({ where: { unitId, effectiveFrom: { [Op.lte]: to } }, order: [['effectiveFrom', 'ASC'], ['id', 'ASC']] });
+export async function limitVersionsUpTo(unitId: number, to: Date) {
+  return (await limitSetsOf(unitId)).filter((v) => v.effectiveFrom.getTime() <= to.getTime());
 }
 
 export type PlausibleInForce = { versionId: number | null; ranges: PlausibleRanges };
@@ -47,7 +64,7 @@ export type PlausibleInForce = { versionId: number | null; ranges: PlausibleRang
  * its first) uses the starting ranges, so no reading goes unchecked.
  */
 export async function plausibleInForce(unitId: number, at = new Date(), transaction?: Transaction): Promise<PlausibleInForce> {
-  const version = await PlausibleRangeVersion.findOne({ ...inForce(unitId, at), transaction });
+  const version = inForceAt(await plausibleOf(unitId, transaction), at);
   return version ? { versionId: version.id, ranges: version.ranges } : { versionId: null, ranges: startingPlausibleRanges };
 }
 
@@ -55,11 +72,8 @@ export type VersionStarts = { design: Date | null; limits: Date | null };
 
 /** When a unit's first design data and first limit set came into force (null: none yet). */
 export async function versionStarts(unitId: number, transaction?: Transaction): Promise<VersionStarts> {
-  const [design, limits] = await Promise.all([
-    UnitDesignVersion.min<Date | null, UnitDesignVersion>('effectiveFrom', { where: { unitId }, transaction }),
-    LimitSetVersion.min<Date | null, LimitSetVersion>('effectiveFrom', { where: { unitId }, transaction }),
-  ]);
-  return { design: design ? new Date(design) : null, limits: limits ? new Date(limits) : null };
+  const [designs, limits] = await Promise.all([designsOf(unitId, transaction), limitSetsOf(unitId, transaction)]);
+  return { design: designs[0]?.effectiveFrom ?? null, limits: limits[0]?.effectiveFrom ?? null };
 }
 
 /**
@@ -77,7 +91,7 @@ export function unjudgedReason(at: Date, starts: VersionStarts, timeZone: string
 }
 
 export async function requireUnit(unitId: number): Promise<PlantUnit> {
-  const unit = await PlantUnit.findByPk(unitId);
+  const unit = await referenceRead(`unit:${unitId}`, () => PlantUnit.findByPk(unitId));
   if (!unit) throw new NotFound('That unit');
   return unit;
 }

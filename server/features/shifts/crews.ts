@@ -3,6 +3,7 @@
 import { Op, type Transaction } from 'sequelize';
 import { nextShiftStart, shiftStartFor } from '../../../shared/shift-time';
 import { stationShiftSetup } from '../stations/index';
+import { referenceRead } from '../../lib/reference-cache';
 import { CrewSwap } from './model';
 
 export type CrewRotation = { anchorShiftStart: string; crewIds: number[] };
@@ -15,8 +16,8 @@ export function shiftIndex(anchor: Date, shiftStart: Date, changesPerDay: number
 
 /** The crew of the shift starting at `shiftStart`, from a swap or the rotation (null without one). */
 export async function crewOnShift(stationId: number, shiftStart: Date, rotation: CrewRotation | null, changesPerDay: number): Promise<number | null> {
-  const swap = await CrewSwap.findOne({ where: { stationId, shiftStart } });
-  if (swap) return swap.crewId;
+  const swapped = await referenceRead(`swap:${stationId}:${shiftStart.getTime()}`, async () => (await CrewSwap.findOne({ where: { stationId, shiftStart } }))?.crewId ?? null);
+  if (swapped !== null) return swapped;
   return crewFromRotation(rotation, shiftStart, changesPerDay);
 }
 
@@ -47,7 +48,12 @@ export type ShiftAsked = { stationId: number; shiftStart: Date; rotation: CrewRo
 
 /** The crew of each shift asked for (swaps first, then the rotation), with one read of the swaps for all of them. */
 export async function crewsOnShifts(shifts: ShiftAsked[]): Promise<(number | null)[]> {
-  const swaps = shifts.length ? await CrewSwap.findAll({ where: { [Op.or]: shifts.map((s) => ({ stationId: s.stationId, shiftStart: s.shiftStart })) } }) : [];
+  const key = `swaps:${shifts.map((s) => `${s.stationId}@${s.shiftStart.getTime()}`).join(',')}`;
+  const swaps = shifts.length
+    ? await referenceRead(key, async () =>
+        (await CrewSwap.findAll({ where: { [Op.or]: shifts.map((s) => ({ stationId: s.stationId, shiftStart: s.shiftStart })) } })).map((w) => ({ stationId: w.stationId, shiftStart: w.shiftStart, crewId: w.crewId })),
+      )
+    : [];
   return shifts.map(
     (s) => swaps.find((w) => w.stationId === s.stationId && w.shiftStart.getTime() === s.shiftStart.getTime())?.crewId ?? crewFromRotation(s.rotation, s.shiftStart, s.changesPerDay),
   );

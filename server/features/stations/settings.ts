@@ -2,6 +2,7 @@ import type { Transaction } from 'sequelize';
 import type { StationSettings } from '../../../shared/schemas/log';
 import { findUnit } from '../plant/index';
 import { NotFound, ValidationError } from '../../lib/errors';
+import { referenceRead } from '../../lib/reference-cache';
 import { StationSettingsRow } from './model';
 
 /** What a station without its own settings starts from. */
@@ -41,20 +42,27 @@ export async function settingsForStation(stationId: number, transaction?: Transa
 
 /** A station's settings and its crew rotation (null without one), from one read of its row. */
 export async function stationShiftSetup(stationId: number, transaction?: Transaction | null) {
-  const row = await StationSettingsRow.findByPk(stationId, { transaction: transaction ?? undefined });
-  return { settings: row ? settingsFromRow(row) : defaultStationSettings, rotation: row?.crewRotation ?? null };
+  return referenceRead(
+    `station-setup:${stationId}`,
+    async () => {
+      const row = await StationSettingsRow.findByPk(stationId, { transaction: transaction ?? undefined });
+      return { settings: row ? settingsFromRow(row) : defaultStationSettings, rotation: row?.crewRotation ?? null };
+    },
+    transaction,
+  );
 }
 
 /** Every station's settings and rotation, by station id (stations without a row are absent: they use the defaults). */
 export async function shiftSetupsByStation() {
-  const rows = await StationSettingsRow.findAll();
-  return new Map(rows.map((r) => [r.stationId, { settings: settingsFromRow(r), rotation: r.crewRotation ?? null }]));
+  return referenceRead('station-setups', async () => {
+    const rows = await StationSettingsRow.findAll();
+    return new Map(rows.map((r) => [r.stationId, { settings: settingsFromRow(r), rotation: r.crewRotation ?? null }]));
+  });
 }
 
 /** Every station's time zone, by station id (stations without settings are absent: they use the default zone). */
 export async function timeZonesByStation() {
-  const rows = await StationSettingsRow.findAll({ attributes: ['stationId', 'timeZone'] });
-  return new Map(rows.map((r) => [r.stationId, r.timeZone]));
+  return new Map([...(await shiftSetupsByStation())].map(([stationId, setup]) => [stationId, setup.settings.timeZone]));
 }
 
 /** Sets a station's crew rotation in the caller's unit of work (a station without settings gets the defaults with it). */
