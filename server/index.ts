@@ -56,6 +56,11 @@ if (config.redisUrl) {
 
 const built = createApp(sequelize, config, { logger, redis: redis?.client });
 const server = http.createServer(built.app);
+// Node closes a kept-alive connection after 5 s idle; a client (a browser, the balancer, the load
+// benchmark's 200 people) that reuses it at that instant gets a reset instead of an answer. Idle
+// connections are kept longer than the usual 60 s of balancers and proxies, as is common practice.
+server.keepAliveTimeout = 65_000;
+server.headersTimeout = 66_000;
 const io = built.realtime.attach(server, built.sessionMiddleware, { adapter: redis?.adapter });
 server.on('error', (error) => {
   logger.fatal({ err: error, port: config.port, host: config.host }, 'cannot listen (PORT, HOST)');

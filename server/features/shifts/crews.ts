@@ -41,7 +41,7 @@ export async function shiftChangeAt(stationId: number, at = new Date()) {
 
 /** Every one-off swap at a station (rebuilding the search index puts each shift on its crew). */
 export function swapsOfStation(stationId: number, transaction?: Transaction) {
-  return CrewSwap.findAll({ where: { stationId }, transaction });
+  return referenceRead(`swaps-of-station:${stationId}`, () => CrewSwap.findAll({ where: { stationId }, transaction }), transaction);
 }
 
 export type ShiftAsked = { stationId: number; shiftStart: Date; rotation: CrewRotation | null; changesPerDay: number };
