@@ -16,7 +16,7 @@ import people from '../server/db/seed/demo-people.json';
 import { startPrivateMariaDb } from './lib/private-mariadb.mjs';
 import { httpCall, type Session } from './lib/http-call';
 
-const db = await startPrivateMariaDb({ dataDir: '.data/probe', port: 3421, databases: ['hotwell_probe'], fresh: true, label: 'probe' });
+const db = await startPrivateMariaDb({ dataDir: '.data/probe', port: Number(process.env.HOTWELL_BENCH_DB_PORT ?? 3422), databases: ['hotwell_probe'], fresh: true, label: 'probe' });
 try {
   const url = db.urlFor('hotwell_probe');
   const sequelize = createSequelize(url);
