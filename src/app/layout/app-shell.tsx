@@ -43,14 +43,15 @@ export function AppShell() {
   return (
     <div className="min-h-screen">
       <header className="relative border-b border-line bg-panel print:hidden">
-        <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-4 gap-y-2 px-4 py-2 lg:py-3">
+        <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-3 gap-y-1 px-4 py-2 xl:max-w-7xl xl:gap-y-2 xl:py-3">
           <span className="text-xl font-bold tracking-wide">Hotwell</span>
           <MainNav groups={navigationGroupsFor(me.role)} linkTo={withUnit} />
-          <div className="ml-auto flex flex-wrap items-center justify-end gap-x-3 gap-y-1 text-sm">
-            <span data-testid="signed-in-as" className="max-sm:order-last max-sm:w-full max-sm:text-right max-sm:text-xs">
-              {me.name} · {roleLabels[me.role]}
-              {me.crewName ? ` · Crew ${me.crewName}` : ''}
-            </span>
+          {/* On a phone the name goes to a line of its own under the buttons, so the first line keeps Menu, name of the app and both buttons. */}
+          <span data-testid="signed-in-as" className="order-last w-full text-right text-xs sm:order-none sm:ml-auto sm:w-auto sm:text-sm">
+            {me.name} · {roleLabels[me.role]}
+            {me.crewName ? ` · Crew ${me.crewName}` : ''}
+          </span>
+          <div className="ml-auto flex items-center gap-2 text-sm sm:ml-0">
             <Button tone="toggle" onClick={toggleTheme}>
               {theme === 'dark' ? '☀ Light' : '☾ Dark'}
             </Button>
