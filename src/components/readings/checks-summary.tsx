@@ -60,11 +60,11 @@ export function ChecksSummary({ evaluation, prefs, panelId }: Props) {
       {summary ? (
         <>
           {summary.raised.length ? (
-            <ul className="flex flex-col gap-1">
+            <ul className="flex flex-col gap-0.5">
               {summary.raised.map((check) => {
                 const shown = check.value === null ? null : displayQuantity(check.value, check.quantity, prefs);
                 return (
-                  <li key={check.key} className="flex flex-wrap items-center gap-x-2 text-sm" data-testid={`summary-${check.key}`}>
+                  <li key={check.key} className="flex flex-wrap items-center gap-x-2 text-xs leading-tight sm:text-sm" data-testid={`summary-${check.key}`}>
                     <StatusBadge status={check.status} />
                     <span className="font-bold">{check.label}</span>
                     <span className="reading">{shown ? `${shown.text} ${shown.unit}` : '—'}</span>
