@@ -46,7 +46,8 @@ async function controlsUnder44px(page: Page) {
       const rect = box.getBoundingClientRect();
       const style = getComputedStyle(el);
       if (rect.width === 0 || rect.height === 0 || style.visibility === 'hidden') continue;
-      if (rect.height < 44) small.push(`${el.tagName.toLowerCase()} "${(el.getAttribute('aria-label') ?? el.textContent ?? (el as HTMLInputElement).name ?? '').trim().slice(0, 40)}" ${rect.height.toFixed(1)} px`);
+      const label = (el as HTMLInputElement).labels?.[0]?.textContent ?? el.getAttribute('aria-label') ?? el.textContent ?? '';
+      if (rect.height < 44) small.push(`${el.tagName.toLowerCase()} "${label.trim().slice(0, 40)}" ${rect.height.toFixed(1)} px`);
     }
     return small;
   });
