@@ -1,11 +1,12 @@
-import { NavLink, Navigate, Outlet, useLocation, useNavigate, useSearchParams } from 'react-router';
+import { Navigate, Outlet, useLocation, useNavigate, useSearchParams } from 'react-router';
 import { rememberedUnitId } from '../../components/readings/unit-picker';
 import { useState } from 'react';
 import { roleLabels } from '../../../shared/roles';
 import { useMe, useSignOut } from '../../features/session';
 import { Notice } from '../../components/ui/notice';
 import { applyTheme, initialTheme, type Theme } from '../../lib/theme';
-import { navigationFor } from '../navigation';
+import { navigationGroupsFor } from '../navigation';
+import { MainNav } from './main-nav';
 import { useConnected, useLiveUpdates } from '../use-live-updates';
 import { PendingOrdersPrompt } from '../../features/orders';
 import { Button } from '../../components/ui/button';
@@ -41,28 +42,16 @@ export function AppShell() {
 
   return (
     <div className="min-h-screen">
-      <header className="border-b border-line bg-panel print:hidden">
-        <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-4 px-4 py-3">
+      <header className="relative border-b border-line bg-panel print:hidden">
+        <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-3 gap-y-1 px-4 py-2 xl:max-w-7xl xl:gap-y-2 xl:py-3">
           <span className="text-xl font-bold tracking-wide">Hotwell</span>
-          <nav aria-label="Main" className="flex flex-wrap gap-1">
-            {navigationFor(me.role).map((item) => (
-              <NavLink
-                key={item.to}
-                to={withUnit(item.to)}
-                end={item.to === '/'}
-                className={({ isActive }) =>
-                  `rounded-md px-3 py-1.5 font-bold ${isActive ? 'bg-accent text-on-accent' : 'hover:bg-field'}`
-                }
-              >
-                {item.label}
-              </NavLink>
-            ))}
-          </nav>
-          <div className="ml-auto flex items-center gap-3 text-sm">
-            <span data-testid="signed-in-as">
-              {me.name} · {roleLabels[me.role]}
-              {me.crewName ? ` · Crew ${me.crewName}` : ''}
-            </span>
+          <MainNav groups={navigationGroupsFor(me.role)} linkTo={withUnit} />
+          {/* On a phone the name goes to a line of its own under the buttons, so the first line keeps Menu, name of the app and both buttons. */}
+          <span data-testid="signed-in-as" className="order-last w-full text-right text-xs sm:order-none sm:ml-auto sm:w-auto sm:text-sm">
+            {me.name} · {roleLabels[me.role]}
+            {me.crewName ? ` · Crew ${me.crewName}` : ''}
+          </span>
+          <div className="ml-auto flex items-center gap-2 text-sm sm:ml-0">
             <Button tone="toggle" onClick={toggleTheme}>
               {theme === 'dark' ? '☀ Light' : '☾ Dark'}
             </Button>

@@ -12,9 +12,9 @@ export function UserRow({ user, crews, isSelf, onError }: Props) {
   const label = `${user.name}`;
   return (
     <tr className="border-t border-line" data-testid={`user-row-${user.email}`}>
-      <td className="py-2 pr-3 font-bold">{user.name}</td>
-      <td className="py-2 pr-3">{user.email}</td>
-      <td className="py-2 pr-3">
+      <td data-label="Name" className="py-2 pr-3 font-bold">{user.name}</td>
+      <td data-label="E-mail" className="py-2 pr-3">{user.email}</td>
+      <td data-label="Role" className="py-2 pr-3">
         <select
           aria-label={`Role of ${label}`}
           className="rounded-md border border-line bg-field px-2 py-1"
@@ -31,7 +31,7 @@ export function UserRow({ user, crews, isSelf, onError }: Props) {
           ))}
         </select>
       </td>
-      <td className="py-2 pr-3">
+      <td data-label="Crew" className="py-2 pr-3">
         <select
           aria-label={`Crew of ${label}`}
           className="rounded-md border border-line bg-field px-2 py-1"
@@ -52,11 +52,11 @@ export function UserRow({ user, crews, isSelf, onError }: Props) {
           ))}
         </select>
       </td>
-      <td className="py-2 pr-3">
+      <td data-label="Status" className="py-2 pr-3">
         {user.active ? '● Active' : '○ Deactivated'}
         {user.mustChangePassword ? <span className="block text-xs text-muted">temporary password</span> : null}
       </td>
-      <td className="py-2">
+      <td data-label="Access" className="py-2">
         {isSelf ? (
           <span className="text-sm text-muted">you</span>
         ) : (

@@ -19,7 +19,7 @@ export function UsersPage() {
       {rowError ? <Notice kind="error">{rowError}</Notice> : null}
       {users.error ? <Notice kind="error">{users.error.message}</Notice> : null}
       <div className="overflow-x-auto rounded-lg border border-line bg-panel p-4">
-        <table className="w-full text-left">
+        <table className="stack-table w-full text-left">
           <thead>
             <tr className="text-sm text-muted">
               <th className="pb-2">Name</th>

@@ -20,7 +20,7 @@ export function AuditPage() {
       <ZoneNote zone={zone} basis={zone?.basis} />
       {events.error ? <Notice kind="error">{events.error.message}</Notice> : null}
       <div className="overflow-x-auto rounded-lg border border-line bg-panel p-4">
-        <table className="w-full text-left text-sm">
+        <table className="stack-table w-full text-left text-sm">
           <thead>
             <tr className="text-muted">
               <th className="pb-2">When (station time)</th>
@@ -34,14 +34,14 @@ export function AuditPage() {
           <tbody>
             {rows.map((e) => (
               <tr key={e.id} className="border-t border-line align-top">
-                <td className="py-1 pr-3 reading whitespace-nowrap">{zone ? formatStationTime(e.at, zone.timeZone, 'datetime-seconds') : '…'}</td>
-                <td className="py-1 pr-3">{e.actor}</td>
-                <td className="py-1 pr-3 font-bold">{e.action}</td>
-                <td className="py-1 pr-3">
+                <td data-label="When" className="py-1 pr-3 reading whitespace-nowrap">{zone ? formatStationTime(e.at, zone.timeZone, 'datetime-seconds') : '…'}</td>
+                <td data-label="Who" className="py-1 pr-3">{e.actor}</td>
+                <td data-label="What" className="py-1 pr-3 font-bold">{e.action}</td>
+                <td data-label="Record" className="py-1 pr-3">
                   {e.entity} #{e.entityId}
                 </td>
-                <td className="py-1 pr-3 break-all">{show(e.before)}</td>
-                <td className="py-1 break-all">{show(e.after)}</td>
+                <td data-label="Before" className="py-1 pr-3 break-all">{show(e.before)}</td>
+                <td data-label="After" className="py-1 break-all">{show(e.after)}</td>
               </tr>
             ))}
           </tbody>

@@ -46,12 +46,12 @@ export function EntryBar({ unitId, settings, position }: { unitId: number; setti
           aria-label="Entry text"
           aria-invalid={Boolean(textError)}
           aria-describedby={textError ? 'entry-text-error' : undefined}
-          className={`${field} min-w-0 flex-1 text-lg aria-[invalid=true]:border-alarm`}
+          className={`${field} min-w-0 flex-1 basis-full text-lg sm:basis-0 aria-[invalid=true]:border-alarm`}
           placeholder="What happened? Enter saves."
           maxLength={4000}
           {...form.register('text')}
         />
-        <Button type="submit" size="sm" disabled={add.isPending}>
+        <Button type="submit" size="sm" className="max-sm:flex-1" disabled={add.isPending}>
           Log it
         </Button>
       </div>

@@ -46,11 +46,11 @@ export function LogPage() {
         own means first.
       </aside>
       {settings && unitId ? (
-        <div className="grid gap-4 lg:grid-cols-3">
-          <div className="flex flex-col gap-4 lg:col-span-2">
+        <div className="grid grid-cols-1 gap-4 lg:grid-cols-3">
+          <div className="flex min-w-0 flex-col gap-4 lg:col-span-2">
             {mayWrite ? (
               <>
-                <label className="flex items-center gap-2 text-sm font-bold">
+                <label className="flex flex-wrap items-center gap-2 text-sm font-bold">
                   Writing as
                   <select className={field} value={activePosition} onChange={(e) => setPosition(e.target.value)}>
                     {settings.positions.map((p) => (

@@ -165,19 +165,19 @@ export function PastShiftPage() {
               {r.current.amended ? ' · amended' : ''}
               {r.limitSet ? <span className="text-muted">· limit set of {stamp(r.limitSet.effectiveFrom)}</span> : null}
             </p>
-            <table className="mt-1 w-full text-left text-sm">
+            <table className="stack-table mt-1 w-full text-left text-sm">
               <tbody>
                 {roundColumns.map((key) => {
                   const check = r.current.results.checks[key];
                   const shown = check.value === null ? null : displayQuantity(check.value, check.quantity, defaultDisplayPreferences);
                   return (
                     <tr key={key} className="border-t border-line">
-                      <td className="py-1 pr-2">{check.label}</td>
-                      <td className="reading py-1 pr-2 text-right whitespace-nowrap">{shown ? `${shown.text} ${shown.unit}` : '—'}</td>
-                      <td className="py-1 pr-2">
+                      <td className="py-1 pr-2 max-sm:font-bold">{check.label}</td>
+                      <td data-label="Value" className="reading py-1 pr-2 text-right whitespace-nowrap">{shown ? `${shown.text} ${shown.unit}` : '—'}</td>
+                      <td data-label="Status" className="py-1 pr-2">
                         <StatusBadge status={check.status} />
                       </td>
-                      <td className="py-1 text-xs text-muted">{limitText(r.limitSet?.limits[key], key, r.current.results) ?? 'no limit set'}</td>
+                      <td data-label="Limit" className="py-1 text-xs text-muted">{limitText(r.limitSet?.limits[key], key, r.current.results) ?? 'no limit set'}</td>
                     </tr>
                   );
                 })}

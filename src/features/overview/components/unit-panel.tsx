@@ -44,7 +44,7 @@ export function UnitPanel({ data, sinceFetchMs }: { data: OverviewUnit; sinceFet
         <span className="text-sm text-muted">{unit.station}</span>
         <nav aria-label={`${unit.name} pages`} className="flex w-full flex-wrap gap-2 text-sm">
           {links.map(([label, path]) => (
-            <Link key={path} to={`${path}?unit=${unit.id}`} className="rounded-md border border-line px-2 py-1 font-bold hover:bg-field">
+            <Link key={path} to={`${path}?unit=${unit.id}`} className="touch-target inline-flex items-center rounded-md border border-line px-2 py-1 font-bold hover:bg-field">
               {label}
             </Link>
           ))}

@@ -16,8 +16,9 @@ export function RecentReadings({ readings, timeZone }: { readings: ReadingSummar
   return (
     <div className="overflow-x-auto rounded-lg border border-line bg-panel p-3">
       <h2 className="mb-2 font-bold">Recent rounds</h2>
+      <p className="text-sm text-muted sm:hidden">Times in station time ({timeZone}).</p>
       {countersign.error ? <Notice kind="error">{countersign.error.message}</Notice> : null}
-      <table className="w-full text-left text-sm">
+      <table className="stack-table w-full text-left text-sm">
         <thead>
           <tr className="text-muted">
             <th className="pb-1">Taken (station time, {timeZone})</th>
@@ -30,20 +31,20 @@ export function RecentReadings({ readings, timeZone }: { readings: ReadingSummar
         <tbody>
           {readings.map((r) => (
             <tr key={r.id} className="border-t border-line" data-testid={`reading-${r.id}`}>
-              <td className="reading py-1 pr-2">
+              <td data-label="Taken" className="reading py-1 pr-2 whitespace-nowrap">
                 <Link to={`/rounds/${r.id}`} className="text-accent underline">
                   {formatStationTime(r.takenAt, timeZone)}
                 </Link>
               </td>
-              <td className="reading py-1 pr-2">
+              <td data-label="Pressure" className="reading py-1 pr-2 whitespace-nowrap">
                 {r.raw.pressure.value} {pressureUnitLabels[r.raw.pressure.unit as PressureUnit]}
               </td>
-              <td className="py-1 pr-2">
+              <td data-label="By" className="py-1 pr-2">
                 {r.recordedBy}
                 {r.source === 'import' ? ' (import)' : ''}
                 {r.recordedAsTrainee ? ' · trainee' : ''}
               </td>
-              <td className="py-1 pr-2">
+              <td data-label="Status" className="py-1 pr-2">
                 <StatusBadge status={r.worstStatus} />
                 {r.amendments ? <span className="ml-1 text-xs text-muted">amended ×{r.amendments}</span> : null}
                 {r.outsidePlausible.length ? (
@@ -52,7 +53,7 @@ export function RecentReadings({ readings, timeZone }: { readings: ReadingSummar
                   </span>
                 ) : null}
               </td>
-              <td className="py-1 text-right">
+              <td className="py-1 text-right max-sm:text-left">
                 {r.needsCountersign ? (
                   me && mayCountersignRound(me, r) ? (
                     <Button tone="plain" size="xs" onClick={() => countersign.mutate(r.id)}>

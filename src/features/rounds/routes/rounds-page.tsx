@@ -1,4 +1,4 @@
-import { useMemo, useState } from 'react';
+import { useId, useMemo, useState } from 'react';
 import { can } from '../../../../shared/policies/permissions';
 import { roundWaitsForCountersign } from '../../../../shared/policies/readings';
 import { useWatch } from 'react-hook-form';
@@ -6,6 +6,7 @@ import { Link } from 'react-router';
 import { CautionNote, Notice } from '../../../components/ui/notice';
 import { Button } from '../../../components/ui/button';
 import { CheckResults, EnterReadingsNotice } from '../../../components/readings/check-results';
+import { ChecksSummary } from '../../../components/readings/checks-summary';
 import { ReadingFormFields } from '../../../components/readings/reading-form-fields';
 import { ConfirmOutsidePlausible, useOutsidePlausibleQuestion } from '../../../components/readings/plausibility';
 import { useCondenserDesign } from '../../../components/readings/get-condenser-design';
@@ -67,6 +68,7 @@ export function RoundsPage() {
   const live = useLiveEvaluation(unitId, values, design.data);
   const takenAt = useStationTimeFormField(form, 'takenAt');
   const [refusal, setRefusal] = useState<string | null>(null);
+  const checksPanelId = useId();
   const question = useOutsidePlausibleQuestion(live.notices);
   const mayRecord = me && can(me.role, 'reading.record');
   const boxErrors = Object.fromEntries(Object.keys(values).map((box) => [box, form.error(box)]).filter(([, message]) => message)) as FormErrors;
@@ -128,12 +130,13 @@ export function RoundsPage() {
         <form
           aria-label="Record a round"
           noValidate
-          className="flex flex-col gap-4 rounded-lg border border-line bg-panel p-4"
+          className="with-checks-summary flex flex-col gap-4 rounded-lg border border-line bg-panel p-4"
           onSubmit={(e) => {
             e.preventDefault();
             void save();
           }}
         >
+          <ChecksSummary evaluation={live.evaluation} prefs={live.prefs} panelId={checksPanelId} />
           {unit ? <StationTimeInput className="text-sm font-bold" label="Taken at (leave empty for now)" field={takenAt} timeZone={unit.timeZone} error={form.error('takenAt')} /> : null}
           <ReadingFormFields form={form} errors={{ ...live.shownErrors, ...boxErrors }} values={values} warnings={live.warnings} />
           {mayRecord && question.asking ? (
@@ -147,7 +150,7 @@ export function RoundsPage() {
             <Notice kind="info">Your role reviews rounds; it does not record them.</Notice>
           )}
         </form>
-        <div className="flex flex-col gap-4" aria-live="polite">
+        <div id={checksPanelId} tabIndex={-1} role="region" aria-label="All checks" className="flex scroll-mt-2 flex-col gap-4 rounded-lg focus:outline-none focus-visible:ring-2 focus-visible:ring-focus" aria-live="polite">
           {live.evaluation ? <CheckResults evaluation={live.evaluation} prefs={live.prefs} /> : <EnterReadingsNotice />}
         </div>
       </div>

@@ -15,7 +15,7 @@ export function ReviewQueue() {
       <ul className="flex flex-wrap gap-2">
         {q.trainees.map((t) => (
           <li key={t.id}>
-            <Link className="block rounded-md border border-line bg-panel px-3 py-2 underline" to={`/training/trainees/${t.id}`}>
+            <Link className="touch-target flex items-center rounded-md border border-line bg-panel px-3 py-2 underline" to={`/training/trainees/${t.id}`}>
               {t.name} — {t.signedOff} signed off, {t.left} left
             </Link>
           </li>
