@@ -64,7 +64,8 @@ test('the sign-in page has no serious or critical accessibility violation', asyn
 
 for (const { role, email } of people) {
   test(`every page a ${role} reaches has no serious or critical accessibility violation, light and dark`, async ({ page }) => {
-    test.setTimeout(300_000);
+    // About 10 s a page on a shared 2-core machine (two axe runs each); up to 17 pages for an admin.
+    test.setTimeout(600_000);
     await signIn(page, email);
     await expect(page.getByTestId('signed-in-as')).toBeVisible();
     const findings: Finding[] = [];
