@@ -146,7 +146,8 @@ async function throttledReport(entryFile: string) {
     await sequelize.close();
     const server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
       env: { ...process.env, DATABASE_URL: url, PORT: String(PORT), SESSION_SECRET: 'bench-bundle-session-secret-0123456789abcdef', NODE_ENV: 'production', SIGN_IN_RATE_LIMIT: '1000000', PUBLIC_URL: base, SMTP_URL: 'smtp://127.0.0.1:9', LOG_LEVEL: 'warn' },
-      stdio: ['ignore', 'ignore', 'inherit'],
+      // Its warnings and errors go to stdout as log lines: shown with BENCH_SERVER_LOG=1.
+      stdio: ['ignore', process.env.BENCH_SERVER_LOG ? 'inherit' : 'ignore', 'inherit'],
     });
     try {
       await waitForServer(server);
