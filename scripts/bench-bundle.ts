@@ -136,6 +136,8 @@ async function throttledVisit(page: Page, url: string, ready: (page: Page) => Pr
 }
 
 async function throttledReport(entryFile: string) {
+  // Another server on the port would answer the health check and be measured instead of ours.
+  if (await fetch(`${base}/api/health`).then(() => true, () => false)) throw new Error(`port ${PORT} is taken: set BENCH_BUNDLE_PORT`);
   const db = await startPrivateMariaDb({ dataDir: '.data/bench-bundle', port: DB_PORT, databases: ['hotwell_bench'], fresh: true, label: 'benchmark' });
   try {
     const url = db.urlFor('hotwell_bench') as string;
