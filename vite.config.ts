@@ -7,7 +7,7 @@ const apiPort = process.env.API_PORT ?? '5181';
 
 export default defineConfig({
   plugins: [react(), tailwindcss()],
-  build: { outDir: 'dist', emptyOutDir: true, sourcemap: true },
+  build: { outDir: 'dist', emptyOutDir: true, sourcemap: true, manifest: true },
   server: {
     host: '127.0.0.1',
     port: 5173,

@@ -83,6 +83,12 @@ test('switching units on the handover keeps each unit’s notes apart, and a rel
   await signInReadingOrders(page, `operator.${change.outgoing}@fernhollow.example`);
   await nav(page, 'Handover');
   const editor = page.getByRole('textbox', { name: 'Handover notes' });
+  // The notes show as stored until a click on them loads the editor, which takes the caret at the end.
+  const write = async () => {
+    await editor.click();
+    await expect(editor).toHaveAttribute('contenteditable', 'true');
+    await expect(editor).toBeFocused();
+  };
   const startIfNeeded = async (unitName: string) => {
     await startDraftUnlessStarted(page, baseURL!, unitName);
     await expect(editor).toBeVisible();
@@ -90,7 +96,7 @@ test('switching units on the handover keeps each unit’s notes apart, and a rel
 
   await chooseUnit(page, 'Unit 2 ·');
   await startIfNeeded('Unit 2');
-  await editor.click();
+  await write();
   await page.keyboard.press('ControlOrMeta+A');
   await page.keyboard.type('Unit 2: 2-CWP-A strainer dP rising.');
   await expect(page.getByTestId('notes-status')).toContainText('Draft saved');
@@ -98,7 +104,7 @@ test('switching units on the handover keeps each unit’s notes apart, and a rel
   await chooseUnit(page, 'Unit 1 ·');
   await startIfNeeded('Unit 1');
   await expect(editor).not.toContainText('Unit 2');
-  await editor.click();
+  await write();
   await page.keyboard.press('ControlOrMeta+A');
   await page.keyboard.type('Unit 1: hotwell level steady.');
   await expect(page.getByTestId('notes-status')).toContainText('Draft saved');
@@ -115,7 +121,7 @@ test('switching units on the handover keeps each unit’s notes apart, and a rel
   await expect(editor).toContainText('Unit 2: 2-CWP-A strainer dP rising.');
 
   // Typed, then reloaded at once — well before the autosave would run.
-  await editor.click();
+  await write();
   await page.keyboard.press('End');
   await page.keyboard.type(' Typed just before a reload.');
   page.once('dialog', (dialog) => void dialog.accept());

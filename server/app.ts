@@ -59,6 +59,7 @@ import { stationRoutes } from './features/stations/routes';
 import { makeStationService } from './features/stations/service';
 import { overviewRoutes } from './features/overview/routes';
 import { makeOverviewService } from './features/overview/service';
+import { builtAssets } from './lib/built-assets';
 
 
 export type BuiltApp = {
@@ -190,6 +191,7 @@ export function createApp(
 
   const root = process.cwd();
   app.use('/fonts', express.static(path.join(root, 'fonts'), { maxAge: '30d', immutable: true }));
+  app.use('/assets', ...builtAssets(path.join(root, 'dist', 'assets')));
   app.use(express.static(path.join(root, 'dist'), { index: false }));
   // Client-side routes all load the single page.
   app.get(/^\/(?!api\/).*/, (_req, res, next) => {

@@ -4,7 +4,7 @@
 import type { QueryClient, QueryKey } from '@tanstack/react-query';
 import type { LiveEntity, LiveEvent } from '../../shared/live-events';
 import { crewKeys } from '../components/plant/crews';
-import { peopleKeys } from '../components/people/person-select';
+import { peopleKeys } from '../components/people/people-keys';
 import { calcKeys } from '../components/readings/get-condenser-design';
 import { unitKeys } from '../components/readings/unit-picker';
 import { userKeys } from '../features/admin-users';

@@ -3,6 +3,7 @@ import { RouterProvider } from 'react-router';
 import { useState } from 'react';
 import { ApiError } from '../lib/api-client';
 import { createAppRouter } from './router';
+import { LiveAnnouncer } from './live-announcer';
 
 function makeQueryClient() {
   return new QueryClient({
@@ -22,6 +23,7 @@ export function AppProviders() {
   return (
     <QueryClientProvider client={queryClient}>
       <RouterProvider router={router} />
+      <LiveAnnouncer />
     </QueryClientProvider>
   );
 }

@@ -4,7 +4,7 @@ import { setSignedOutHandler } from '../lib/api-client';
 import { AppShell } from './layout/app-shell';
 import { RequireRole } from './layout/require-role';
 import { NotFoundPage } from './layout/not-found-page';
-import { SignInPage, loadChangePasswordPage, sessionKeys } from '../features/session';
+import { loadSignInPage, loadChangePasswordPage, sessionKeys } from '../features/session';
 import { loadHandoverPage, loadHandoverPrintPage } from '../features/handover';
 import { loadLogPage } from '../features/log';
 import { loadOrdersPage } from '../features/orders';
@@ -19,18 +19,18 @@ import { loadCondenserCheckPage } from '../features/condenser-check';
 import { loadUsersPage } from '../features/admin-users';
 import { loadShiftsPage } from '../features/shifts';
 import { loadAuditPage } from '../features/audit';
-import { OverviewPage } from '../features/overview';
+import { loadOverviewPage } from '../features/overview';
 
 export function createAppRouter(queryClient: QueryClient) {
   // Any 401 from the API means the session ended (expiry, deactivation, restart of the store).
   setSignedOutHandler(() => queryClient.setQueryData(sessionKeys.me(), null));
   return createBrowserRouter([
-    { path: '/sign-in', element: <SignInPage /> },
+    { path: '/sign-in', lazy: async () => ({ Component: await loadSignInPage() }) },
     {
       path: '/',
       element: <AppShell />,
       children: [
-        { index: true, element: <OverviewPage /> },
+        { index: true, lazy: async () => ({ Component: await loadOverviewPage() }) },
         {
           path: 'account/password',
           lazy: async () => ({ Component: await loadChangePasswordPage() }),

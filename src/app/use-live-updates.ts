@@ -3,6 +3,7 @@ import { useQueryClient } from '@tanstack/react-query';
 import type { BoardPresence, LiveEvent } from '../../shared/live-events';
 import { closeSocket, getSocket } from '../lib/socket';
 import { invalidateEverything, invalidateForChange } from './live-keys';
+import { announceChange } from './live-announcer';
 
 /** Sockets notify, queries fetch: invalidate on each event, and everything after a reconnect. */
 export function useLiveUpdates(signedIn: boolean) {
@@ -10,7 +11,10 @@ export function useLiveUpdates(signedIn: boolean) {
   useEffect(() => {
     if (!signedIn) return;
     const socket = getSocket();
-    const onChanged = (event: LiveEvent) => invalidateForChange(queryClient, event);
+    const onChanged = (event: LiveEvent) => {
+      invalidateForChange(queryClient, event);
+      announceChange(event);
+    };
     let connectedBefore = false;
     const onConnect = () => {
       // Rooms are per connection: join again what this tab watches, then catch up on what was missed.

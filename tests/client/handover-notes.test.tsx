@@ -57,14 +57,25 @@ function renderNotes(initial: Board, client = new QueryClient()) {
   return { unmount: view.unmount, boardFromServer: (b: Board) => act(() => setBoard(b)) };
 }
 
-// The editor's code is loaded lazily; a cold load under happy-dom can take a few seconds.
-const editor = () => screen.findByRole('textbox', { name: 'Handover notes' }, { timeout: 5000 });
+// The editor's code is loaded when writing starts (a click on the stored notes); a cold load under
+// happy-dom can take a few seconds.
+const editor = () =>
+  waitFor(
+    () => {
+      const box = screen.getByRole('textbox', { name: 'Handover notes' });
+      expect(box.getAttribute('contenteditable')).toBe('true');
+      return box;
+    },
+    { timeout: 5000 },
+  );
 
 /**
  * Types at the end of the notes. ProseMirror takes the caret from the DOM selection, which it reads
  * after focus settles: keys pressed before that would be lost, so wait for its focused mark first.
  */
 async function typeInNotes(user: ReturnType<typeof userEvent.setup>, text: string) {
+  const shown = await screen.findByRole('textbox', { name: 'Handover notes' });
+  if (shown.getAttribute('contenteditable') !== 'true') await user.click(shown);
   const box = await editor();
   await user.click(box);
   await waitFor(() => expect(box.classList.contains('ProseMirror-focused')).toBe(true));

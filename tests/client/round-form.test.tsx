@@ -24,7 +24,7 @@ async function check(label: RegExp) {
 
 async function openRoundForm() {
   renderAppAt('/rounds?unit=1');
-  const form = await screen.findByRole('form', { name: 'Record a round' });
+  const form = await screen.findByRole('form', { name: 'Record a round' }, { timeout: 5000 });
   return within(form);
 }
 

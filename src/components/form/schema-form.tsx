@@ -1,6 +1,6 @@
 // The one way a form is built: react-hook-form checked by a shared zod contract (zodResolver), the
 // server's field messages put back beside the same inputs, and the rest listed by their labels.
-import { useState, type BaseSyntheticEvent } from 'react';
+import { useId, useState, type BaseSyntheticEvent } from 'react';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm, type FieldErrors, type FieldValues, type UseFormProps, type UseFormReturn } from 'react-hook-form';
 import { z } from 'zod';
@@ -52,6 +52,10 @@ export type SchemaForm<TIn extends FieldValues, TOut> = UseFormReturn<TIn, unkno
   submit: (send: (values: TOut) => Promise<unknown> | unknown, refused?: (errors: FieldErrors<TIn>) => void) => (event?: BaseSyntheticEvent) => Promise<void>;
   /** The message to show beside a field, if any. */
   error: (field: string) => string | undefined;
+  /** What a field's input carries so a screen reader hears its message: `aria-invalid`, and `aria-describedby` naming the message. */
+  describe: (field: string) => { 'aria-invalid': boolean; 'aria-describedby': string | undefined };
+  /** A field's message with the id its input points at (`<FieldMessage {...form.messageFor('text')} />`). */
+  messageFor: (field: string) => { message: string | undefined; id: string };
 };
 
 /** react-hook-form with the shared contract as its resolver; see `throughContract` for forms whose values differ from the wire. */
@@ -62,6 +66,8 @@ export function useSchemaForm<TSchema extends z.ZodType<unknown, FieldValues>>(
   type TIn = z.input<TSchema>;
   type TOut = z.output<TSchema>;
   const form = useForm<TIn, unknown, TOut>({ ...options, resolver: zodResolver(schema as never) as never });
+  const formId = useId();
+  const messageId = (field: string) => `${formId}-${field.replace(/[^\w-]/g, '-')}-message`;
   const [failure, setFailure] = useState<unknown>(null);
   const placement: FieldPlacement = { placed: placed ?? Object.keys(options.defaultValues ?? {}), fieldFor };
   const fail = (error: unknown) => {
@@ -89,6 +95,11 @@ export function useSchemaForm<TSchema extends z.ZodType<unknown, FieldValues>>(
         },
       ),
     error: (field) => messageAt(form.formState.errors, field),
+    describe: (field) => {
+      const message = messageAt(form.formState.errors, field);
+      return { 'aria-invalid': Boolean(message), 'aria-describedby': message ? messageId(field) : undefined };
+    },
+    messageFor: (field) => ({ message: messageAt(form.formState.errors, field), id: messageId(field) }),
   };
 }
 
@@ -124,6 +135,20 @@ function unplacedMessages(errors: FieldErrors, placed: readonly string[], prefix
   return lines;
 }
 
+/** Every client-side message on a field this form shows an input for. */
+function placedMessages(errors: FieldErrors, placed: readonly string[], prefix = ''): string[] {
+  const lines: string[] = [];
+  for (const [key, node] of Object.entries(errors)) {
+    if (key === 'root' || key === 'ref' || !node || typeof node !== 'object') continue;
+    const path = prefix ? `${prefix}.${key}` : key;
+    const own = (node as { message?: unknown }).message;
+    if (typeof own === 'string' && own) {
+      if (isPlaced(path, placed)) lines.push(own);
+    } else lines.push(...placedMessages(node as FieldErrors, placed, path));
+  }
+  return lines;
+}
+
 const messageOf = (error: unknown) =>
   error && typeof error === 'object' && 'fields' in error && typeof (error as { fields: Record<string, string> }).fields._ === 'string'
     ? (error as { fields: Record<string, string> }).fields._!
@@ -135,15 +160,18 @@ const messageOf = (error: unknown) =>
  * The top of a form: the failed request's message, then one line for each field that has no input here
  * (the server's and the contract's alike); nothing when all is well.
  */
-export function FormFailure<TIn extends FieldValues, TOut>({ form, className }: { form: SchemaForm<TIn, TOut>; className?: string }) {
+export function FormFailure<TIn extends FieldValues, TOut>({ form, className, summary = true }: { form: SchemaForm<TIn, TOut>; className?: string; summary?: boolean }) {
   const others = [
     ...(form.failure ? otherFieldMessages(form.failure, form.placement.placed, form.placement.fieldFor) : []),
     ...unplacedMessages(form.formState.errors as FieldErrors, form.placement.placed),
   ].filter((line, i, all) => all.indexOf(line) === i);
-  if (!form.failure && !others.length) return null;
+  // A submit refused for fields shown beside their inputs: one alert says so, so a screen reader hears
+  // it at once (each message is linked to its input). Off where the page words its own (`summary={false}`).
+  const placedAfterSubmit = summary && form.formState.isSubmitted && !form.formState.isSubmitSuccessful && placedMessages(form.formState.errors as FieldErrors, form.placement.placed).length > 0;
+  if (!form.failure && !others.length && !placedAfterSubmit) return null;
   const notice = (
     <Notice kind="error">
-      {form.failure ? messageOf(form.failure) : 'Nothing was saved:'}
+      {form.failure ? messageOf(form.failure) : others.length ? 'Nothing was saved:' : 'Nothing was saved: check the fields marked ⚠.'}
       {others.length ? (
         <ul className="mt-1 list-inside list-disc">
           {others.map((line) => (
@@ -156,11 +184,14 @@ export function FormFailure<TIn extends FieldValues, TOut>({ form, className }: 
   return className ? <div className={className}>{notice}</div> : notice;
 }
 
-/** A field's message as the inline forms show it, beside the input. */
+/**
+ * A field's message as the inline forms show it, beside the input, which names it (`form.describe`):
+ * read with the field, not shouted on its own; the form's summary (FormFailure) is the alert.
+ */
 export function FieldMessage({ message, id, className = 'text-alarm' }: { message: string | undefined; id?: string; className?: string }) {
   if (!message) return null;
   return (
-    <span id={id} role="alert" className={className}>
+    <span id={id} className={className}>
       ⚠ {message}
     </span>
   );

@@ -1,7 +1,9 @@
 import { useQuery } from '@tanstack/react-query';
 import { api } from '../../lib/api-client';
 
-export const peopleKeys = { all: ['plant', 'people'] as const };
+import { peopleKeys } from './people-keys';
+
+export { peopleKeys };
 export const usePeople = () =>
   useQuery({
     queryKey: peopleKeys.all,

@@ -1,18 +1,25 @@
+import { useEffect } from 'react';
 import { EditorContent, useEditor } from '@tiptap/react';
 import StarterKit from '@tiptap/starter-kit';
 import { TaskItem, TaskList } from '@tiptap/extension-list';
 import { Button } from './button';
 
-type Props = { label: string; initialHtml?: string; onChange: (html: string) => void };
+type Props = { label: string; initialHtml?: string; onChange: (html: string) => void; /** Puts the caret at the end once loaded (the person clicked to write). */ autofocus?: boolean };
 
 /** Rich text with headings, lists, bold/italic, links and task lists; the server sanitises what it stores. */
-export function RichTextEditor({ label, initialHtml = '', onChange }: Props) {
+export function RichTextEditor({ label, initialHtml = '', onChange, autofocus = false }: Props) {
   const editor = useEditor({
     extensions: [StarterKit.configure({ link: { openOnClick: false, protocols: ['http', 'https', 'mailto'] } }), TaskList, TaskItem.configure({ nested: true })],
     content: initialHtml,
     editorProps: { attributes: { 'aria-label': label, role: 'textbox', 'aria-multiline': 'true', class: 'prose-editor min-h-32 p-2 focus:outline-none' } },
     onUpdate: ({ editor: e }) => onChange(e.getHTML()),
   });
+  useEffect(() => {
+    if (!autofocus || !editor) return;
+    // The caret goes to the end where the browser can place it there (Selection.modify; test DOMs lack it).
+    const canPlaceAtEnd = typeof (window.getSelection() as (Selection & { modify?: unknown }) | null)?.modify === 'function';
+    editor.commands.focus(canPlaceAtEnd ? 'end' : null);
+  }, [autofocus, editor]);
   if (!editor) return null;
   const tool = (name: string, active: boolean, run: () => void) => (
     <Button tone="tool" pressed={active} onClick={run}>

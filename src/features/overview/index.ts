@@ -1,3 +1,3 @@
-// The overview (front page): its keys and page.
+// The overview (front page): its keys and page, loaded on demand like every page so the entry chunk stays small.
 export { overviewKeys } from './api/overview-keys';
-export { OverviewPage } from './routes/overview-page';
+export const loadOverviewPage = async () => (await import('./routes/overview-page')).OverviewPage;

@@ -3,5 +3,5 @@
 export { useMe, meQueryOptions } from './api/get-me';
 export { useSignOut } from './api/sign-out';
 export { sessionKeys } from './api/session-keys';
-export { SignInPage } from './routes/sign-in-page';
+export const loadSignInPage = async () => (await import('./routes/sign-in-page')).SignInPage;
 export const loadChangePasswordPage = async () => (await import('./routes/change-password-page')).ChangePasswordPage;

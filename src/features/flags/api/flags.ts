@@ -2,6 +2,8 @@ import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/r
 import type { Quantity } from '../../../../shared/calc/check-catalog';
 import type { AssignFlagInput, ClearFlagInput, RaiseFlagInput } from '../../../../shared/schemas/flags';
 import { api } from '../../../lib/api-client';
+import { flagKeys } from './flag-keys';
+export { flagKeys };
 
 export type FlagView = {
   id: number;
@@ -28,11 +30,6 @@ export type FlagView = {
 
 export type FlagFilters = { status: 'open' | 'cleared' | 'all'; severity?: string; parameter?: string; from?: string; to?: string };
 
-export const flagKeys = {
-  all: ['flags'] as const,
-  unit: (unitId: number) => [...flagKeys.all, 'list', unitId] as const,
-  list: (unitId: number, filters: FlagFilters) => [...flagKeys.unit(unitId), filters] as const,
-};
 
 function query(filters: FlagFilters) {
   const params = new URLSearchParams({ status: filters.status });

@@ -43,8 +43,8 @@ function AssignForm({ flag, onDone }: { flag: FlagView; onDone: () => void }) {
       <PersonSelect label="Who follows it up" value={assignee} onChange={(id) => form.setValue('assignedTo', id, { shouldDirty: true })} error={form.error('assignedTo')} />
       <label className="flex flex-col text-sm">
         What to do
-        <textarea className={textClass} rows={2} {...form.register('followUp')} />
-        <FieldMessage message={form.error('followUp')} />
+        <textarea className={textClass} rows={2} {...form.register('followUp')} {...form.describe('followUp')} />
+        <FieldMessage {...form.messageFor('followUp')} />
       </label>
       <FormButtons label="Assign" pending={action.isPending} onCancel={onDone} />
     </form>
@@ -67,8 +67,8 @@ function ClearForm({ flag, onDone }: { flag: FlagView; onDone: () => void }) {
       <FormFailure form={form} />
       <label className="flex flex-col text-sm">
         Closing comment
-        <textarea className={textClass} rows={2} {...form.register('comment')} />
-        <FieldMessage message={form.error('comment')} />
+        <textarea className={textClass} rows={2} {...form.register('comment')} {...form.describe('comment')} />
+        <FieldMessage {...form.messageFor('comment')} />
       </label>
       <FormButtons label="Clear with this comment" pending={action.isPending} onCancel={onDone} />
     </form>

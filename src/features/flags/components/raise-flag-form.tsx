@@ -23,27 +23,27 @@ export function RaiseFlagForm({ unitId }: { unitId: number }) {
       <FormFailure form={form} className="sm:col-span-3" />
       <label className="flex flex-col text-sm">
         Parameter
-        <select className={selectClass} {...form.register('parameter')}>
+        <select className={selectClass} {...form.register('parameter')} {...form.describe('parameter')}>
           {checkKeys.map((key) => (
             <option key={key} value={key}>
               {checkCatalog[key].label}
             </option>
           ))}
         </select>
-        <FieldMessage message={form.error('parameter')} />
+        <FieldMessage {...form.messageFor('parameter')} />
       </label>
       <label className="flex flex-col text-sm">
         Severity
-        <select className={selectClass} {...form.register('severity')}>
+        <select className={selectClass} {...form.register('severity')} {...form.describe('severity')}>
           <option value="watch">Watch</option>
           <option value="alarm">Alarm</option>
         </select>
-        <FieldMessage message={form.error('severity')} />
+        <FieldMessage {...form.messageFor('severity')} />
       </label>
       <label className="flex flex-col text-sm sm:col-span-3">
         Comment
-        <textarea className="rounded-md border border-line bg-field p-2" rows={2} {...form.register('comment')} />
-        <FieldMessage message={form.error('comment')} />
+        <textarea className="rounded-md border border-line bg-field p-2" rows={2} {...form.register('comment')} {...form.describe('comment')} />
+        <FieldMessage {...form.messageFor('comment')} />
       </label>
       <Button type="submit" className="sm:col-span-1" disabled={action.isPending}>
         Raise flag

@@ -1,13 +1,10 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { ShiftCondenserState } from '../../../../shared/shift-condenser';
 import { api } from '../../../lib/api-client';
+import { shiftCondenserKeys } from './shift-condenser-keys';
+export { shiftCondenserKeys };
 
 /** A `reading` event for a unit invalidates `unit(unitId)`; a `plant` change (design, limits) invalidates `all`. */
-export const shiftCondenserKeys = {
-  all: ['shift-condenser'] as const,
-  unit: (unitId: number) => [...shiftCondenserKeys.all, unitId] as const,
-  shift: (unitId: number, shiftStart: string | null) => [...shiftCondenserKeys.unit(unitId), shiftStart ?? 'in-progress'] as const,
-};
 
 export const getShiftCondenser = async (unitId: number, shiftStart: string | null) => {
   const query = shiftStart ? `?shiftStart=${encodeURIComponent(shiftStart)}` : '';

@@ -5,6 +5,8 @@ import type { CondenserSnapshot } from '../../../../shared/shift-condenser';
 import { api } from '../../../lib/api-client';
 import type { z } from 'zod';
 import type { editHandoverItemSchema, handoverAmendmentSchema, newHandoverItemSchema } from '../../../../shared/schemas/handovers';
+import { handoverKeys } from './handover-keys';
+export { handoverKeys };
 
 export type BoardItem = {
   id: number;
@@ -61,12 +63,6 @@ export type ShiftChange = {
 };
 export type CurrentHandover = { shiftChange: ShiftChange; mayStart: boolean; board: Board | null };
 
-export const handoverKeys = {
-  all: ['handover'] as const,
-  unit: (unitId: number) => [...handoverKeys.all, 'unit', unitId] as const,
-  current: (unitId: number) => [...handoverKeys.unit(unitId), 'current'] as const,
-  one: (id: number) => [...handoverKeys.all, 'one', id] as const,
-};
 
 export const useCurrentHandover = (unitId: number | null) =>
   useQuery({ queryKey: handoverKeys.current(unitId ?? 0), queryFn: () => api.get<CurrentHandover>(`/api/units/${unitId}/handovers/current`), enabled: unitId !== null });

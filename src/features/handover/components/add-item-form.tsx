@@ -29,14 +29,14 @@ export function AddItemForm({ handoverId, unitId }: { handoverId: number; unitId
       <h3 className="font-bold sm:col-span-2">Add an item</h3>
       <label className="flex flex-col">
         Kind
-        <select className={field} {...form.register('kind')}>
+        <select className={field} {...form.register('kind')} {...form.describe('kind')}>
           {writableKinds.map((k) => (
             <option key={k} value={k}>
               {kindLabels[k]}
             </option>
           ))}
         </select>
-        <FieldMessage message={form.error('kind')} />
+        <FieldMessage {...form.messageFor('kind')} />
       </label>
       <label className="flex flex-col">
         Priority
@@ -48,18 +48,18 @@ export function AddItemForm({ handoverId, unitId }: { handoverId: number; unitId
       </label>
       <label className="flex flex-col sm:col-span-2">
         What
-        <input className={field} {...form.register('title')} />
-        <FieldMessage message={form.error('title')} />
+        <input className={field} {...form.register('title')} {...form.describe('title')} />
+        <FieldMessage {...form.messageFor('title')} />
       </label>
       <label className="flex flex-col">
         Detail
-        <input className={field} {...form.register('detail')} />
-        <FieldMessage message={form.error('detail')} />
+        <input className={field} {...form.register('detail')} {...form.describe('detail')} />
+        <FieldMessage {...form.messageFor('detail')} />
       </label>
       <label className="flex flex-col">
         Permit / isolation reference
-        <input className={field} {...form.register('reference')} />
-        <FieldMessage message={form.error('reference')} />
+        <input className={field} {...form.register('reference')} {...form.describe('reference')} />
+        <FieldMessage {...form.messageFor('reference')} />
       </label>
       <FormFailure form={form} className="sm:col-span-2" />
       <Button type="submit" size="sm" className="sm:col-span-2" disabled={action.isPending}>

@@ -39,13 +39,13 @@ function AmendItemForm({ board, item }: { board: Board; item: BoardItem }) {
     >
       <label className="flex flex-col">
         Correction to this item
-        <input className={field} {...form.register('text')} />
-        <FieldMessage message={form.error('text')} />
+        <input className={field} {...form.register('text')} {...form.describe('text')} />
+        <FieldMessage {...form.messageFor('text')} />
       </label>
       <label className="flex flex-col">
         Why
-        <input className={field} {...form.register('reason')} />
-        <FieldMessage message={form.error('reason')} />
+        <input className={field} {...form.register('reason')} {...form.describe('reason')} />
+        <FieldMessage {...form.messageFor('reason')} />
       </label>
       <Button type="submit" tone="plain" size="sm" disabled={action.isPending}>
         Amend this item
@@ -70,7 +70,7 @@ function AttachmentForm({ item, unitId, draft }: { item: BoardItem; unitId: numb
       {!draft ? (
         <label className="flex flex-col">
           Why the file is added now (an amendment)
-          <input className={field} {...form.register('reason')} />
+          <input className={field} {...form.register('reason')} {...form.describe('reason')} />
         </label>
       ) : null}
       <label className="flex flex-col">
@@ -86,7 +86,8 @@ function AttachmentForm({ item, unitId, draft }: { item: BoardItem; unitId: numb
           }}
         />
       </label>
-      <FieldMessage message={form.error('reason') ?? form.error('file')} className="block font-bold text-alarm" />
+      <FieldMessage {...form.messageFor('reason')} className="block font-bold text-alarm" />
+      <FieldMessage message={form.error('file')} className="block font-bold text-alarm" />
       <FormFailure form={form} className="w-full" />
     </form>
   );
@@ -97,11 +98,11 @@ function AnswerForm({ queryId, unitId }: { queryId: number; unitId: number }) {
   const form = useSchemaForm(answerSchema, { defaultValues: { answer: '' } });
   return (
     <form className="mt-1 flex flex-wrap gap-2" noValidate onSubmit={form.submit((v) => action.mutateAsync({ kind: 'answer', queryId, answer: v.answer }))}>
-      <input aria-label="Answer" className="flex-1 rounded-md border border-line bg-field px-2" {...form.register('answer')} />
+      <input aria-label="Answer" className="flex-1 rounded-md border border-line bg-field px-2" {...form.register('answer')} {...form.describe('answer')} />
       <Button type="submit" tone="plain" size="xs" disabled={action.isPending}>
         Answer
       </Button>
-      <FieldMessage message={form.error('answer')} className="w-full font-bold text-alarm" />
+      <FieldMessage {...form.messageFor('answer')} className="w-full font-bold text-alarm" />
       <FormFailure form={form} className="w-full" />
     </form>
   );
@@ -122,11 +123,11 @@ function AskForm({ itemId, unitId }: { itemId: number; unitId: number }) {
         newClientKey();
       })}
     >
-      <input aria-label="Question" placeholder="Ask about this item" className="rounded-md border border-line bg-field px-2" {...form.register('question')} />
+      <input aria-label="Question" placeholder="Ask about this item" className="rounded-md border border-line bg-field px-2" {...form.register('question')} {...form.describe('question')} />
       <Button type="submit" tone="plain" size="xs" disabled={action.isPending}>
         Ask
       </Button>
-      <FieldMessage message={form.error('question')} className="w-full font-bold text-alarm" />
+      <FieldMessage {...form.messageFor('question')} className="w-full font-bold text-alarm" />
       <FormFailure form={form} className="w-full" />
     </form>
   );

@@ -1,4 +1,4 @@
-import { lazy, Suspense, useCallback, useEffect, useRef, useState } from 'react';
+import { lazy, Suspense, useCallback, useEffect, useRef, useState, type HTMLAttributes } from 'react';
 import { useBlocker } from 'react-router';
 import { useQueryClient } from '@tanstack/react-query';
 import { Button } from '../../../components/ui/button';
@@ -6,8 +6,10 @@ import { ApiError } from '../../../lib/api-client';
 import { handoverKeys, saveNotes, type Board } from '../api/handover';
 import { clearLocalDraft, readLocalDraft, writeLocalDraft } from '../lib/notes-draft';
 
-// The editor's code loads only for someone who writes: readers get the stored HTML.
-const RichTextEditor = lazy(async () => ({ default: (await import('../../../components/ui/rich-text-editor')).RichTextEditor }));
+// The editor's code (Tiptap, ~130 kB gzip) loads only when someone starts writing: readers, and writers
+// who only look, get the stored HTML.
+const loadEditor = () => import('../../../components/ui/rich-text-editor');
+const RichTextEditor = lazy(async () => ({ default: (await loadEditor()).RichTextEditor }));
 
 const AUTOSAVE_MS = 1200;
 
@@ -21,10 +23,17 @@ type Props = { board: Board; editable: boolean; stationTime: (iso: string) => st
  */
 export function HandoverNotes({ board, editable, stationTime }: Props) {
   const h = board.handover;
-  if (!editable) {
-    return <div className="order-body rounded-md border border-line bg-panel p-3" data-testid="handover-notes" dangerouslySetInnerHTML={{ __html: h.notesHtml || '<p><em>No notes.</em></p>' }} />;
-  }
+  if (!editable) return <StoredNotes html={h.notesHtml} testId="handover-notes" />;
   return <NotesEditor board={board} stationTime={stationTime} />;
+}
+
+/**
+ * The notes as stored. Setting the HTML directly is safe here: the server runs every save through
+ * sanitizeRichText (server/lib/rich-text.ts, sanitize-html with an allow-list) before storing it, and
+ * only ever returns what it stored, so no script or handler attribute can reach this element.
+ */
+function StoredNotes({ html, testId, ...box }: { html: string; testId: string } & HTMLAttributes<HTMLDivElement>) {
+  return <div className="order-body rounded-md border border-line bg-panel p-3" data-testid={testId} {...box} dangerouslySetInnerHTML={{ __html: html || '<p><em>No notes.</em></p>' }} />;
 }
 
 function NotesEditor({ board, stationTime }: Omit<Props, 'editable'>) {
@@ -42,6 +51,12 @@ function NotesEditor({ board, stationTime }: Omit<Props, 'editable'>) {
   // The clash, and the version my save was based on: their text is shown once the board is newer.
   const [conflict, setConflict] = useState<{ message: string; myVersion: number } | null>(null);
   const [editorKey, setEditorKey] = useState(0);
+  // Writing starts with a click on the notes (or "Edit notes"); text restored from this device opens the editor at once.
+  const [writing, setWriting] = useState(Boolean(restored));
+  const startWriting = () => {
+    void loadEditor();
+    setWriting(true);
+  };
   // The text as typed, for a save that completes after more typing.
   const latest = useRef(html);
 
@@ -111,9 +126,39 @@ function NotesEditor({ board, stationTime }: Omit<Props, 'editable'>) {
 
   return (
     <div className="flex flex-col gap-2">
+      {writing ? null : (
+        <>
+          <StoredNotes
+            html={html}
+            testId="handover-notes"
+            role="textbox"
+            aria-label="Handover notes"
+            aria-readonly="true"
+            aria-describedby="notes-edit-hint"
+            tabIndex={0}
+            onClick={startWriting}
+            onKeyDown={(event) => {
+              if (event.key === 'Enter' || event.key === ' ') {
+                event.preventDefault();
+                startWriting();
+              }
+            }}
+          />
+          <div className="flex items-center gap-2">
+            <Button tone="plain" size="sm" onClick={startWriting}>
+              Edit notes
+            </Button>
+            <span id="notes-edit-hint" className="text-sm text-muted">
+              Click the notes or press Enter on them to write.
+            </span>
+          </div>
+        </>
+      )}
+      {writing ? (
       <Suspense fallback={<p className="text-sm text-muted">Loading the editor…</p>}>
         <RichTextEditor
           key={editorKey}
+          autofocus
           label="Handover notes"
           initialHtml={html}
           onChange={(next) => {
@@ -124,6 +169,7 @@ function NotesEditor({ board, stationTime }: Omit<Props, 'editable'>) {
           }}
         />
       </Suspense>
+      ) : null}
       <p className="text-sm text-muted" aria-live="polite" data-testid="notes-status">
         {dirty ? 'Unsaved changes (kept on this device)…' : status}
       </p>

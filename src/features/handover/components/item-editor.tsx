@@ -29,24 +29,24 @@ export function ItemEditor({ item, unitId, onDone }: { item: BoardItem; unitId: 
         <>
           <label className="flex flex-col sm:col-span-2">
             What
-            <input className={field} {...form.register('title')} />
-            <FieldMessage message={form.error('title')} />
+            <input className={field} {...form.register('title')} {...form.describe('title')} />
+            <FieldMessage {...form.messageFor('title')} />
           </label>
           <label className="flex flex-col">
             Priority
-            <select className={field} {...form.register('priority')}>
+            <select className={field} {...form.register('priority')} {...form.describe('priority')}>
               <option value="high">High</option>
               <option value="normal">Normal</option>
               <option value="low">Low</option>
             </select>
-            <FieldMessage message={form.error('priority')} />
+            <FieldMessage {...form.messageFor('priority')} />
           </label>
         </>
       ) : null}
       <label className="flex flex-col">
         Detail
-        <input className={field} {...form.register('detail')} />
-        <FieldMessage message={form.error('detail')} />
+        <input className={field} {...form.register('detail')} {...form.describe('detail')} />
+        <FieldMessage {...form.messageFor('detail')} />
       </label>
       <FormFailure form={form} className="sm:col-span-2" />
       <div className="flex gap-2 sm:col-span-2">

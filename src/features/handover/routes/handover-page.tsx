@@ -154,10 +154,10 @@ function AmendHandoverForm({ handoverId, unitId }: { handoverId: number; unitId:
       })}
     >
       <h3 className="font-bold">Amend the handover as a whole (the handover is read-only once submitted; amend an item on the item)</h3>
-      <input aria-label="Amendment" placeholder="What to add or correct" className={input} {...form.register('text')} />
-      <FieldMessage message={form.error('text')} />
-      <input aria-label="Reason" placeholder="Why" className={input} {...form.register('reason')} />
-      <FieldMessage message={form.error('reason')} />
+      <input aria-label="Amendment" placeholder="What to add or correct" className={input} {...form.register('text')} {...form.describe('text')} />
+      <FieldMessage {...form.messageFor('text')} />
+      <input aria-label="Reason" placeholder="Why" className={input} {...form.register('reason')} {...form.describe('reason')} />
+      <FieldMessage {...form.messageFor('reason')} />
       <Button type="submit" tone="plain" size="sm" className="self-start" disabled={action.isPending}>
         Add amendment
       </Button>

@@ -3,7 +3,8 @@ import type { ImportMapping, ImportRowReport } from '../../../../shared/schemas/
 import { ApiError, api } from '../../../lib/api-client';
 import { invalidateForChange } from '../../../app/live-keys';
 
-export const importKeys = { all: ['imports'] as const, mappings: (unitId: number) => [...importKeys.all, 'mappings', unitId] as const };
+import { importKeys } from './import-keys';
+export { importKeys };
 
 export type Inspection = { headers: string[]; sample: Record<string, string>[]; rowCount: number };
 /** `timeZone`: the station zone in which times without an offset were read. */

@@ -81,18 +81,18 @@ export function ImportPage() {
           <div className="grid gap-3 sm:grid-cols-2">
             <label className="flex flex-col text-sm">
               Source name (remembered with this mapping)
-              <input className={selectClass} {...form.register('source')} />
-              <FieldMessage message={form.error('source')} />
+              <input className={selectClass} {...form.register('source')} {...form.describe('source')} />
+              <FieldMessage {...form.messageFor('source')} />
             </label>
             <label className="flex flex-col text-sm">
               Time column (ISO 8601; without an offset read as station time{unit ? `, ${unit.timeZone}` : ''})
-              <select className={selectClass} {...form.register('timeColumn')}>
+              <select className={selectClass} {...form.register('timeColumn')} {...form.describe('timeColumn')}>
                 <option value="">Choose…</option>
                 {headers.map((h) => (
                   <option key={h}>{h}</option>
                 ))}
               </select>
-              <FieldMessage message={form.error('timeColumn')} />
+              <FieldMessage {...form.messageFor('timeColumn')} />
             </label>
           </div>
           <table className="text-sm">

@@ -3,6 +3,8 @@ import type { z } from 'zod';
 import type { NewLogEntry, StationSettings, newConditionSchema } from '../../../../shared/schemas/log';
 import { api } from '../../../lib/api-client';
 import { setupKeys } from '../../plant';
+import { logKeys, conditionKeys } from './log-keys';
+export { logKeys, conditionKeys };
 
 type NewCondition = z.output<typeof newConditionSchema>;
 
@@ -51,13 +53,6 @@ export type ConditionView = {
   version: number;
 };
 
-export const logKeys = {
-  all: ['log'] as const,
-  unitEntries: (unitId: number) => [...logKeys.all, 'entries', unitId] as const,
-  entries: (unitId: number, f: LogFilters) => [...logKeys.unitEntries(unitId), f] as const,
-  shifts: (unitId: number) => [...logKeys.all, 'shifts', unitId] as const,
-};
-export const conditionKeys = { all: ['conditions'] as const, list: (unitId: number) => [...conditionKeys.all, unitId] as const };
 
 const qs = (f: LogFilters) => new URLSearchParams(Object.entries(f).filter(([, v]) => v !== undefined && v !== '').map(([k, v]) => [k, String(v)])).toString();
 
@@ -65,8 +60,7 @@ export const logQueryOptions = (unitId: number, f: LogFilters) =>
   queryOptions({ queryKey: logKeys.entries(unitId, f), queryFn: async () => (await api.get<{ entries: LogEntryView[] }>(`/api/units/${unitId}/log?${qs(f)}`)).entries });
 export const useLog = (unitId: number | null, f: LogFilters) => useQuery({ ...logQueryOptions(unitId ?? 0, f), enabled: unitId !== null });
 
-export const useShifts = (unitId: number | null) =>
-  useQuery({ queryKey: logKeys.shifts(unitId ?? 0), queryFn: () => api.get<ShiftsView>(`/api/units/${unitId}/log/shifts`), enabled: unitId !== null });
+export { useShifts } from './get-shifts';
 
 export const useConditions = (unitId: number | null) =>
   useQuery({

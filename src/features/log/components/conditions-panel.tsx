@@ -33,11 +33,11 @@ function CloseForm({ condition, position }: { condition: ConditionView; position
   const form = useSchemaForm(schema, { defaultValues: { text: '' } });
   return (
     <form aria-label={`Close ${condition.title}`} noValidate className="mt-1 flex gap-2 text-sm" onSubmit={form.submit((input) => close.mutateAsync({ id: condition.id, ...input }))}>
-      <input aria-label="Closing entry" placeholder="Closing entry: what was done" className="flex-1 rounded-md border border-line bg-field px-2 py-1" {...form.register('text')} />
+      <input aria-label="Closing entry" placeholder="Closing entry: what was done" className="flex-1 rounded-md border border-line bg-field px-2 py-1" {...form.register('text')} {...form.describe('text')} />
       <Button type="submit" tone="plain" size="xs">
         Close
       </Button>
-      <FieldMessage message={form.error('text')} />
+      <FieldMessage {...form.messageFor('text')} />
       <FormFailure form={form} />
     </form>
   );
@@ -67,18 +67,18 @@ function OpenForm({ unitId }: { unitId: number }) {
     >
       <label className="flex flex-col">
         Condition
-        <input className="rounded-md border border-line bg-field px-2 py-1" {...form.register('title')} />
-        <FieldMessage message={form.error('title')} />
+        <input className="rounded-md border border-line bg-field px-2 py-1" {...form.register('title')} {...form.describe('title')} />
+        <FieldMessage {...form.messageFor('title')} />
       </label>
       <label className="flex flex-col">
         Required action
-        <input className="rounded-md border border-line bg-field px-2 py-1" {...form.register('requiredAction')} />
-        <FieldMessage message={form.error('requiredAction')} />
+        <input className="rounded-md border border-line bg-field px-2 py-1" {...form.register('requiredAction')} {...form.describe('requiredAction')} />
+        <FieldMessage {...form.messageFor('requiredAction')} />
       </label>
       <label className="flex flex-col">
         Time allowed (hours from now)
-        <input inputMode="decimal" className="rounded-md border border-line bg-field px-2 py-1" {...form.register('hours')} />
-        <FieldMessage message={form.error('hours')} />
+        <input inputMode="decimal" className="rounded-md border border-line bg-field px-2 py-1" {...form.register('hours')} {...form.describe('hours')} />
+        <FieldMessage {...form.messageFor('hours')} />
       </label>
       <PersonSelect label="Owner" value={owner} onChange={(id) => form.setValue('ownerId', id, { shouldDirty: true })} error={form.error('ownerId')} />
       <FormFailure form={form} className="sm:col-span-2" />

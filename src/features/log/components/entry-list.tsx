@@ -19,10 +19,10 @@ function AmendInline({ entry, onDone }: { entry: LogEntryView; onDone: () => voi
         onDone();
       })}
     >
-      <input aria-label="Corrected text" className="rounded-md border border-line bg-field px-2 py-1" {...form.register('text')} />
-      <FieldMessage message={form.error('text')} />
-      <input aria-label="Reason for the amendment" placeholder="Why is it corrected?" className="rounded-md border border-line bg-field px-2 py-1" {...form.register('reason')} />
-      <FieldMessage message={form.error('reason')} />
+      <input aria-label="Corrected text" className="rounded-md border border-line bg-field px-2 py-1" {...form.register('text')} {...form.describe('text')} />
+      <FieldMessage {...form.messageFor('text')} />
+      <input aria-label="Reason for the amendment" placeholder="Why is it corrected?" className="rounded-md border border-line bg-field px-2 py-1" {...form.register('reason')} {...form.describe('reason')} />
+      <FieldMessage {...form.messageFor('reason')} />
       <FormFailure form={form} />
       <div className="flex gap-2">
         <Button type="submit" size="sm">

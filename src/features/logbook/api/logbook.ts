@@ -4,6 +4,8 @@ import type { LimitSet } from '../../../../shared/calc/limits';
 import type { CondenserSnapshot } from '../../../../shared/shift-condenser';
 import { api } from '../../../lib/api-client';
 import type { ReviewCommentView, SearchHit } from '../../../../shared/schemas/logbook';
+import { logbookKeys } from './logbook-keys';
+export { logbookKeys };
 
 export type { ReviewCommentView, SearchHit };
 
@@ -19,12 +21,6 @@ export type SearchFilters = {
   page: number;
 };
 
-export const logbookKeys = {
-  all: ['logbook'] as const,
-  search: (filters: SearchFilters) => [...logbookKeys.all, 'search', filters] as const,
-  shift: (unitId: number, shiftStart: string) => [...logbookKeys.all, 'shift', unitId, shiftStart] as const,
-  myComments: () => [...logbookKeys.all, 'my-comments'] as const,
-};
 
 export function searchParams(filters: SearchFilters, pageSize = 25) {
   const params = new URLSearchParams();

@@ -2,6 +2,8 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 import type { z } from 'zod';
 import type { standingOrderSchema } from '../../../../shared/schemas/log';
+import { orderKeys } from './order-keys';
+export { orderKeys };
 
 export type OrderView = {
   id: number;
@@ -20,13 +22,6 @@ export type OrderView = {
 };
 export type PendingOrder = { id: number; title: string; bodyHtml: string; effectiveFrom: string };
 
-export const orderKeys = {
-  all: ['orders'] as const,
-  list: (state: string, q: string) => [...orderKeys.all, 'list', state, q] as const,
-  detail: (id: number) => [...orderKeys.all, 'detail', id] as const,
-  /** The signed-in person's orders still to acknowledge. */
-  pending: () => [...orderKeys.all, 'pending'] as const,
-};
 
 export const useOrders = (state: string, q: string) =>
   useQuery({

@@ -33,7 +33,6 @@ export function IssueOrderForm({ positions, timeZone }: { positions: { key: stri
   const to = useStationTimeFormField(form, 'effectiveTo');
   const [crewIds, scopePositions] = useWatch({ control: form.control, name: ['crewIds', 'positions'] });
   const toggle = <T,>(list: T[], item: T) => (list.includes(item) ? list.filter((x) => x !== item) : [...list, item]);
-  const title = form.error('title');
 
   return (
     <form
@@ -52,11 +51,11 @@ export function IssueOrderForm({ positions, timeZone }: { positions: { key: stri
       {issue.isSuccess ? <Notice kind="success">Issued. Everyone in scope is asked to acknowledge it at their next sign-in.</Notice> : null}
       <label className="flex flex-col text-sm">
         Title
-        <input className={field} aria-invalid={Boolean(title)} {...form.register('title')} />
-        <FieldMessage message={title} className="font-bold text-alarm" />
+        <input className={field} {...form.register('title')} {...form.describe('title')} />
+        <FieldMessage {...form.messageFor('title')} className="font-bold text-alarm" />
       </label>
       <RichTextEditor label="Order text" onChange={(html) => form.setValue('bodyHtml', html, { shouldDirty: true })} />
-      <FieldMessage message={form.error('bodyHtml')} className="text-sm font-bold text-alarm" />
+      <FieldMessage {...form.messageFor('bodyHtml')} className="text-sm font-bold text-alarm" />
       <div className="flex flex-wrap gap-3 text-sm">
         <StationTimeInput label="In force from (empty = now)" field={from} timeZone={timeZone} error={form.error('effectiveFrom')} />
         <StationTimeInput label="Until (empty = until withdrawn)" field={to} timeZone={timeZone} error={form.error('effectiveTo')} />

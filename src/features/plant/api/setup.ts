@@ -4,6 +4,8 @@ import type { PlausibleRanges } from '../../../../shared/calc/plausibility';
 import type { UnitDesign } from '../../../../shared/schemas/plant';
 import { api } from '../../../lib/api-client';
 import { invalidateForChange } from '../../../app/live-keys';
+import { setupKeys } from './setup-keys';
+export { setupKeys };
 
 type VersionRow = { id: number; effectiveFrom: string; note: string | null; by: string };
 export type UnitSetup = {
@@ -18,12 +20,6 @@ export type UnitSetup = {
   equipment: { id: number; kind: string; tag: string; name: string }[];
 };
 
-export const setupKeys = {
-  all: ['plant', 'setup'] as const,
-  unit: (id: number) => [...setupKeys.all, id] as const,
-  /** The unit's equipment list as the log's picker keeps it (the same endpoint, cached apart). */
-  equipment: (id: number) => [...setupKeys.unit(id), 'equipment'] as const,
-};
 export const setupQueryOptions = (unitId: number) => queryOptions({ queryKey: setupKeys.unit(unitId), queryFn: () => api.get<UnitSetup>(`/api/plant/units/${unitId}/setup`) });
 export const useUnitSetup = (unitId: number | null) => useQuery({ ...setupQueryOptions(unitId ?? 0), enabled: unitId !== null });
 

@@ -116,8 +116,8 @@ function AmendForm({ detail, onDone }: { detail: ReadingDetail; onDone: () => vo
       <FormFailure form={form} />
       <label className="flex flex-col gap-1 text-sm font-bold">
         Reason for the correction
-        <textarea className="rounded-md border border-line bg-field p-2 font-normal" rows={2} {...form.register('reason')} />
-        <FieldMessage message={form.error('reason')} />
+        <textarea className="rounded-md border border-line bg-field p-2 font-normal" rows={2} {...form.register('reason')} {...form.describe('reason')} />
+        <FieldMessage {...form.messageFor('reason')} />
       </label>
       <ReadingFormFields form={form} errors={{ ...live.shownErrors, ...boxErrors }} values={values} warnings={live.warnings} />
       {question.asking ? <ConfirmOutsidePlausible notices={question.notices} pending={amend.isPending} onConfirm={() => void submit(true)} onCancel={question.cancel} /> : null}

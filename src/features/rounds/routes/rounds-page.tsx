@@ -124,7 +124,7 @@ export function RoundsPage() {
         </Notice>
       ) : null}
       {refusal ? <Notice kind="error">{refusal}</Notice> : null}
-      <FormFailure form={form} />
+      <FormFailure form={form} summary={false} />
       {design.error ? <Notice kind="error">{design.error.message}</Notice> : null}
       <div className="grid gap-6 lg:grid-cols-2">
         <form

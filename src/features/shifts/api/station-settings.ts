@@ -1,18 +1,11 @@
-import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { StationSettings } from '../../../../shared/schemas/log';
 import { api } from '../../../lib/api-client';
 import { invalidateForChange } from '../../../app/live-keys';
 
-export const stationSettingsKeys = {
-  all: ['station-settings'] as const,
-  station: (stationId: number) => [...stationSettingsKeys.all, stationId] as const,
-};
+import { stationSettingsKeys, useStationSettings } from './station-settings-query';
 
-export const getStationSettings = async (stationId: number) => (await api.get<{ settings: StationSettings }>(`/api/stations/${stationId}/settings`)).settings;
-
-export const stationSettingsQueryOptions = (stationId: number) => queryOptions({ queryKey: stationSettingsKeys.station(stationId), queryFn: () => getStationSettings(stationId) });
-
-export const useStationSettings = (stationId: number | null) => useQuery({ ...stationSettingsQueryOptions(stationId ?? 0), enabled: stationId !== null });
+export { stationSettingsKeys, useStationSettings };
 
 export function useSaveStationSettings(stationId: number) {
   const queryClient = useQueryClient();

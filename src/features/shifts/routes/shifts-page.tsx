@@ -25,7 +25,7 @@ function RotationForm({ stationId, timeZone, shifts }: { stationId: number | nul
       <p>Crews take the shifts in the order ticked, one shift each, starting with the chosen shift.</p>
       <label className="flex flex-col">
         First shift of the rotation (station time, {timeZone})
-        <select className={field} {...form.register('anchorShiftStart')}>
+        <select className={field} {...form.register('anchorShiftStart')} {...form.describe('anchorShiftStart')}>
           <option value="">Choose…</option>
           {shifts.map((s) => (
             <option key={s.start} value={s.start}>
@@ -33,9 +33,9 @@ function RotationForm({ stationId, timeZone, shifts }: { stationId: number | nul
             </option>
           ))}
         </select>
-        <FieldMessage message={form.error('anchorShiftStart')} />
+        <FieldMessage {...form.messageFor('anchorShiftStart')} />
       </label>
-      <div className="flex flex-wrap gap-2">
+      <div role="group" aria-label="Crew order" aria-describedby={form.describe('crewIds')['aria-describedby']} className="flex flex-wrap gap-2">
         {crews.data?.map((c) => (
           <Button key={c.id} tone="toggle" pressed={order.includes(c.id)} onClick={() => toggle(c.id)}>
             Crew {c.name}
@@ -43,7 +43,7 @@ function RotationForm({ stationId, timeZone, shifts }: { stationId: number | nul
           </Button>
         ))}
       </div>
-      <FieldMessage message={form.error('crewIds')} />
+      <FieldMessage {...form.messageFor('crewIds')} />
       <FormFailure form={form} />
       {save.isSuccess ? <Notice kind="success">Rotation saved.</Notice> : null}
       <Button type="submit" size="sm" className="self-start">
@@ -71,7 +71,7 @@ function SwapForm({ stationId, timeZone }: { stationId: number | null; timeZone:
       <StationTimeInput label="Shift starting" field={shiftStart} timeZone={timeZone} error={form.error('shiftStart')} />
       <label className="flex flex-col">
         Crew working it instead
-        <select className={field} {...form.register('crewId')}>
+        <select className={field} {...form.register('crewId')} {...form.describe('crewId')}>
           <option value="">Choose…</option>
           {crews.data?.map((c) => (
             <option key={c.id} value={c.id}>
@@ -79,12 +79,12 @@ function SwapForm({ stationId, timeZone }: { stationId: number | null; timeZone:
             </option>
           ))}
         </select>
-        <FieldMessage message={form.error('crewId')} />
+        <FieldMessage {...form.messageFor('crewId')} />
       </label>
       <label className="flex flex-col">
         Reason
-        <input className={field} {...form.register('reason')} />
-        <FieldMessage message={form.error('reason')} />
+        <input className={field} {...form.register('reason')} {...form.describe('reason')} />
+        <FieldMessage {...form.messageFor('reason')} />
       </label>
       <FormFailure form={form} />
       {add.isSuccess ? <Notice kind="success">Swap recorded.</Notice> : null}

@@ -1,6 +1,8 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { NewTrainingEntry, TaskStatus, TrainingLevel } from '../../../../shared/schemas/training';
 import { api } from '../../../lib/api-client';
+import { trainingKeys } from './training-keys';
+export { trainingKeys };
 
 export type TaskView = {
   id: number;
@@ -66,16 +68,6 @@ export type QueueEntry = {
   recordedAt: string;
 };
 
-export const trainingKeys = {
-  all: ['training'] as const,
-  tasks: () => [...trainingKeys.all, 'tasks'] as const,
-  versions: (key: string) => [...trainingKeys.all, 'versions', key] as const,
-  me: () => [...trainingKeys.all, 'me'] as const,
-  trainee: (id: number) => [...trainingKeys.all, 'trainee', id] as const,
-  countersign: () => [...trainingKeys.all, 'countersign'] as const,
-  review: () => [...trainingKeys.all, 'review'] as const,
-  crew: (id: number) => [...trainingKeys.all, 'crew', id] as const,
-};
 
 export const useTasks = () => useQuery({ queryKey: trainingKeys.tasks(), queryFn: async () => (await api.get<{ tasks: TaskView[] }>('/api/training/tasks')).tasks });
 export const useTaskVersions = (key: string | null) =>

@@ -12,12 +12,12 @@ function RejectForm({ entryId }: { entryId: number }) {
     <form className="flex flex-wrap items-end gap-2" noValidate onSubmit={form.submit((v) => settle.mutateAsync({ id: entryId, action: 'reject', reason: v.reason }))}>
       <label className="flex flex-col">
         Reason
-        <input className="rounded-md border border-line bg-field px-2 py-1" {...form.register('reason')} />
+        <input className="rounded-md border border-line bg-field px-2 py-1" {...form.register('reason')} {...form.describe('reason')} />
       </label>
       <Button type="submit" tone="danger" size="sm">
         Reject
       </Button>
-      <FieldMessage message={form.error('reason')} />
+      <FieldMessage {...form.messageFor('reason')} />
       <FormFailure form={form} className="w-full" />
     </form>
   );

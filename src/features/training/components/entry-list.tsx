@@ -38,14 +38,14 @@ function AmendEntryForm({ entryId, onDone }: { entryId: number; onDone: () => vo
     >
       <label className="flex flex-col">
         Why
-        <input className={input} {...form.register('reason')} />
+        <input className={input} {...form.register('reason')} {...form.describe('reason')} />
       </label>
-      <FieldMessage message={form.error('reason')} />
+      <FieldMessage {...form.messageFor('reason')} />
       <label className="flex flex-col">
         Correction
-        <input className={input} {...form.register('text')} />
+        <input className={input} {...form.register('text')} {...form.describe('text')} />
       </label>
-      <FieldMessage message={form.error('text')} />
+      <FieldMessage {...form.messageFor('text')} />
       <FormFailure form={form} />
       <Button type="submit" tone="plain" size="xs" className="self-start">
         Save amendment

@@ -39,9 +39,9 @@ function DecisionForm({ traineeId, row }: { traineeId: number; row: ProgressRow 
     <form className="flex flex-col gap-1" aria-label={`Decide on ${row.task.taskKey}`} noValidate onSubmit={(e) => e.preventDefault()}>
       <label className="flex flex-col text-xs font-bold">
         Trainer’s comments
-        <textarea className="rounded-md border border-line bg-field p-1 font-normal" rows={2} {...form.register('comments')} />
+        <textarea className="rounded-md border border-line bg-field p-1 font-normal" rows={2} {...form.register('comments')} {...form.describe('comments')} />
       </label>
-      <FieldMessage message={form.error('comments')} className="text-xs font-bold text-alarm" />
+      <FieldMessage {...form.messageFor('comments')} className="text-xs font-bold text-alarm" />
       <FormFailure form={form} />
       <div className="flex gap-1">
         <Button size="xs" className="text-xs" disabled={decide.isPending || row.status !== 'ready_for_sign_off'} onClick={() => send('signed_off')}>

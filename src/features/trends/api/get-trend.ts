@@ -1,6 +1,8 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import type { LimitBand, Status } from '../../../../shared/calc/limits';
 import { api } from '../../../lib/api-client';
+import { trendKeys } from './trend-keys';
+export { trendKeys };
 
 export type TrendResponse = {
   /** t: epoch milliseconds (UTC) */
@@ -12,12 +14,6 @@ export type TrendResponse = {
 
 export type TrendRequest = { unitId: number; parameters: string[]; from: string; to: string };
 
-export const trendKeys = {
-  all: ['trends'] as const,
-  /** Every trend of a unit (TanStack matches the object key partly). */
-  unit: (unitId: number) => [...trendKeys.all, { unitId }] as const,
-  one: (r: TrendRequest) => [...trendKeys.all, r] as const,
-};
 
 export const trendQueryOptions = (r: TrendRequest) =>
   queryOptions({
