@@ -9,6 +9,7 @@ import { navigationFor } from '../navigation';
 import { useConnected, useLiveUpdates } from '../use-live-updates';
 import { PendingOrdersPrompt } from '../../features/orders';
 import { Button } from '../../components/ui/button';
+import { OfflineStatus } from '../../features/offline';
 
 export function AppShell() {
   const { data: me, isPending, error } = useMe();
@@ -59,6 +60,7 @@ export function AppShell() {
             ))}
           </nav>
           <div className="ml-auto flex items-center gap-3 text-sm">
+            <OfflineStatus userId={me.id} />
             <span data-testid="signed-in-as">
               {me.name} · {roleLabels[me.role]}
               {me.crewName ? ` · Crew ${me.crewName}` : ''}
@@ -74,7 +76,7 @@ export function AppShell() {
       </header>
       {connected ? null : (
         <p role="status" className="border-b-2 border-watch bg-panel px-4 py-2 text-center font-bold print:hidden" data-testid="offline">
-          ▲ Not connected to the server — this page is not being updated and may be out of date; changes are not saved until the connection is back.
+          ▲ Not connected to the server — this page is not being updated and may be out of date; rounds and log entries are kept on this device and sent when it is back; other changes are not saved until then.
         </p>
       )}
       <div className="print:hidden">
