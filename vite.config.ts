@@ -41,6 +41,8 @@ export default defineConfig({
         navigateFallback: '/index.html',
         navigateFallbackDenylist: [/^\/api\//, /^\/socket\.io\//, /^\/fonts\//],
         cleanupOutdatedCaches: true,
+        // The first install takes the open page at once, so the answers it fetches next are kept for offline use.
+        clientsClaim: true,
         runtimeCaching: [
           {
             // Who is signed in: only as the fallback when offline; cleared on sign-out (src/features/offline).

@@ -3,4 +3,4 @@ export { OfflineStatus } from './components/offline-status';
 export { WaitingRecords } from './components/waiting-records';
 export { sendOrKeep, discard } from './api/offline-store';
 export type { QueuedRecord } from './api/queue';
-export { registerServiceWorker, forgetOfflineCopies } from './api/service-worker';
+export { forgetOfflineCopies } from './api/service-worker';

@@ -90,7 +90,7 @@ export function sendQueued(userId: number, onSent: (record: QueuedRecord, saved:
     onSent(record, saved);
   }).finally(() => {
     sending = null;
-    void reload();
+    void reload().catch(() => undefined);
   });
   return sending;
 }

@@ -1,23 +1,19 @@
-// The service worker is registered in the production build only (vite-plugin-pwa builds it there);
-// `npm run dev` runs without one. A new version waits until the person chooses to reload, so a
-// form being typed is never reloaded away.
+// What the page knows of its service worker: whether a new version waits (shown as a prompt), and
+// the worker's copies of API answers to drop at sign-out. The registration itself is in
+// register-service-worker.ts, imported by main.tsx only (the virtual module exists in Vite builds).
 import { useSyncExternalStore } from 'react';
 
 let updateReady = false;
 let applyUpdate: ((reload?: boolean) => Promise<void>) | null = null;
 const listeners = new Set<() => void>();
 
-export function registerServiceWorker() {
-  if (!import.meta.env.PROD || !('serviceWorker' in navigator)) return;
-  void import('virtual:pwa-register').then(({ registerSW }) => {
-    applyUpdate = registerSW({
-      immediate: true,
-      onNeedRefresh() {
-        updateReady = true;
-        for (const listener of listeners) listener();
-      },
-    });
-  });
+export function setUpdate(apply: (reload?: boolean) => Promise<void>) {
+  applyUpdate = apply;
+}
+
+export function announceUpdateReady() {
+  updateReady = true;
+  for (const listener of listeners) listener();
 }
 
 /** Whether a new version is waiting, and how to take it (reloads the page). */

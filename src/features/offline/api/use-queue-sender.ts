@@ -31,11 +31,14 @@ export function useQueueSender(userId: number | null) {
     if (userId === null) return;
     const send = () => {
       if (!navigator.onLine) return;
-      void loadQueue().then(() =>
-        sendQueued(userId, (record, saved) =>
-          invalidateForChange(queryClient, { entity: record.kind === 'round' ? 'reading' : 'log_entry', id: saved.id, unitId: record.unitId }),
-        ),
-      );
+      loadQueue()
+        .then(() =>
+          sendQueued(userId, (record, saved) =>
+            invalidateForChange(queryClient, { entity: record.kind === 'round' ? 'reading' : 'log_entry', id: saved.id, unitId: record.unitId }),
+          ),
+        )
+        // A device without IndexedDB (or with it refused) keeps nothing to send; the next try asks again.
+        .catch(() => undefined);
     };
     send();
     window.addEventListener('online', send);
