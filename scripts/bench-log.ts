@@ -48,6 +48,7 @@ async function main() {
             categories[Math.floor(next() * categories.length)]!.key,
             eventAt,
             eventAt,
+            eventAt,
             shiftStart,
             0,
             authors[i % authors.length],
@@ -56,7 +57,7 @@ async function main() {
           ]);
         }
         await sequelize.query(
-          `INSERT INTO log_entries (unit_id, position, category, event_at, entered_at, shift_start, late, author_id, text, carry_to_handover) VALUES ${rows.map(() => '(?)').join(',')}`,
+          `INSERT INTO log_entries (unit_id, position, category, event_at, entered_at, received_at, shift_start, late, author_id, text, carry_to_handover) VALUES ${rows.map(() => '(?)').join(',')}`,
           { replacements: rows },
         );
       }

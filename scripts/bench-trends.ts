@@ -48,14 +48,14 @@ async function main() {
           const evaluation = evaluateReadingSet(si, demoCondenserDesign, startingLimits, startingPlausibleRanges);
           const takenAt = new Date(start + hour * 3_600_000);
           const id = nextId++;
-          sets.push([id, unit.id, takenAt, takenAt, recorder, 0, 'import', takenAt.toISOString(), unit.design, unit.limits, JSON.stringify(raw), JSON.stringify(si), JSON.stringify(evaluation), worstOf(evaluation)]);
+          sets.push([id, unit.id, takenAt, takenAt, takenAt, recorder, 0, 'import', takenAt.toISOString(), unit.design, unit.limits, JSON.stringify(raw), JSON.stringify(si), JSON.stringify(evaluation), worstOf(evaluation)]);
           for (const key of checkKeys) {
             const check = evaluation.checks[key];
             if (check.value !== null) values.push([id, key, unit.id, takenAt, check.value, check.status]);
           }
         }
         await sequelize.query(
-          `INSERT INTO reading_sets (id, unit_id, taken_at, recorded_at, recorded_by, recorded_as_trainee, source, import_key, design_version_id, limit_version_id, raw, si, results, worst_status) VALUES ${sets.map(() => '(?)').join(',')}`,
+          `INSERT INTO reading_sets (id, unit_id, taken_at, recorded_at, entered_at, recorded_by, recorded_as_trainee, source, import_key, design_version_id, limit_version_id, raw, si, results, worst_status) VALUES ${sets.map(() => '(?)').join(',')}`,
           { replacements: sets },
         );
         for (let i = 0; i < values.length; i += 5000) {

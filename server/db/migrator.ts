@@ -15,6 +15,7 @@ import * as roundIntervalAndHandoverWindow from './migrations/0012-round-interva
 import * as accessAndSignIn from './migrations/0013-access-and-sign-in';
 import * as plausibleRanges from './migrations/0014-plausible-ranges';
 import * as outbox from './migrations/0015-outbox';
+import * as offlineRecords from './migrations/0016-offline-records';
 
 // Listed explicitly so the order is obvious and nothing depends on globbing at run time.
 const migrations = [
@@ -33,6 +34,7 @@ const migrations = [
   { name: '0013-access-and-sign-in', ...accessAndSignIn },
   { name: '0014-plausible-ranges', ...plausibleRanges },
   { name: '0015-outbox', ...outbox },
+  { name: '0016-offline-records', ...offlineRecords },
 ];
 
 /** Every migration this code expects, in order (the readiness probe compares the database with it). */

@@ -25,6 +25,8 @@ export const fieldLabels: Record<string, string> = {
   // records in general
   version: 'Version (reload the page)',
   clientKey: 'Request key (reload the page)',
+  clientId: 'Record id on the device',
+  enteredAt: 'Time of entry',
   unitId: 'Unit',
   stationId: 'Station',
   id: 'Record',

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import './messages';
 import { isValidTimeZone } from '../station-time';
+import { offlineRecordFields } from './offline-record';
 
 const key = z.string().regex(/^[a-z][a-z0-9_]{1,39}$/, 'Lower-case letters, digits and _');
 const label = z.string().trim().min(1).max(80);
@@ -60,6 +61,8 @@ export const newLogEntrySchema = z.object({
   readingSetId: z.number().int().positive().nullable().optional(),
   flagId: z.number().int().positive().nullable().optional(),
   carryToHandover: z.boolean().default(false),
+  // Sent by a device that kept the entry offline.
+  ...offlineRecordFields,
 });
 export type NewLogEntry = z.infer<typeof newLogEntrySchema>;
 

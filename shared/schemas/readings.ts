@@ -3,6 +3,7 @@ import './messages';
 import { checkKeys, type CheckKey } from '../calc/check-catalog';
 import { plausibleKeys } from '../calc/plausibility';
 import { readingSetInputSchema } from './reading-set';
+import { offlineRecordFields } from './offline-record';
 
 /**
  * The readings and checks the person has seen outside the plausible range and confirmed; the server
@@ -14,6 +15,8 @@ const confirmOutsidePlausible = z.array(z.enum(plausibleKeys, { message: 'Unknow
 export const recordReadingSchema = readingSetInputSchema.omit({ unitId: true }).extend({
   takenAt: z.iso.datetime({ offset: true }).optional(),
   confirmOutsidePlausible,
+  // Sent by a device that kept the round offline; the reading's time is then the time entered.
+  ...offlineRecordFields,
 });
 export type RecordReadingInput = z.infer<typeof recordReadingSchema>;
 

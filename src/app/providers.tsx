@@ -12,7 +12,13 @@ function makeQueryClient() {
         // A 4xx will not get better by asking again.
         retry: (count, error) => !(error instanceof ApiError && error.status >= 400 && error.status < 500) && count < 2,
         refetchOnWindowFocus: true,
+        // Without a network a query still asks once: the service worker answers from its copy where it
+        // keeps one (what a round and a log entry need); retries wait for the network.
+        networkMode: 'offlineFirst',
       },
+      // A write is tried at once, never held silently while offline: rounds and log entries go to
+      // the device's queue (features/offline), anything else says the server could not be reached.
+      mutations: { networkMode: 'always' },
     },
   });
 }

@@ -32,7 +32,13 @@ export function rememberCsrfToken(token: string) {
 }
 async function ensureCsrfToken(): Promise<string> {
   if (csrfToken) return csrfToken;
-  const response = await fetch('/api/session/csrf', { credentials: 'same-origin' });
+  let response: Response;
+  try {
+    response = await fetch('/api/session/csrf', { credentials: 'same-origin' });
+  } catch {
+    // Said like any other request that never reached the server, so callers can tell (the offline queue keeps the record).
+    throw new ApiError(0, 'NETWORK', 'The server could not be reached; check the connection and try again');
+  }
   const body = (await response.json()) as { csrfToken: string };
   csrfToken = body.csrfToken;
   return csrfToken;

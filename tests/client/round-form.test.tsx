@@ -24,6 +24,7 @@ async function check(label: RegExp) {
 
 async function openRoundForm() {
   renderAppAt('/rounds?unit=1');
+  // The first test pays for loading the page's code on demand (its chunk and the offline queue's), seconds on a busy machine.
   const form = await screen.findByRole('form', { name: 'Record a round' }, { timeout: 5000 });
   return within(form);
 }

@@ -99,7 +99,7 @@ describe('logbook search', () => {
   it('indexes every kind of logbook record as it is written, and nothing from a rolled-back write', async () => {
     const author = ids.operator;
     const now = new Date();
-    const entry = await LogEntry.create({ unitId, position: 'control_room', category: 'operation', eventAt: now, enteredAt: now, shiftStart: now, late: false, authorId: author, text: 'plain entry', equipmentId: null, readingSetId: null, flagId: null, conditionId: null, carryToHandover: false });
+    const entry = await LogEntry.create({ unitId, position: 'control_room', category: 'operation', eventAt: now, enteredAt: now, receivedAt: now, clientId: null, shiftStart: now, late: false, authorId: author, text: 'plain entry', equipmentId: null, readingSetId: null, flagId: null, conditionId: null, carryToHandover: false });
     await LogAmendment.create({ entryId: entry.id, authorId: author, amendedAt: now, reason: 'wrong pump named', text: `It was ${word('amended')}` });
     const handover = await Handover.create({ unitId, shiftStart: new Date('2025-03-01T05:00:00Z'), handoverAt: new Date('2025-03-01T17:00:00Z'), outgoingCrewId: crewA, incomingCrewId: null, notesHtml: `<p>Watch the <strong>${word('notes')}</strong> trend</p>`, status: 'draft', createdBy: author, createdAt: now, submittedBy: null, submittedAt: null, acceptedBy: null, acceptedAt: null });
     const item = await HandoverItem.create({ handoverId: handover.id, kind: 'work_in_progress', title: `Screen cleaning ${word('item')}`, detail: null, reference: 'WP-77', priority: 'high', sourceId: null, createdBy: author, createdAt: now });
@@ -129,7 +129,7 @@ describe('logbook search', () => {
     const before = await db().query<{ n: number }>('SELECT COUNT(*) AS n FROM logbook_documents', { type: QueryTypes.SELECT });
     await expect(
       db().transaction(async (transaction) => {
-        await LogEntry.create({ unitId, position: 'control_room', category: 'operation', eventAt: now, enteredAt: now, shiftStart: now, late: false, authorId: author, text: word('rolledback'), equipmentId: null, readingSetId: null, flagId: null, conditionId: null, carryToHandover: false }, { transaction });
+        await LogEntry.create({ unitId, position: 'control_room', category: 'operation', eventAt: now, enteredAt: now, receivedAt: now, clientId: null, shiftStart: now, late: false, authorId: author, text: word('rolledback'), equipmentId: null, readingSetId: null, flagId: null, conditionId: null, carryToHandover: false }, { transaction });
         throw new Error('simulated failure after the insert');
       }),
     ).rejects.toThrow('simulated failure');

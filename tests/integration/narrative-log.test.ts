@@ -25,13 +25,17 @@ describe('POST /api/units/:unitId/log', () => {
     await post(await signedInAgent(built, (await makeUser('trainer')).email), `/api/units/${unitId}/log`, entry()).expect(403);
   });
 
-  it('sets the entry time from the server clock, whatever the client sends', async () => {
+  it('sets the entry time from the server clock, and refuses a device time from long ago rather than taking it', async () => {
     const before = Date.now();
-    const res = await post(operator, `/api/units/${unitId}/log`, { ...entry(), enteredAt: '2001-01-01T00:00:00Z' });
+    const res = await post(operator, `/api/units/${unitId}/log`, entry());
     expect(res.status).toBe(201);
     expect(Date.parse(res.body.enteredAt)).toBeGreaterThanOrEqual(before - 5);
     expect(Date.parse(res.body.enteredAt)).toBeLessThanOrEqual(Date.now() + 5);
     expect(res.body.late).toBe(false);
+    // A time of entry is taken only from a device that kept the entry offline, within 7 days (offline-records.test.ts).
+    const old = await post(operator, `/api/units/${unitId}/log`, { ...entry(), enteredAt: '2001-01-01T00:00:00Z' });
+    expect(old.status).toBe(400);
+    expect(old.body.error.fields.enteredAt).toMatch(/more than 7 days ago/);
   });
 
   it('marks an entry made more than the station’s 30 minutes after its event as late', async () => {

@@ -46,6 +46,8 @@ export async function seedDemoLog(sequelize: Sequelize, { stationId, unitId, oth
           category,
           eventAt,
           enteredAt: eventAt,
+          receivedAt: eventAt,
+          clientId: null,
           shiftStart: roster.shiftAt(eventAt),
           late: false,
           authorId: author.id,

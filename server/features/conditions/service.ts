@@ -95,7 +95,7 @@ export function makeConditionService(sequelize: Sequelize, log: LogService) {
       if (!condition) throw new NotFound('That condition');
       if (condition.closedAt) throw new Conflict('This condition is already closed');
       if (condition.version !== input.version) throw new Conflict('Someone else changed this condition; reload and try again');
-      const entry = await log.addEntry(
+      const { entry } = await log.addEntry(
         actor,
         condition.unitId,
         { position: input.position, category, text: `Closed condition “${condition.title}”: ${input.text}`, carryToHandover: true },

@@ -7,9 +7,16 @@ export class LogEntry extends Model<InferAttributes<LogEntry>, InferCreationAttr
   declare position: string;
   declare category: string;
   declare eventAt: Date;
+  /** When it was written: the server's clock, or the device's for a record kept offline. */
   declare enteredAt: Date;
+  /** When the server had it (the same as entered for an entry written online). */
+  declare receivedAt: Date;
   declare shiftStart: Date;
   declare late: boolean;
+  /** Arrived more than the station's late-entry minutes after it was entered (kept on a device). */
+  declare arrivedLate: CreationOptional<boolean>;
+  /** The device's id for it: a retry finds the stored entry instead of making a second. */
+  declare clientId: string | null;
   declare authorId: number;
   /** Written by a trainee (their role when writing it). */
   declare writtenAsTrainee: CreationOptional<boolean>;
@@ -49,8 +56,11 @@ export function initLogModels(sequelize: Sequelize) {
       category: DataTypes.STRING(40),
       eventAt: DataTypes.DATE(3),
       enteredAt: DataTypes.DATE(3),
+      receivedAt: DataTypes.DATE(3),
       shiftStart: DataTypes.DATE(3),
       late: DataTypes.BOOLEAN,
+      arrivedLate: { type: DataTypes.BOOLEAN, defaultValue: false },
+      clientId: DataTypes.CHAR(36),
       authorId: DataTypes.INTEGER.UNSIGNED,
       writtenAsTrainee: { type: DataTypes.BOOLEAN, defaultValue: false },
       text: DataTypes.TEXT,

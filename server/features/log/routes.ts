@@ -14,8 +14,18 @@ export function logRoutes(log: LogService): Router {
   });
 
   router.post('/units/:unitId/log', allow('log.write'), async (req, res) => {
-    const entry = await log.addEntry(req.user!, parseId(req.params.unitId, 'unitId'), parseInput(newLogEntrySchema, req.body));
-    res.status(201).json({ id: entry.id, late: entry.late, enteredAt: entry.enteredAt.toISOString(), shiftStart: entry.shiftStart.toISOString() });
+    const { entry, repeated } = await log.addEntry(req.user!, parseId(req.params.unitId, 'unitId'), parseInput(newLogEntrySchema, req.body));
+    // A retry of an entry already stored answers 200 with that entry, not 201 with a second.
+    res.status(repeated ? 200 : 201).json({
+      id: entry.id,
+      late: entry.late,
+      arrivedLate: entry.arrivedLate,
+      eventAt: entry.eventAt.toISOString(),
+      enteredAt: entry.enteredAt.toISOString(),
+      receivedAt: entry.receivedAt.toISOString(),
+      shiftStart: entry.shiftStart.toISOString(),
+      clientId: entry.clientId,
+    });
   });
 
   router.post('/log/:id/amendments', allow('log.amend'), async (req, res) => {

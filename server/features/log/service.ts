@@ -1,8 +1,9 @@
 // The narrative log: append-only entries, amendments beside them, late-entry marking by server
 // time, and the shift lead's end-of-shift review.
-import { Op, type Sequelize, type Transaction } from 'sequelize';
+import { Op, UniqueConstraintError, type Sequelize, type Transaction } from 'sequelize';
 import { recentShiftStarts, shiftStartFor, stationLocalLabel } from '../../../shared/shift-time';
 import type { NewLogEntry } from '../../../shared/schemas/log';
+import { arrivedLate, enteredAtProblem } from '../../../shared/schemas/offline-record';
 import { Conflict, Forbidden, NotFound, ValidationError } from '../../lib/errors';
 import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
@@ -48,19 +49,55 @@ async function checkLinks(unitId: number, input: NewLogEntry) {
   if (Object.keys(fields).length) throw new ValidationError(fields);
 }
 
+/** The entry this person already sent with this device id; null when none. */
+async function storedBefore(actor: Actor, unitId: number, clientId: string | undefined, transaction?: Transaction) {
+  if (!clientId) return null;
+  const found = await LogEntry.findOne({ where: { authorId: actor.id, clientId }, transaction, ...(transaction ? { lock: transaction.LOCK.SHARE } : {}) });
+  if (found && found.unitId !== unitId) throw new Conflict('This device already sent a log entry with that id for another unit');
+  return found;
+}
+
 export function makeLogService(sequelize: Sequelize) {
-  /** Writes one entry; inside `extra.transaction` when it is part of a larger unit of work (closing a condition). */
-  async function addEntry(actor: Actor, unitId: number, input: NewLogEntry, extra: { conditionId?: number; transaction?: Transaction } = {}) {
-    if (extra.transaction) return writeEntry(actor, unitId, input, extra.conditionId ?? null, extra.transaction);
-    return unitOfWork(sequelize, (transaction) => writeEntry(actor, unitId, input, null, transaction), 'log entry');
+  /**
+   * Writes one entry; inside `extra.transaction` when it is part of a larger unit of work (closing a
+   * condition). A retry with the same `clientId` answers with the entry stored the first time (`repeated`).
+   */
+  async function addEntry(actor: Actor, unitId: number, input: NewLogEntry, extra: { conditionId?: number; transaction?: Transaction } = {}): Promise<{ entry: LogEntry; repeated: boolean }> {
+    if (extra.transaction) return { entry: await writeEntry(actor, unitId, input, extra.conditionId ?? null, extra.transaction), repeated: false };
+    // A retry of an entry already stored is answered from it, even if it would be refused today.
+    const before = await storedBefore(actor, unitId, input.clientId);
+    if (before) return { entry: before, repeated: true };
+    return unitOfWork(
+      sequelize,
+      async (transaction) => {
+        try {
+          return { entry: await writeEntry(actor, unitId, input, null, transaction), repeated: false };
+        } catch (error) {
+          // Two sends of one entry at once: the unique (author, client id) lets one in; the other
+          // waited on it and answers with its row (a locking read sees the committed row).
+          if (error instanceof UniqueConstraintError && input.clientId) {
+            const again = await storedBefore(actor, unitId, input.clientId, transaction);
+            if (again) return { entry: again, repeated: true };
+          }
+          throw error;
+        }
+      },
+      'log entry',
+    );
   }
 
   async function writeEntry(actor: Actor, unitId: number, input: NewLogEntry, conditionId: number | null, transaction: Transaction) {
     const { settings } = await settingsForUnit(unitId);
     requireKnown(settings, input);
     await checkLinks(unitId, input);
-    // Entry time is the server's, whatever clock the client has; the event time is the person's.
-    const enteredAt = new Date();
+    const receivedAt = new Date();
+    // Entry time is the server's, whatever clock the client has, except for an entry kept on a
+    // device while offline: then it is when it was written there, within the bounds
+    // enteredAtProblem sets. The event time is the person's.
+    const deviceEnteredAt = input.enteredAt ? new Date(input.enteredAt) : null;
+    const problem = deviceEnteredAt ? enteredAtProblem(deviceEnteredAt, receivedAt) : null;
+    if (problem) throw new ValidationError({ enteredAt: problem });
+    const enteredAt = deviceEnteredAt && deviceEnteredAt < receivedAt ? deviceEnteredAt : receivedAt;
     const eventAt = input.eventAt ? new Date(input.eventAt) : enteredAt;
     if (eventAt.getTime() > enteredAt.getTime() + FUTURE_TOLERANCE_MS) throw new ValidationError({ eventAt: 'An event cannot be in the future' });
     if (enteredAt.getTime() - eventAt.getTime() > OLDEST_LATE_ENTRY_MS) throw new ValidationError({ eventAt: 'More than 31 days ago: ask the shift lead to record it as a communication' });
@@ -71,8 +108,11 @@ export function makeLogService(sequelize: Sequelize) {
       category: input.category,
       eventAt,
       enteredAt,
+      receivedAt,
       shiftStart: shiftStartFor(eventAt, settings.timeZone, settings.shiftChangeTimes),
       late: enteredAt.getTime() - eventAt.getTime() > settings.lateEntryMinutes * 60_000,
+      arrivedLate: arrivedLate(enteredAt, receivedAt, settings.lateEntryMinutes),
+      clientId: input.clientId ?? null,
       authorId: actor.id,
       writtenAsTrainee: actor.role === 'trainee',
       text: input.text,
@@ -162,8 +202,11 @@ export async function listEntries(unitId: number, q: LogQuery, viewer: LogActor)
       category: e.category,
       eventAt: e.eventAt.toISOString(),
       enteredAt: e.enteredAt.toISOString(),
+      receivedAt: e.receivedAt.toISOString(),
       shiftStart: e.shiftStart.toISOString(),
       late: e.late,
+      arrivedLate: e.arrivedLate,
+      clientId: e.clientId,
       author: people.get(e.authorId) ?? `#${e.authorId}`,
       authorId: e.authorId,
       writtenAsTrainee: e.writtenAsTrainee,
@@ -174,7 +217,8 @@ export async function listEntries(unitId: number, q: LogQuery, viewer: LogActor)
       flagId: e.flagId,
       conditionId: e.conditionId,
       carryToHandover: e.carryToHandover,
-      enteredAfterReview: review ? e.enteredAt > review.reviewedAt : false,
+      // By arrival: an entry written offline before the review but received after it was not seen by the reviewer.
+      enteredAfterReview: review ? e.receivedAt > review.reviewedAt : false,
       amendments: amendments
         .filter((a) => a.entryId === e.id)
         .map((a) => ({

@@ -2,6 +2,8 @@
 import type { Transaction } from 'sequelize';
 import { checkKeys } from '../../../shared/calc/check-catalog';
 import { evaluateReadingSet, type Evaluation, type ReadingSetSi } from '../../../shared/calc/evaluate';
+import { worstOf } from '../../../shared/calc/worst-status';
+export { worstOf };
 import type { Status } from '../../../shared/calc/limits';
 import type { UnitDesign } from '../../../shared/schemas/plant';
 import { startingPlausibleRanges } from '../../../shared/calc/plausibility';
@@ -16,17 +18,6 @@ export type Judged = {
   plausibleVersionId: number | null;
   worstStatus: Status;
 };
-
-const rank: Record<Status, number> = { unknown: 0, normal: 1, watch: 2, alarm: 3 };
-
-export function worstOf(evaluation: Evaluation): Status {
-  let worst: Status = 'normal';
-  for (const key of checkKeys) {
-    const status = evaluation.checks[key].status;
-    if (status !== 'unknown' && rank[status] > rank[worst]) worst = status;
-  }
-  return worst;
-}
 
 export async function judgeAt(unitId: number, takenAt: Date, si: ReadingSetSi, transaction?: Transaction): Promise<Judged> {
   const [design, limits, plausible] = await Promise.all([

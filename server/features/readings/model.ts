@@ -11,7 +11,14 @@ export class ReadingSet extends Model<InferAttributes<ReadingSet>, InferCreation
   declare id: CreationOptional<number>;
   declare unitId: number;
   declare takenAt: Date;
+  /** When it arrived (the server's clock). */
   declare recordedAt: Date;
+  /** When it was entered: the arrival for a round sent at once, the device's clock for one kept offline. */
+  declare enteredAt: Date;
+  /** Arrived more than the station's late-entry minutes after it was entered. */
+  declare arrivedLate: CreationOptional<boolean>;
+  /** The device's id for it: a retry finds the stored round instead of making a second. */
+  declare clientId: CreationOptional<string | null>;
   declare recordedBy: number;
   declare recordedAsTrainee: boolean;
   declare source: ReadingSource;
@@ -71,6 +78,9 @@ export function initReadingModels(sequelize: Sequelize) {
       unitId: DataTypes.INTEGER.UNSIGNED,
       takenAt: DataTypes.DATE(3),
       recordedAt: DataTypes.DATE(3),
+      enteredAt: DataTypes.DATE(3),
+      arrivedLate: { type: DataTypes.BOOLEAN, defaultValue: false },
+      clientId: { type: DataTypes.CHAR(36), defaultValue: null },
       recordedBy: DataTypes.INTEGER.UNSIGNED,
       recordedAsTrainee: DataTypes.BOOLEAN,
       source: DataTypes.ENUM('round', 'import'),

@@ -26,7 +26,9 @@ export function readingRoutes(readings: ReadingService): Router {
 
   router.post('/units/:unitId/readings', mayRecord, async (req, res) => {
     const input = parseInput(recordReadingSchema, req.body);
-    res.status(201).json(await readings.record(req.user!, parseId(req.params.unitId, 'unitId'), input));
+    const saved = await readings.record(req.user!, parseId(req.params.unitId, 'unitId'), input);
+    // A retry of a round already stored answers 200 with that round, not 201 with a second.
+    res.status(saved.repeated ? 200 : 201).json(saved);
   });
 
   router.get('/readings/:id', signedIn, async (req, res) => {

@@ -1,10 +1,11 @@
 // Rounds: record a reading set, correct it by amendment, countersign a trainee's round.
-import { Op, type Sequelize, type Transaction } from 'sequelize';
+import { Op, UniqueConstraintError, type Sequelize, type Transaction } from 'sequelize';
 import type { Evaluation, ReadingSetSi } from '../../../shared/calc/evaluate';
 import type { PlausibleKey } from '../../../shared/calc/plausibility';
 import { describeImplausible, noticesByField } from '../../../shared/plausibility-display';
 import type { ReadingSetInput } from '../../../shared/schemas/reading-set';
 import type { AmendReadingInput, RecordReadingInput } from '../../../shared/schemas/readings';
+import { arrivedLate, enteredAtProblem } from '../../../shared/schemas/offline-record';
 import { recordAudit } from '../../lib/audit';
 import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
@@ -37,6 +38,8 @@ export type StoreReading = {
   importKey: string | null;
   /** When it was written down; now unless the record is older history (the demo scenario). */
   recordedAt?: Date;
+  /** A round kept on a device: its id there and when it was entered (else entered as it arrived). */
+  offline?: { clientId: string | null; enteredAt: Date; lateEntryMinutes: number };
   /** What the recorder confirmed outside the plausible range; 'all' for history taken as it comes (imports). */
   confirmed: readonly PlausibleKey[] | 'all';
 };
@@ -67,11 +70,15 @@ export async function storeReading(r: StoreReading, transaction: Transaction): P
   const judged = await judgeAt(r.unitId, r.takenAt, r.si, transaction);
   const outsidePlausible = confirmedOutsidePlausible(judged, r.raw, r.si, r.confirmed);
   await takeFlagTurn(r.unitId, transaction, judged.evaluation);
+  const recordedAt = r.recordedAt ?? new Date();
   const reading = await ReadingSet.create(
     {
       unitId: r.unitId,
       takenAt: r.takenAt,
-      recordedAt: r.recordedAt ?? new Date(),
+      recordedAt,
+      enteredAt: r.offline?.enteredAt ?? recordedAt,
+      arrivedLate: r.offline ? arrivedLate(r.offline.enteredAt, recordedAt, r.offline.lateEntryMinutes) : false,
+      clientId: r.offline?.clientId ?? null,
       recordedBy: r.actor.id,
       recordedAsTrainee: r.actor.role === 'trainee',
       source: r.source,
@@ -107,6 +114,7 @@ export async function storeImportBatch(unitId: number, actor: Actor, rows: { tak
       unitId,
       takenAt: r.takenAt,
       recordedAt,
+      enteredAt: recordedAt,
       recordedBy: actor.id,
       recordedAsTrainee: actor.role === 'trainee',
       source: 'import' as const,
@@ -163,31 +171,62 @@ export async function roundIdsBetween(unitId: number, start: Date, end: Date) {
 }
 
 export function makeReadingService(sequelize: Sequelize) {
+  /** The round this person already sent with this device id, as the first answer gave it; null when none. */
+  async function storedBefore(actor: Actor, unitId: number, clientId: string | undefined, transaction?: Transaction) {
+    if (!clientId) return null;
+    const found = await ReadingSet.findOne({ where: { recordedBy: actor.id, clientId }, attributes: ['id', 'unitId'], transaction, ...(transaction ? { lock: transaction.LOCK.SHARE } : {}) });
+    if (found && found.unitId !== unitId) throw new Conflict('This device already sent a round with that id for another unit');
+    return found;
+  }
+
+  /** Records a round; a retry with the same `clientId` answers with the round stored the first time (`repeated`). */
   async function record(actor: Actor, unitId: number, input: RecordReadingInput) {
     const unit = await requireUnit(unitId);
-    const { takenAt: takenAtText, confirmOutsidePlausible, ...readings } = input;
-    const takenAt = takenAtText ? new Date(takenAtText) : new Date();
+    const { takenAt: takenAtText, confirmOutsidePlausible, clientId, enteredAt: enteredAtText, ...readings } = input;
+    // A retry of a round already stored is answered from it, even if it would be refused today.
+    const before = await storedBefore(actor, unitId, clientId);
+    if (before) return { ...(await getReading(before.id)), id: before.id, flagsRaised: 0, repeated: true };
+    const enteredAt = enteredAtText ? new Date(enteredAtText) : null;
+    const problem = enteredAt ? enteredAtProblem(enteredAt, new Date()) : null;
+    if (problem) throw new ValidationError({ enteredAt: problem });
+    // A round kept on a device was read when it was entered there, unless its author gave another time.
+    const takenAt = takenAtText ? new Date(takenAtText) : (enteredAt ?? new Date());
     checkTakenAt(takenAt);
-    const unjudged = unjudgedReason(takenAt, await versionStarts(unitId), (await settingsForStation(unit.stationId)).timeZone);
+    const settings = await settingsForStation(unit.stationId);
+    const unjudged = unjudgedReason(takenAt, await versionStarts(unitId), settings.timeZone);
     if (unjudged) throw new ValidationError({ takenAt: unjudged });
     const raw: ReadingSetInput = { ...readings, unitId };
     const si = convertReadingSet(raw);
-    const { reading, flagsRaised } = await unitOfWork(sequelize, async (transaction) => {
-      const stored = await storeReading(
-        { unitId, takenAt, raw, si, actor, source: 'round', importKey: null, confirmed: confirmOutsidePlausible ?? [] },
-        transaction,
-      );
+    const offline = clientId || enteredAt ? { clientId: clientId ?? null, enteredAt: enteredAt ?? new Date(), lateEntryMinutes: settings.lateEntryMinutes } : undefined;
+    const outcome = await unitOfWork(sequelize, async (transaction) => {
+      let stored: Awaited<ReturnType<typeof storeReading>>;
+      try {
+        stored = await storeReading(
+          { unitId, takenAt, raw, si, actor, source: 'round', importKey: null, confirmed: confirmOutsidePlausible ?? [], ...(offline ? { offline } : {}) },
+          transaction,
+        );
+      } catch (error) {
+        // Two sends of one round at once: the unique (author, client id) lets one in; the other
+        // waited on it and answers with its row (a locking read sees the committed row).
+        if (error instanceof UniqueConstraintError && clientId) {
+          const again = await storedBefore(actor, unitId, clientId, transaction);
+          if (again) return { repeatOf: again.id } as const;
+        }
+        throw error;
+      }
       const { outsidePlausible } = stored.reading;
       await recordAudit(
-        { actorId: actor.id, action: 'reading.record', entity: 'reading_set', entityId: stored.reading.id, after: { unitId, takenAt, worstStatus: stored.reading.worstStatus, outsidePlausible } },
+        { actorId: actor.id, action: 'reading.record', entity: 'reading_set', entityId: stored.reading.id, after: { unitId, takenAt, worstStatus: stored.reading.worstStatus, outsidePlausible, ...(offline ? { enteredAt: offline.enteredAt, clientId } : {}) } },
         transaction,
       );
       publish(transaction, { entity: 'reading', id: stored.reading.id, unitId });
       return stored;
     });
+    if ('repeatOf' in outcome) return { ...(await getReading(outcome.repeatOf)), id: outcome.repeatOf, flagsRaised: 0, repeated: true };
+    const { reading, flagsRaised } = outcome;
     // Presented from what was just written: no read back, so the work after the commit (while every
     // open board is being told) stays small.
-    return { id: reading.id, flagsRaised, ...presentReading(reading, [], null, new Map([[actor.id, actor.name ?? (await names([actor.id])).get(actor.id) ?? `#${actor.id}`]])) };
+    return { id: reading.id, flagsRaised, repeated: false, ...presentReading(reading, [], null, new Map([[actor.id, actor.name ?? (await names([actor.id])).get(actor.id) ?? `#${actor.id}`]])) };
   }
 
   async function amend(actor: Actor, readingSetId: number, input: AmendReadingInput) {
@@ -256,6 +295,9 @@ function presentReading(reading: ReadingSet, amendments: ReadingAmendment[], cou
       unitId: reading.unitId,
       takenAt: reading.takenAt.toISOString(),
       recordedAt: reading.recordedAt.toISOString(),
+      enteredAt: reading.enteredAt.toISOString(),
+      arrivedLate: reading.arrivedLate,
+      clientId: reading.clientId,
       recordedBy: who.get(reading.recordedBy) ?? `#${reading.recordedBy}`,
       recordedById: reading.recordedBy,
       recordedAsTrainee: reading.recordedAsTrainee,
@@ -296,7 +338,7 @@ export async function listReadings(unitId: number, options: { before?: Date; lim
     where,
     order: [['takenAt', 'DESC'], ['id', 'DESC']],
     limit: options.limit,
-    attributes: ['id', 'takenAt', 'recordedBy', 'recordedAsTrainee', 'source', 'worstStatus', 'raw', 'outsidePlausible'],
+    attributes: ['id', 'takenAt', 'recordedAt', 'enteredAt', 'arrivedLate', 'clientId', 'recordedBy', 'recordedAsTrainee', 'source', 'worstStatus', 'raw', 'outsidePlausible'],
   });
   const ids = readings.map((r) => r.id);
   const [amendments, countersigns] = await Promise.all([
@@ -315,6 +357,10 @@ export async function listReadings(unitId: number, options: { before?: Date; lim
   return readings.map((r) => ({
     id: r.id,
     takenAt: r.takenAt.toISOString(),
+    enteredAt: r.enteredAt.toISOString(),
+    recordedAt: r.recordedAt.toISOString(),
+    arrivedLate: r.arrivedLate,
+    clientId: r.clientId,
     recordedBy: who.get(r.recordedBy) ?? `#${r.recordedBy}`,
     recordedById: r.recordedBy,
     recordedAsTrainee: r.recordedAsTrainee,

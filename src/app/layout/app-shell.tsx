@@ -10,6 +10,7 @@ import { MainNav } from './main-nav';
 import { useConnected, useLiveUpdates } from '../use-live-updates';
 import { PendingOrdersPrompt } from '../../features/orders';
 import { Button } from '../../components/ui/button';
+import { OfflineStatus } from '../../features/offline';
 
 export function AppShell() {
   const { data: me, isPending, error } = useMe();
@@ -52,6 +53,7 @@ export function AppShell() {
             {me.crewName ? ` · Crew ${me.crewName}` : ''}
           </span>
           <div className="ml-auto flex items-center gap-2 text-sm sm:ml-0">
+            <OfflineStatus userId={me.id} />
             <Button tone="toggle" onClick={toggleTheme}>
               {theme === 'dark' ? '☀ Light' : '☾ Dark'}
             </Button>
@@ -63,7 +65,7 @@ export function AppShell() {
       </header>
       {connected ? null : (
         <p role="status" className="border-b-2 border-watch bg-panel px-4 py-2 text-center font-bold print:hidden" data-testid="offline">
-          ▲ Not connected to the server — this page is not being updated and may be out of date; changes are not saved until the connection is back.
+          ▲ Not connected to the server — this page is not being updated and may be out of date; rounds and log entries are kept on this device and sent when it is back; other changes are not saved until then.
         </p>
       )}
       <div className="print:hidden">

@@ -5,6 +5,7 @@ import { api } from '../../../lib/api-client';
 import { setupKeys } from '../../plant';
 import { logKeys, conditionKeys } from './log-keys';
 export { logKeys, conditionKeys };
+import { sendOrKeep, type QueuedRecord } from '../../offline';
 
 type NewCondition = z.output<typeof newConditionSchema>;
 
@@ -13,9 +14,13 @@ export type LogEntryView = {
   position: string;
   category: string;
   eventAt: string;
+  /** When it was written (on the device, for an entry kept offline) and when the server had it. */
   enteredAt: string;
+  receivedAt: string;
   shiftStart: string;
   late: boolean;
+  /** Arrived more than the station's late-entry minutes after it was written. */
+  arrivedLate: boolean;
   author: string;
   authorId: number;
   /** Written by a trainee. */
@@ -81,7 +86,13 @@ function useInvalidating<T, R>(fn: (input: T) => Promise<R>) {
   });
 }
 
-export const useAddEntry = (unitId: number) => useInvalidating((entry: NewLogEntry) => api.post<{ id: number; late: boolean }>(`/api/units/${unitId}/log`, entry));
+type SavedEntry = { id: number; late: boolean; arrivedLate: boolean };
+/** Sends the entry, or keeps it on the device when the server cannot be reached (`kept`). */
+export const useAddEntry = (unitId: number) =>
+  useInvalidating(
+    ({ entry, userId }: { entry: NewLogEntry; userId: number }): Promise<{ saved?: SavedEntry; kept?: QueuedRecord }> =>
+      sendOrKeep<SavedEntry>({ kind: 'log_entry', userId, unitId, payload: entry, summary: entry.text }),
+  );
 export const useAmendEntry = () => useInvalidating((a: { id: number; reason: string; text: string }) => api.post(`/api/log/${a.id}/amendments`, { reason: a.reason, text: a.text }));
 export const useSignReview = (unitId: number) => useInvalidating((r: { position: string; shiftStart: string }) => api.post(`/api/units/${unitId}/log/reviews`, r));
 export const useOpenCondition = (unitId: number) =>

@@ -1,4 +1,8 @@
+import { useEffect } from 'react';
 import { useWatch } from 'react-hook-form';
+import { formatStationTime, toStationInputValue } from '../../../../shared/station-time';
+import { discard, type QueuedRecord } from '../../offline';
+import { useMe } from '../../session';
 import { newLogEntrySchema, type StationSettings } from '../../../../shared/schemas/log';
 import { Button } from '../../../components/ui/button';
 import { FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
@@ -10,7 +14,9 @@ const field = 'rounded-md border border-line bg-field px-2 py-1';
 type Values = { text: string; category: string; eventAt: StationTimeValue; equipmentId: string; carryToHandover: boolean };
 
 /** One line, keyboard only: type, Enter. Category, time and links are optional extras. */
-export function EntryBar({ unitId, settings, position }: { unitId: number; settings: StationSettings; position: string }) {
+/** `fixing`: an entry refused on arrival, put back in the bar by its author; it leaves the device once the corrected one is saved or kept. */
+export function EntryBar({ unitId, settings, position, fixing = null, onFixed }: { unitId: number; settings: StationSettings; position: string; fixing?: QueuedRecord | null; onFixed?: () => void }) {
+  const { data: me } = useMe();
   const add = useAddEntry(unitId);
   const equipment = useEquipment(unitId);
   const schema = throughContract(
@@ -29,9 +35,24 @@ export function EntryBar({ unitId, settings, position }: { unitId: number; setti
   const equipmentId = useWatch({ control: form.control, name: 'equipmentId' });
   const textError = form.error('text');
   const tag = equipment.data?.find((e) => String(e.id) === equipmentId)?.tag;
+  useEffect(() => {
+    if (!fixing) return;
+    const p = fixing.payload as { text?: string; category?: string; eventAt?: string; equipmentId?: number | null; carryToHandover?: boolean };
+    form.reset({
+      text: p.text ?? '',
+      category: p.category ?? settings.categories[0]?.key ?? 'other',
+      eventAt: { text: toStationInputValue(p.eventAt ?? fixing.enteredAt, settings.timeZone), repeated: 'first' },
+      equipmentId: p.equipmentId ? String(p.equipmentId) : '',
+      carryToHandover: Boolean(p.carryToHandover),
+    });
+  }, [fixing, form, settings]);
   const onSubmit = form.submit(async (entry) => {
-    await add.mutateAsync(entry);
+    await add.mutateAsync({ entry, userId: me!.id });
     form.reset({ ...form.getValues(), text: '', eventAt: emptyStationTime, carryToHandover: false });
+    if (fixing) {
+      await discard(fixing.clientId);
+      onFixed?.();
+    }
   });
 
   return (
@@ -102,7 +123,14 @@ export function EntryBar({ unitId, settings, position }: { unitId: number; setti
         ))}
       </div>
       <FormFailure form={form} />
-      {add.data?.late ? <p className="text-sm font-bold text-watch">▲ Saved as a late entry (made well after the event).</p> : null}
+      {add.data?.saved?.late ? <p className="text-sm font-bold text-watch">▲ Saved as a late entry (made well after the event).</p> : null}
+      {add.data?.kept ? (
+        <p role="status" className="text-sm font-bold">
+          <span aria-hidden="true">⏳ </span>No connection to the server: the entry is kept on this device, waiting to send (entered{' '}
+          {formatStationTime(add.data.kept.enteredAt, settings.timeZone, 'datetime-seconds')}).
+        </p>
+      ) : null}
+      {fixing ? <p className="text-sm">The refused entry is in the bar: correct it and log it; the refused copy is then removed from this device.</p> : null}
     </form>
   );
 }

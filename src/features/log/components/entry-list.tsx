@@ -62,6 +62,11 @@ export function EntryList({ entries, settings }: { entries: LogEntryView[]; sett
                   ▲ late entry, written {local(e.enteredAt)}
                 </span>
               ) : null}
+              {e.arrivedLate ? (
+                <span className="rounded-full border-2 border-line px-2 text-xs font-bold" data-testid="arrived-late">
+                  <span aria-hidden="true">⧗ </span>arrived late: written {local(e.enteredAt)}, arrived {local(e.receivedAt)}
+                </span>
+              ) : null}
               {e.carryToHandover ? <span className="rounded-full border border-accent px-2 text-xs font-bold text-accent">⇢ handover</span> : null}
               {e.enteredAfterReview ? <span className="text-xs font-bold text-watch">entered after the review</span> : null}
             </div>

@@ -11,6 +11,7 @@ import { ConditionsPanel } from '../components/conditions-panel';
 import { EntryBar } from '../components/entry-bar';
 import { EntryList } from '../components/entry-list';
 import { Button } from '../../../components/ui/button';
+import { WaitingRecords, type QueuedRecord } from '../../offline';
 
 const field = 'rounded-md border border-line bg-field px-2 py-1';
 
@@ -23,6 +24,7 @@ export function LogPage() {
   const [position, setPosition] = useState<string | null>(null);
   const activePosition = position ?? me?.position ?? settings?.positions[0]?.key ?? '';
   const [filters, setFilters] = useState<LogFilters>({});
+  const [fixing, setFixing] = useState<QueuedRecord | null>(null);
   const log = useLog(unitId, filters);
   const review = useSignReview(unitId ?? 0);
   const mayWrite = me && can(me.role, 'log.write');
@@ -60,9 +62,10 @@ export function LogPage() {
                     ))}
                   </select>
                 </label>
-                <EntryBar unitId={unitId} settings={settings} position={activePosition} />
+                <EntryBar unitId={unitId} settings={settings} position={activePosition} fixing={fixing} onFixed={() => setFixing(null)} />
               </>
             ) : null}
+            {me ? <WaitingRecords kind="log_entry" unitId={unitId} userId={me.id} timeZone={settings.timeZone} onFix={setFixing} /> : null}
             <fieldset className="flex flex-wrap gap-2 rounded-lg border border-line bg-panel p-2 text-sm">
               <legend className="font-bold">Show</legend>
               <FilterSelect

@@ -6,10 +6,16 @@ import type { ReadingSetInput } from '../../../../shared/schemas/reading-set';
 import { api } from '../../../lib/api-client';
 import { invalidateForChange } from '../../../app/live-keys';
 import { readingKeys } from './reading-keys';
+import { sendOrKeep, type QueuedRecord } from '../../offline';
 
 export type ReadingSummary = {
   id: number;
   takenAt: string;
+  /** When it was entered (on the device, for a round kept offline) and when the server had it. */
+  enteredAt: string;
+  recordedAt: string;
+  /** Arrived more than the station's late-entry minutes after it was entered. */
+  arrivedLate: boolean;
   recordedBy: string;
   recordedById: number;
   recordedAsTrainee: boolean;
@@ -28,6 +34,8 @@ export type ReadingDetail = {
     unitId: number;
     takenAt: string;
     recordedAt: string;
+    enteredAt: string;
+    arrivedLate: boolean;
     recordedBy: string;
     recordedById: number;
     recordedAsTrainee: boolean;
@@ -62,13 +70,26 @@ export const readingQueryOptions = (id: number) =>
   queryOptions({ queryKey: readingKeys.detail(id), queryFn: () => api.get<ReadingDetail>(`/api/readings/${id}`) });
 export const useReading = (id: number) => useQuery(readingQueryOptions(id));
 
-type RecordInput = { unitId: number; reading: Omit<ReadingSetInput, 'unitId'> & { takenAt?: string; confirmOutsidePlausible?: PlausibleKey[] } };
+type RecordInput = {
+  unitId: number;
+  /** Who records it: a round kept on the device is sent only while this person is signed in. */
+  userId: number;
+  reading: Omit<ReadingSetInput, 'unitId'> & { takenAt?: string; confirmOutsidePlausible?: PlausibleKey[] };
+  /** For the device's list while it waits: a line of readings and the status judged here. */
+  summary: string;
+  worstStatus: Status;
+};
+export type SavedRound = ReadingDetail & { id: number; flagsRaised: number };
 
+/** Sends the round, or keeps it on the device when the server cannot be reached (`kept`). */
 export function useRecordReading() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ unitId, reading }: RecordInput) => api.post<ReadingDetail & { id: number; flagsRaised: number }>(`/api/units/${unitId}/readings`, reading),
-    onSuccess: (saved, { unitId }) => invalidateForChange(queryClient, { entity: 'reading', id: saved.id, unitId }),
+    mutationFn: ({ unitId, userId, reading, summary, worstStatus }: RecordInput) =>
+      sendOrKeep<SavedRound>({ kind: 'round', userId, unitId, payload: reading, summary, worstStatus }),
+    onSuccess: (outcome: { saved?: SavedRound; kept?: QueuedRecord }, { unitId }) => {
+      if (outcome.saved) invalidateForChange(queryClient, { entity: 'reading', id: outcome.saved.id, unitId });
+    },
   });
 }
 

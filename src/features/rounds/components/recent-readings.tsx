@@ -47,6 +47,11 @@ export function RecentReadings({ readings, timeZone }: { readings: ReadingSummar
               <td data-label="Status" className="py-1 pr-2">
                 <StatusBadge status={r.worstStatus} />
                 {r.amendments ? <span className="ml-1 text-xs text-muted">amended ×{r.amendments}</span> : null}
+                {r.arrivedLate ? (
+                  <span className="ml-1 text-xs font-bold" data-testid="arrived-late">
+                    <span aria-hidden="true">⧗ </span>arrived late (entered {formatStationTime(r.enteredAt, timeZone)}, arrived {formatStationTime(r.recordedAt, timeZone)})
+                  </span>
+                ) : null}
                 {r.outsidePlausible.length ? (
                   <span className="ml-1">
                     <OutsidePlausibleTag keys={r.outsidePlausible} />

@@ -10,17 +10,20 @@ import { ChecksSummary } from '../../../components/readings/checks-summary';
 import { ReadingFormFields } from '../../../components/readings/reading-form-fields';
 import { ConfirmOutsidePlausible, useOutsidePlausibleQuestion } from '../../../components/readings/plausibility';
 import { useCondenserDesign } from '../../../components/readings/get-condenser-design';
-import { boxLabels, emptyReadingForm, readingSetWire, roundFieldFor, type FormErrors, type ReadingFormValues } from '../../../components/readings/reading-form';
+import { boxLabels, emptyReadingForm, formValuesFromReading, readingSetWire, roundFieldFor, type FormErrors, type ReadingFormValues } from '../../../components/readings/reading-form';
 import { recordReadingSchema } from '../../../../shared/schemas/readings';
 import { FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
 import { loadUnitChoices, useRememberUnitChoices } from '../../../components/readings/unit-choices';
 import { useLiveEvaluation } from '../../../components/readings/use-live-evaluation';
 import { UnitPicker, useSelectedUnit } from '../../../components/readings/unit-picker';
 import { emptyStationTime, StationTimeInput, stationTimeToWire, useStationTimeFormField, type StationTimeValue } from '../../../components/station-time/station-time-input';
-import { formatStationTime } from '../../../../shared/station-time';
+import { formatStationTime, toStationInputValue } from '../../../../shared/station-time';
 import { pressureUnitLabels, temperatureUnits, type PressureUnit, type TemperatureUnit } from '../../../../shared/units';
 import { useMe } from '../../session';
 import { useReadings, useRecordReading, type ReadingSummary } from '../api/readings';
+import { WaitingRecords, discard, type QueuedRecord } from '../../offline';
+import { worstOf } from '../../../../shared/calc/worst-status';
+import type { ReadingSetInput } from '../../../../shared/schemas/reading-set';
 import { RecentReadings } from '../components/recent-readings';
 import { useWatchUnit } from '../../../app/use-live-updates';
 
@@ -37,6 +40,16 @@ function LastReadingHint({ last, timeZone }: { last: ReadingSummary | undefined;
 }
 
 type RoundValues = ReadingFormValues & { takenAt: StationTimeValue };
+
+/** The line a round kept on the device shows while it waits: the readings a person checks it by. */
+function roundSummary(reading: Omit<ReadingSetInput, 'unitId'>): string {
+  const q = (v: { value: number; unit: string } | null | undefined, labels: Record<string, { label: string } | string>) => {
+    if (!v) return '—';
+    const label = labels[v.unit];
+    return `${v.value} ${typeof label === 'string' ? label : (label?.label ?? v.unit)}`;
+  };
+  return `Pressure ${q(reading.pressure, pressureUnitLabels)}, hotwell ${q(reading.hotwellTemperature, temperatureUnits)}, CW in ${q(reading.cwInletTemperature, temperatureUnits)}, CW out ${q(reading.cwOutletTemperature, temperatureUnits)}`;
+}
 
 export function RoundsPage() {
   const { data: me } = useMe();
@@ -69,6 +82,14 @@ export function RoundsPage() {
   const takenAt = useStationTimeFormField(form, 'takenAt');
   const [refusal, setRefusal] = useState<string | null>(null);
   const checksPanelId = useId();
+  // A round refused on arrival, put back in the form by its author: it leaves the device once the corrected one is saved or kept.
+  const [fixing, setFixing] = useState<QueuedRecord | null>(null);
+  const fix = (queued: QueuedRecord) => {
+    const { takenAt: queuedTakenAt, confirmOutsidePlausible: _confirmed, ...raw } = queued.payload as Omit<ReadingSetInput, 'unitId'> & { takenAt?: string; confirmOutsidePlausible?: unknown };
+    const at = queuedTakenAt ?? queued.enteredAt;
+    form.reset({ ...formValuesFromReading({ ...raw, unitId: queued.unitId } as ReadingSetInput), takenAt: { text: toStationInputValue(at, timeZone), repeated: 'first' } });
+    setFixing(queued);
+  };
   const question = useOutsidePlausibleQuestion(live.notices);
   const mayRecord = me && can(me.role, 'reading.record');
   const boxErrors = Object.fromEntries(Object.keys(values).map((box) => [box, form.error(box)]).filter(([, message]) => message)) as FormErrors;
@@ -81,13 +102,21 @@ export function RoundsPage() {
         if (!unitId || question.mustAsk(confirmed)) return;
         const confirmOutsidePlausible = confirmed ? question.keys() : [];
         try {
-          await record.mutateAsync({ unitId, reading: { ...reading, ...(confirmOutsidePlausible.length ? { confirmOutsidePlausible } : {}) } });
+          await record.mutateAsync({
+            unitId,
+            userId: me!.id,
+            reading: { ...reading, ...(confirmOutsidePlausible.length ? { confirmOutsidePlausible } : {}) },
+            summary: roundSummary(reading),
+            worstStatus: live.evaluation ? worstOf(live.evaluation) : 'unknown',
+          });
         } catch (error) {
           if (question.takeRefusal(error)) return;
           throw error;
         }
         form.reset(blank());
         question.reset();
+        if (fixing) await discard(fixing.clientId);
+        setFixing(null);
       },
       (errors) => {
         // Empty required boxes are quiet while typing; on save each says it is missing.
@@ -114,15 +143,23 @@ export function RoundsPage() {
       <CautionNote />
       {me && roundWaitsForCountersign(me.role) ? <Notice kind="info">Your rounds are marked as a trainee’s and wait for an operator’s countersign.</Notice> : null}
       {unit ? <LastReadingHint last={readings.data?.[0]} timeZone={unit.timeZone} /> : null}
-      {record.isSuccess ? (
+      {record.data?.saved ? (
         <Notice kind="success">
           Round saved.{' '}
-          <Link className="underline" to={`/rounds/${record.data.id}`}>
+          <Link className="underline" to={`/rounds/${record.data.saved.id}`}>
             Open it
           </Link>
-          {record.data.flagsRaised ? ` — ${record.data.flagsRaised} new flag(s) raised.` : ''}
+          {record.data.saved.flagsRaised ? ` — ${record.data.saved.flagsRaised} new flag(s) raised.` : ''}
         </Notice>
       ) : null}
+      {record.data?.kept ? (
+        <Notice kind="info">
+          No connection to the server: the round is kept on this device, waiting to send (entered {formatStationTime(record.data.kept.enteredAt, timeZone, 'datetime-seconds')}). It is
+          sent by itself when the network is back.
+        </Notice>
+      ) : null}
+      {fixing ? <Notice kind="info">The refused round is in the form: correct it and save; the refused copy is then removed from this device.</Notice> : null}
+      {me && unitId ? <WaitingRecords kind="round" unitId={unitId} userId={me.id} timeZone={timeZone} onFix={fix} /> : null}
       {refusal ? <Notice kind="error">{refusal}</Notice> : null}
       <FormFailure form={form} summary={false} />
       {design.error ? <Notice kind="error">{design.error.message}</Notice> : null}

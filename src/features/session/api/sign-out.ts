@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 import { sessionKeys } from './session-keys';
+import { forgetOfflineCopies } from '../../offline';
 
 export const signOut = () => api.delete<void>('/api/session');
 
@@ -9,6 +10,8 @@ export function useSignOut() {
   return useMutation({
     mutationFn: signOut,
     onSuccess: () => {
+      // The next person on this device must not see this person's answers offline (their queued records stay theirs).
+      void forgetOfflineCopies();
       queryClient.clear();
       queryClient.setQueryData(sessionKeys.me(), null);
     },

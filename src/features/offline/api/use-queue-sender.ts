@@ -1,0 +1,51 @@
+import { useEffect, useState } from 'react';
+import { useQueryClient } from '@tanstack/react-query';
+import { invalidateForChange } from '../../../app/live-keys';
+import { loadQueue, sendQueued } from './offline-store';
+
+/** How often waiting records are tried while the page is open, besides `online` and app start. */
+export const RETRY_INTERVAL_MS = 30_000;
+
+/** Whether the browser says it has a network (it may still fail a request: the queue copes). */
+export function useOnline(): boolean {
+  const [online, setOnline] = useState(() => navigator.onLine);
+  useEffect(() => {
+    const update = () => setOnline(navigator.onLine);
+    window.addEventListener('online', update);
+    window.addEventListener('offline', update);
+    return () => {
+      window.removeEventListener('online', update);
+      window.removeEventListener('offline', update);
+    };
+  }, []);
+  return online;
+}
+
+/**
+ * Sends the signed-in person's waiting records: when the app starts, when the network returns and
+ * every 30 s. Other people's records stay until they sign in on this device.
+ */
+export function useQueueSender(userId: number | null) {
+  const queryClient = useQueryClient();
+  useEffect(() => {
+    if (userId === null) return;
+    const send = () => {
+      if (!navigator.onLine) return;
+      loadQueue()
+        .then(() =>
+          sendQueued(userId, (record, saved) =>
+            invalidateForChange(queryClient, { entity: record.kind === 'round' ? 'reading' : 'log_entry', id: saved.id, unitId: record.unitId }),
+          ),
+        )
+        // A device without IndexedDB (or with it refused) keeps nothing to send; the next try asks again.
+        .catch(() => undefined);
+    };
+    send();
+    window.addEventListener('online', send);
+    const timer = setInterval(send, RETRY_INTERVAL_MS);
+    return () => {
+      window.removeEventListener('online', send);
+      clearInterval(timer);
+    };
+  }, [userId, queryClient]);
+}
