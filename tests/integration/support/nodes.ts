@@ -62,7 +62,11 @@ export async function startNode(extra: Record<string, string | undefined> = {}):
     const match = /"port":(\d+)[^\n]*"msg":"listening/.exec(run.output());
     if (match) port = Number(match[1]);
     else if (run.child.exitCode !== null) throw new Error(`the node exited before listening:\n${run.output()}`);
-    else if (Date.now() - started > 30_000) throw new Error(`the node did not listen within 30 s:\n${run.output()}`);
+    else if (Date.now() - started > 30_000) {
+      // Not left running after the test run (it would hold its database connections and port).
+      run.child.kill('SIGKILL');
+      throw new Error(`the node did not listen within 30 s:\n${run.output()}`);
+    }
     else await new Promise((r) => setTimeout(r, 50));
   }
   return {
