@@ -11,6 +11,7 @@ import { io as connect, type Socket } from 'socket.io-client';
 import { QueryTypes } from 'sequelize';
 import { onPublished } from '../server/lib/live';
 import { percentile, startBench, type Client } from './lib/bench-harness';
+import { forgetReferenceData } from '../server/lib/reference-cache';
 
 const CLIENTS = Number(process.env.BENCH_CLIENTS ?? 200);
 // With 200 clients a round is 200 samples: over 100 rounds the p95 is the 95th-percentile round,
@@ -68,6 +69,8 @@ async function main() {
     const unitId = (await bench.sequelize.query<{ id: number }>('SELECT MIN(id) AS id FROM units', { type: QueryTypes.SELECT }))[0]!.id;
     // Submit and acceptance may happen at any time of the shift here, whatever the time of day.
     await bench.sequelize.query('UPDATE station_settings SET handover_window_before_minutes = 720, handover_window_after_minutes = 0');
+    // Behind the models' back: the server in this process must not keep the settings it cached before.
+    forgetReferenceData();
     const started = await outgoing.call(`/api/units/${unitId}/handovers/current`, { method: 'POST', headers: { 'x-csrf-token': outgoing.csrf }, body: '{}' });
     if (started.status !== 201) throw new Error(`start the handover: HTTP ${started.status} ${await started.text()}`);
     const board = ((await started.json()) as { board: { handover: { id: number } } }).board;

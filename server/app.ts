@@ -191,7 +191,9 @@ export function createApp(
 
   const root = process.cwd();
   app.use('/fonts', express.static(path.join(root, 'fonts'), { maxAge: '30d', immutable: true }));
-  app.use('/assets', ...builtAssets(path.join(root, 'dist', 'assets')));
+  // A built file that is not there (an old page asking for a chunk of the previous build) is a 404,
+  // never the single page: a browser would refuse that HTML as a script, and an offline cache keep it.
+  app.use('/assets', ...builtAssets(path.join(root, 'dist', 'assets')), (_req: express.Request, _res: express.Response, next: express.NextFunction) => next(new NotFound('That built file')));
   app.use(express.static(path.join(root, 'dist'), { index: false }));
   // Client-side routes all load the single page.
   app.get(/^\/(?!api\/).*/, (_req, res, next) => {

@@ -20,10 +20,16 @@ import { loadUsersPage } from '../features/admin-users';
 import { loadShiftsPage } from '../features/shifts';
 import { loadAuditPage } from '../features/audit';
 import { loadOverviewPage } from '../features/overview';
+import { forgetOfflineCopies, noteSignedInPerson } from '../features/offline';
 
 export function createAppRouter(queryClient: QueryClient) {
   // Any 401 from the API means the session ended (expiry, deactivation, restart of the store).
-  setSignedOutHandler(() => queryClient.setQueryData(sessionKeys.me(), null));
+  // The device's offline copies of this person's answers go with the session.
+  setSignedOutHandler(() => {
+    noteSignedInPerson(null);
+    void forgetOfflineCopies();
+    queryClient.setQueryData(sessionKeys.me(), null);
+  });
   return createBrowserRouter([
     { path: '/sign-in', lazy: async () => ({ Component: await loadSignInPage() }) },
     {

@@ -39,7 +39,9 @@ async function ensureCsrfToken(): Promise<string> {
     // Said like any other request that never reached the server, so callers can tell (the offline queue keeps the record).
     throw new ApiError(0, 'NETWORK', 'The server could not be reached; check the connection and try again');
   }
-  const body = (await response.json()) as { csrfToken: string };
+  // A proxy's error page (the app down behind it) is not JSON: said as its status, like any answer.
+  const body = (await response.json().catch(() => null)) as { csrfToken?: string } | null;
+  if (!response.ok || !body?.csrfToken) throw new ApiError(response.ok ? 502 : response.status, 'NO_TOKEN', `The server answered ${response.status} without a form token; try again`);
   csrfToken = body.csrfToken;
   return csrfToken;
 }

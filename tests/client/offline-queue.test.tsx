@@ -3,7 +3,7 @@
 // what a refusal or a sign-in answer does, and that another person's records wait for them.
 import { act, render, screen, within } from '@testing-library/react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import { discard, replaceQueueStorage, sendOrKeep, sendQueued, loadQueue } from '../../src/features/offline/api/offline-store';
+import { discard, noteSignedInPerson, replaceQueueStorage, sendOrKeep, sendQueued, loadQueue } from '../../src/features/offline/api/offline-store';
 import { sendWaiting, type QueueStorage, type QueuedRecord } from '../../src/features/offline/api/queue';
 import { WaitingRecords } from '../../src/features/offline/components/waiting-records';
 import { ApiError } from '../../src/lib/api-client';
@@ -23,6 +23,8 @@ let storage: ReturnType<typeof memoryStorage>;
 beforeEach(() => {
   storage = memoryStorage();
   replaceQueueStorage(storage);
+  // Person 7 is signed in on the page unless a test says otherwise.
+  noteSignedInPerson(7);
 });
 afterEach(() => vi.restoreAllMocks());
 
@@ -58,6 +60,17 @@ describe('keeping a record on the device', () => {
   });
 });
 
+describe('keeping a record when the app is down behind its proxy', () => {
+  it('keeps it on a 502, 503 or 504 from the proxy, as when the network is gone', async () => {
+    for (const status of [502, 503, 504]) {
+      fakeServer({ 'GET /api/session/csrf': { body: { csrfToken: 't' } }, 'POST /api/units/1/log': { status, body: { error: { code: 'DOWN', message: 'Bad gateway' } } } });
+      const outcome = await sendOrKeep(entry(`Answer ${status}`));
+      expect(outcome.kept?.state).toBe('waiting');
+    }
+    expect(storage.rows.size).toBe(3);
+  });
+});
+
 describe('sending what waits', () => {
   async function keepThree() {
     offline();
@@ -75,6 +88,26 @@ describe('sending what waits', () => {
     expect(outcome).toEqual({ sent: 3, refused: 0, stopped: null });
     expect(server.writes().map((w) => w.body)).toEqual([a, b, c].map((r) => ({ ...r.payload, clientId: r.clientId, enteredAt: r.enteredAt })));
     expect(storage.rows.size).toBe(0);
+  });
+
+  it('stops sending when its author signs out mid-pass and the next person signs in: nothing goes out under their session', async () => {
+    const [a, b, c] = await keepThree();
+    const server = fakeServer({
+      'GET /api/session/csrf': { body: { csrfToken: 't' } },
+      'POST /api/units/1/log': () => {
+        // Shift change on the same tablet while the first record is on its way.
+        noteSignedInPerson(8);
+        return { status: 201, body: { id: 1 } };
+      },
+    });
+    const outcome = await sendQueued(7, () => undefined);
+    expect(outcome).toEqual({ sent: 1, refused: 0, stopped: 'signed-out' });
+    expect(server.writes()).toHaveLength(1);
+    expect([...storage.rows.values()].map((r) => [r.clientId, r.state])).toEqual([
+      [b.clientId, 'waiting'],
+      [c.clientId, 'waiting'],
+    ]);
+    expect(storage.rows.has(a.clientId)).toBe(false);
   });
 
   it('keeps a refused record with the server’s reason and field messages, and goes on with the next', async () => {

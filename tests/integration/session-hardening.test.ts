@@ -83,3 +83,11 @@ describe('Cache-Control on API answers', () => {
     });
   });
 });
+
+describe('built files', () => {
+  it('answers 404 for a built file that is not there (a chunk of an earlier build), never the single page', async () => {
+    const res = await request(built.app).get('/assets/page-OldBuild1.js');
+    expect(res.status).toBe(404);
+    expect(res.headers['content-type']).not.toMatch(/text\/html/);
+  });
+});

@@ -18,7 +18,9 @@ export function RichTextEditor({ label, initialHtml = '', onChange, autofocus = 
     if (!autofocus || !editor) return;
     // The caret goes to the end where the browser can place it there (Selection.modify; test DOMs lack it).
     const canPlaceAtEnd = typeof (window.getSelection() as (Selection & { modify?: unknown }) | null)?.modify === 'function';
-    editor.commands.focus(canPlaceAtEnd ? 'end' : null);
+    // Through a chain: a remount (the notes restored from the device) may run this for an editor
+    // already torn down, whose `commands` is gone; its chain does nothing instead of throwing.
+    editor.chain().focus(canPlaceAtEnd ? 'end' : null).run();
   }, [autofocus, editor]);
   if (!editor) return null;
   const tool = (name: string, active: boolean, run: () => void) => (

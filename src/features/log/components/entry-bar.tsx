@@ -49,7 +49,8 @@ export function EntryBar({ unitId, settings, position, fixing = null, onFixed }:
   const onSubmit = form.submit(async (entry) => {
     await add.mutateAsync({ entry, userId: me!.id });
     form.reset({ ...form.getValues(), text: '', eventAt: emptyStationTime, carryToHandover: false });
-    if (fixing) {
+    // The refused copy goes only when its correction was logged on its own unit.
+    if (fixing && fixing.unitId === unitId) {
       await discard(fixing.clientId);
       onFixed?.();
     }

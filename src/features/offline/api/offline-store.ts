@@ -2,7 +2,7 @@
 // list and the indicator subscribe to; and the two ways a record gets to the server (at once, or
 // later from the queue).
 import { useEffect, useSyncExternalStore } from 'react';
-import { api } from '../../../lib/api-client';
+import { api, ApiError } from '../../../lib/api-client';
 import { idbQueueStorage } from './idb-storage';
 import { inEntryOrder, isUnreachable, sendWaiting, type QueueStorage, type QueuedKind, type QueuedRecord, type SendOutcome } from './queue';
 
@@ -81,16 +81,29 @@ export async function discard(clientId: string) {
   await reload();
 }
 
-let sending: Promise<SendOutcome> | null = null;
+// Who the page's session belongs to now. A record goes out with whatever session cookie the page
+// holds at that moment, so each send first checks it is still its author's: at shift change one
+// person signs out and the next signs in on the same tablet while a slow pass is still sending.
+let sessionUserId: number | null = null;
+export function noteSignedInPerson(userId: number | null) {
+  sessionUserId = userId;
+}
 
-/** Sends the person's waiting records in order of entry (one pass at a time); `onSent` after each stored one. */
+const sending = new Map<number, Promise<SendOutcome>>();
+
+/** Sends the person's waiting records in order of entry (one pass per person at a time); `onSent` after each stored one. */
 export function sendQueued(userId: number, onSent: (record: QueuedRecord, saved: { id: number }) => void): Promise<SendOutcome> {
-  sending ??= sendWaiting(storage, userId, async (record) => {
+  const running = sending.get(userId);
+  if (running) return running;
+  const pass = sendWaiting(storage, userId, async (record) => {
+    // Treated as a signed-out answer: the pass stops and the record waits for its author.
+    if (sessionUserId !== userId) throw new ApiError(401, 'SIGNED_OUT', 'Sign in as the person who entered this record to send it');
     const saved = await api.post<{ id: number }>(pathFor(record.kind, record.unitId), { ...record.payload, clientId: record.clientId, enteredAt: record.enteredAt });
     onSent(record, saved);
   }).finally(() => {
-    sending = null;
+    sending.delete(userId);
     void reload().catch(() => undefined);
   });
-  return sending;
+  sending.set(userId, pass);
+  return pass;
 }

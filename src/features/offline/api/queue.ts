@@ -59,7 +59,7 @@ export async function sendWaiting(storage: QueueStorage, userId: number, send: (
         outcome.refused += 1;
         continue;
       }
-      outcome.stopped = !(error instanceof ApiError) || error.status === 0 ? 'network' : error.status === 401 || error.status === 403 ? 'signed-out' : 'server';
+      outcome.stopped = !(error instanceof ApiError) || isUnreachable(error) ? 'network' : error.status === 401 || error.status === 403 ? 'signed-out' : 'server';
       return outcome;
     }
     await storage.remove(record.clientId);
@@ -68,5 +68,8 @@ export async function sendWaiting(storage: QueueStorage, userId: number, send: (
   return outcome;
 }
 
-/** A failure that means the server was never reached: the record is kept on the device. */
-export const isUnreachable = (error: unknown) => error instanceof ApiError && error.status === 0;
+// What a proxy or balancer in front answers while the app behind it is down or restarting.
+const GATEWAY_DOWN = new Set([502, 503, 504]);
+
+/** A failure that means the app was never reached (no network, or its proxy says it is down): the record is kept on the device. */
+export const isUnreachable = (error: unknown) => error instanceof ApiError && (error.status === 0 || GATEWAY_DOWN.has(error.status));

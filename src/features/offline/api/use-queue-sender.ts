@@ -1,7 +1,7 @@
 import { useEffect, useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import { invalidateForChange } from '../../../app/live-keys';
-import { loadQueue, sendQueued } from './offline-store';
+import { loadQueue, noteSignedInPerson, sendQueued } from './offline-store';
 
 /** How often waiting records are tried while the page is open, besides `online` and app start. */
 export const RETRY_INTERVAL_MS = 30_000;
@@ -28,6 +28,7 @@ export function useOnline(): boolean {
 export function useQueueSender(userId: number | null) {
   const queryClient = useQueryClient();
   useEffect(() => {
+    noteSignedInPerson(userId);
     if (userId === null) return;
     const send = () => {
       if (!navigator.onLine) return;
@@ -44,6 +45,7 @@ export function useQueueSender(userId: number | null) {
     window.addEventListener('online', send);
     const timer = setInterval(send, RETRY_INTERVAL_MS);
     return () => {
+      noteSignedInPerson(null);
       window.removeEventListener('online', send);
       clearInterval(timer);
     };

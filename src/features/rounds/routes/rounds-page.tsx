@@ -115,7 +115,8 @@ export function RoundsPage() {
         }
         form.reset(blank());
         question.reset();
-        if (fixing) await discard(fixing.clientId);
+        // The refused copy goes only when its correction was saved on its own unit (the picker may have moved on).
+        if (fixing && fixing.unitId === unitId) await discard(fixing.clientId);
         setFixing(null);
       },
       (errors) => {
