@@ -8,6 +8,7 @@ import { AuditEvent } from '../../server/features/audit/model';
 import { LogEntry } from '../../server/features/log/model';
 import { ReadingSet } from '../../server/features/readings/model';
 import { buildApp, closeAll, makeUnit, makeUser, signedInAgent, type Agent } from './support/test-app';
+import { roundInsideLimits } from '../fixtures/round-inside-limits';
 
 afterAll(closeAll);
 const built = buildApp();
@@ -19,16 +20,8 @@ beforeAll(async () => {
   operator = await signedInAgent(built, (await makeUser('operator')).email);
 });
 
-// Inside every limit (as in rounds.test.ts): 28.5 inHg vacuum against 29.92 inHg = 4.81 kPa a.
-const round = (overrides: Record<string, unknown> = {}) => ({
-  pressure: { value: 28.5, unit: 'inHg_vac' },
-  barometer: { value: 29.92, unit: 'inHgA' },
-  hotwellTemperature: { value: 31.5, unit: 'degC' },
-  cwInletTemperature: { value: 18, unit: 'degC' },
-  cwOutletTemperature: { value: 26.5, unit: 'degC' },
-  cwFlow: { value: 54_000, unit: 'm3_h' },
-  ...overrides,
-});
+// Inside every limit: 4.81 kPa a (see the fixture).
+const round = roundInsideLimits;
 const entry = (overrides: Record<string, unknown> = {}) => ({ position: 'control_room', category: 'operation', text: 'Basin level checked at the pump house.', ...overrides });
 const post = (agent: Agent, path: string, body: unknown) => agent.post(path).set('X-CSRF-Token', agent.csrf).send(body as object);
 const minutesAgo = (m: number) => new Date(Date.now() - m * 60_000).toISOString();

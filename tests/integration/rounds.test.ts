@@ -5,6 +5,7 @@ import { LimitSetVersion } from '../../server/features/plant/model';
 import { ReadingSet, ReadingValue } from '../../server/features/readings/model';
 import { startingLimits } from '../../shared/calc/limits';
 import { anonymousAgent, buildApp, closeAll, makeUnit, makeUser, signedInAgent } from './support/test-app';
+import { roundInsideLimits } from '../fixtures/round-inside-limits';
 
 afterAll(closeAll);
 const built = buildApp();
@@ -13,16 +14,8 @@ beforeAll(async () => {
   unitId = (await makeUnit()).id;
 });
 
-// 28.5 inHg vacuum against a 29.92 inHg barometer = 1.42 inHgA = 4.81 kPa a; Ts(4.81 kPa) ≈ 32.0 °C (steam tables).
-const round = (overrides: Record<string, unknown> = {}) => ({
-  pressure: { value: 28.5, unit: 'inHg_vac' },
-  barometer: { value: 29.92, unit: 'inHgA' },
-  hotwellTemperature: { value: 31.5, unit: 'degC' },
-  cwInletTemperature: { value: 18, unit: 'degC' },
-  cwOutletTemperature: { value: 26.5, unit: 'degC' },
-  cwFlow: { value: 54_000, unit: 'm3_h' },
-  ...overrides,
-});
+// Inside every limit: 4.81 kPa a (see the fixture).
+const round = roundInsideLimits;
 
 describe('POST /api/units/:unitId/readings', () => {
   it('answers 401 signed out and 403 to a trainer', async () => {
