@@ -6,9 +6,16 @@ import { startPrivateMariaDb } from './lib/private-mariadb.mjs';
 import { startPrivateRedis } from './lib/private-redis.mjs';
 import { ensureChromium } from './lib/system-packages.mjs';
 import { runLocal, runLocalOrExit } from './lib/run.mjs';
+import { playwrightFailures, vitestFailures } from './lib/failure-digest.mjs';
+import { mkdirSync, rmSync } from 'node:fs';
 
 const dbPort = Number(process.env.HOTWELL_TEST_DB_PORT ?? 3418);
 const results = [];
+// Each runner also writes a JSON report here; the summary lists the failed tests from them.
+const reports = '.data/test-reports';
+rmSync(reports, { recursive: true, force: true });
+mkdirSync(reports, { recursive: true });
+const vitestReport = (project) => ['--reporter=default', '--reporter=json', `--outputFile.json=${reports}/${project}.json`];
 let database = null;
 let redis = null;
 let mail = null;
@@ -73,17 +80,17 @@ try {
 
   await step('typecheck', () => runLocal('tsc', ['-p', 'tsconfig.json', '--noEmit']));
   await step('lint', () => runLocal('eslint', ['.', '--max-warnings=0']));
-  await step('vitest unit', () => runLocal('vitest', ['run', '--project', 'unit']));
-  await step('vitest client', () => runLocal('vitest', ['run', '--project', 'client']));
+  await step('vitest unit', () => runLocal('vitest', ['run', '--project', 'unit', ...vitestReport('unit')]));
+  await step('vitest client', () => runLocal('vitest', ['run', '--project', 'client', ...vitestReport('client')]));
   // On its own, so nothing else competes with the shared database while its files run in turn.
-  await step('vitest integration', () => runLocal('vitest', ['run', '--project', 'integration'], { TEST_DATABASE_URL: integrationUrl, TEST_REDIS_URL: redisUrl }));
+  await step('vitest integration', () => runLocal('vitest', ['run', '--project', 'integration', ...vitestReport('integration')], { TEST_DATABASE_URL: integrationUrl, TEST_REDIS_URL: redisUrl }));
   // Its own MariaDB (HOTWELL_FAULT_DB_PORT, default 3421), killed and restarted mid-run.
   await step('fault test', () => runLocal('tsx', ['scripts/test-faults.ts']));
   await step('client build', () => runLocal('vite', ['build', '--logLevel', 'warn']));
   const { startMailCatcher } = await import('./lib/mail-catcher.mjs');
   mail = await startMailCatcher({ smtpPort: 0, viewerPort: 0 });
   await step('playwright e2e', () =>
-    runLocal('playwright', ['test'], { E2E_DATABASE_URL: e2eUrl, CHROMIUM_PATH: chromium, SMTP_URL: mail.smtpUrl, MAIL_VIEWER_URL: mail.viewerUrl }),
+    runLocal('playwright', ['test', '--reporter=list,json'], { PLAYWRIGHT_JSON_OUTPUT_NAME: `${reports}/e2e.json`, E2E_DATABASE_URL: e2eUrl, CHROMIUM_PATH: chromium, SMTP_URL: mail.smtpUrl, MAIL_VIEWER_URL: mail.viewerUrl }),
   );
 } catch (error) {
   console.error(`\n[test] set-up failed: ${error.message}`);
@@ -94,5 +101,13 @@ try {
 
 console.log('\n=== summary ===');
 for (const r of results) console.log(`${r.ok ? 'PASS' : 'FAIL'}  ${r.name}  (${r.seconds.toFixed(1)} s)`);
+const failedTests = [
+  ...['unit', 'client', 'integration'].flatMap((p) => vitestFailures(`${reports}/${p}.json`)),
+  ...playwrightFailures(`${reports}/e2e.json`),
+];
+if (failedTests.length) {
+  console.log(`\n=== failed tests (${failedTests.length}) ===`);
+  for (const line of failedTests) console.log(`- ${line}`);
+}
 const failed = results.filter((r) => !r.ok).length;
 process.exit(failed === 0 ? 0 : 1);

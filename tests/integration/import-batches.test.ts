@@ -49,14 +49,13 @@ describe('an import in batches', () => {
     fieldOperator = await signedInAgent(built, (await makeUser('operator')).email);
   });
 
-  it('lets rounds on the same unit through while 5 000 rows go in: each answers 201 within 2 s', { timeout: 240_000 }, async () => {
+  it('lets rounds on the same unit through while 5 000 rows go in: each is stored before the import ends', { timeout: 240_000 }, async () => {
     const unit = await makeUnit();
     const file = hourlyCsv(5000);
-    const started = Date.now();
     let finished = false;
     const importing = upload(operator, unit.id, file).then((res) => {
       finished = true;
-      return { res, ms: Date.now() - started };
+      return { res };
     });
     // Mid-way: once some batches are in and most of the file is still to come.
     let stored = 0;
@@ -64,21 +63,19 @@ describe('an import in batches', () => {
       await new Promise((r) => setTimeout(r, 100));
       stored = await ReadingSet.count({ where: { unitId: unit.id } });
     }
-    const timings: { status: number; ms: number }[] = [];
+    // Whether each round was answered before the import ended: a round held behind the whole import is
+    // answered only after it. (How long a round takes under load is bench:load's to measure, not a test's.)
+    const answered: { status: number; importStillRunning: boolean }[] = [];
     // One round inside its limits (waits only on the foreign key), one past the watch limit (takes the unit's turn).
     for (const round of [vacuumRound(28.5), vacuumRound(26.5, 45), vacuumRound(28.5), vacuumRound(26.5, 45)]) {
-      const t0 = Date.now();
       const res = await fieldOperator.post(`/api/units/${unit.id}/readings`).set('X-CSRF-Token', fieldOperator.csrf).send(round);
-      timings.push({ status: res.status, ms: Date.now() - t0 });
+      answered.push({ status: res.status, importStillRunning: !finished });
     }
     const storedWhenRoundsDone = await ReadingSet.count({ where: { unitId: unit.id, source: 'import' } });
-    const { res, ms } = await importing;
+    const { res } = await importing;
     // The rounds really were saved mid-import, not after it.
     expect(storedWhenRoundsDone, 'the rounds waited for the whole import').toBeLessThan(5000);
-    for (const t of timings) {
-      expect(t.status).toBe(201);
-      expect(t.ms, `a round took ${t.ms} ms during an import that took ${ms} ms`).toBeLessThan(2000);
-    }
+    expect(answered).toEqual(answered.map(() => ({ status: 201, importStillRunning: true })));
     expect(res.status, JSON.stringify(res.body)).toBe(201);
     expect(res.body).toMatchObject({ imported: 5000, alreadyThere: 0, batches: 50, batchRows: 100 });
     expect(await ReadingSet.count({ where: { unitId: unit.id } })).toBe(5004);

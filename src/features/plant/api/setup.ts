@@ -1,3 +1,4 @@
+import { useCallback, useState } from 'react';
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { LimitSet } from '../../../../shared/calc/limits';
 import type { PlausibleRanges } from '../../../../shared/calc/plausibility';
@@ -29,15 +30,30 @@ type Change =
   | { kind: 'plausible'; ranges: PlausibleRanges; note: string }
   | { kind: 'equipment'; equipment: { kind: string; tag: string; name: string } };
 
-export function useChangeSetup(unitId: number) {
+export type VersionKind = 'design' | 'limits' | 'plausible';
+/** Told the version a save created, before the page refetches: the page redraws its forms for the new version, so the form itself cannot hold the confirmation. */
+export type OnVersionSaved = (kind: VersionKind, versionId: number) => void;
+
+export function useChangeSetup(unitId: number, onVersionSaved?: OnVersionSaved) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (change: Change) => {
-      if (change.kind === 'design') return api.post(`/api/plant/units/${unitId}/design-versions`, { design: change.design, note: change.note });
-      if (change.kind === 'limits') return api.post(`/api/plant/units/${unitId}/limit-versions`, { limits: change.limits, note: change.note });
-      if (change.kind === 'plausible') return api.post(`/api/plant/units/${unitId}/plausible-range-versions`, { ranges: change.ranges, note: change.note });
-      return api.post(`/api/plant/units/${unitId}/equipment`, change.equipment);
+      if (change.kind === 'design') return api.post<{ versionId: number }>(`/api/plant/units/${unitId}/design-versions`, { design: change.design, note: change.note });
+      if (change.kind === 'limits') return api.post<{ versionId: number }>(`/api/plant/units/${unitId}/limit-versions`, { limits: change.limits, note: change.note });
+      if (change.kind === 'plausible') return api.post<{ versionId: number }>(`/api/plant/units/${unitId}/plausible-range-versions`, { ranges: change.ranges, note: change.note });
+      return api.post<{ versionId?: number }>(`/api/plant/units/${unitId}/equipment`, change.equipment);
     },
-    onSuccess: () => invalidateForChange(queryClient, { entity: 'plant', id: unitId, unitId }),
+    onSuccess: (result, change) => {
+      if (change.kind !== 'equipment' && typeof result.versionId === 'number') onVersionSaved?.(change.kind, result.versionId);
+      return invalidateForChange(queryClient, { entity: 'plant', id: unitId, unitId });
+    },
   });
+}
+
+/** The versions this person saved on this page, per unit: a form says “Saved” while the version in force is the one they saved. */
+export function useVersionsSavedHere(unitId: number | null) {
+  const [saved, setSaved] = useState<{ unitId: number | null; versions: Partial<Record<VersionKind, number>> }>({ unitId, versions: {} });
+  const versions = saved.unitId === unitId ? saved.versions : {};
+  const onVersionSaved = useCallback<OnVersionSaved>((kind, versionId) => setSaved((s) => ({ unitId, versions: { ...(s.unitId === unitId ? s.versions : {}), [kind]: versionId } })), [unitId]);
+  return { versions, onVersionSaved };
 }

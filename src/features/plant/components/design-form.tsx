@@ -5,7 +5,7 @@ import { newDesignVersionSchema, type UnitDesign } from '../../../../shared/sche
 import { Button } from '../../../components/ui/button';
 import { FieldMessage, FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
 import { Notice } from '../../../components/ui/notice';
-import { useChangeSetup } from '../api/setup';
+import { useChangeSetup, type OnVersionSaved } from '../api/setup';
 import { SaveVersion } from './save-version';
 
 // Each box: its label, unit, and the conversion between what is typed and SI.
@@ -79,8 +79,11 @@ function designFieldFor(path: string) {
   return specs.some((s) => s.key === field) ? `boxes.${field}` : field;
 }
 
-export function DesignForm({ unitId, design, editable }: { unitId: number; design: UnitDesign; editable: boolean }) {
-  const change = useChangeSetup(unitId);
+/** saved: the version in force is the one this person just saved here. */
+type Props = { unitId: number; design: UnitDesign; editable: boolean; saved: boolean; onVersionSaved: OnVersionSaved };
+
+export function DesignForm({ unitId, design, editable, saved, onVersionSaved }: Props) {
+  const change = useChangeSetup(unitId, onVersionSaved);
   const form = useSchemaForm(designForm, {
     defaultValues: {
       boxes: toText(design),
@@ -109,7 +112,7 @@ export function DesignForm({ unitId, design, editable }: { unitId: number; desig
     >
       <h2 className="font-bold">Design data</h2>
       {typingErrors ? <Notice kind="error">Nothing was saved: the marked boxes need a number.</Notice> : <FormFailure form={form} />}
-      {change.isSuccess ? <Notice kind="success">Saved as a new version; readings from now on are judged by it.</Notice> : null}
+      {saved ? <Notice kind="success">Saved as a new version; readings from now on are judged by it.</Notice> : null}
       <fieldset disabled={!editable} className="grid gap-3 sm:grid-cols-2">
         {specs.map((s) => (
           <label key={s.key} className="flex flex-col text-sm">

@@ -5,7 +5,7 @@ import { convertForDisplay, defaultDisplayPreferences } from '../../../../shared
 import { Notice } from '../../../components/ui/notice';
 import { newLimitVersionSchema } from '../../../../shared/schemas/plant';
 import { FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
-import { useChangeSetup } from '../api/setup';
+import { useChangeSetup, type OnVersionSaved } from '../api/setup';
 import { bandKeys, bandLabels, limitField, limitSetFromText, limitTextFrom, type LimitText } from '../lib/limit-entry';
 import { SaveVersion } from './save-version';
 
@@ -26,8 +26,11 @@ const limitsForm = throughContract((v: Values, fail) => {
 const countBoxes = (node: unknown): number =>
   !node || typeof node !== 'object' ? 0 : typeof (node as { message?: unknown }).message === 'string' ? 1 : Object.entries(node).reduce((n, [k, child]) => n + (k === 'ref' ? 0 : countBoxes(child)), 0);
 
-export function LimitsForm({ unitId, limits, editable }: { unitId: number; limits: LimitSet; editable: boolean }) {
-  const change = useChangeSetup(unitId);
+/** saved: the version in force is the one this person just saved here. */
+type Props = { unitId: number; limits: LimitSet; editable: boolean; saved: boolean; onVersionSaved: OnVersionSaved };
+
+export function LimitsForm({ unitId, limits, editable, saved, onVersionSaved }: Props) {
+  const change = useChangeSetup(unitId, onVersionSaved);
   const form = useSchemaForm(limitsForm, { defaultValues: { limits: limitTextFrom(limits, prefs), note: '' } });
   const boxErrors = form.failure ? 0 : countBoxes(form.formState.errors.limits);
   const note = useWatch({ control: form.control, name: 'note' });
@@ -48,7 +51,7 @@ export function LimitsForm({ unitId, limits, editable }: { unitId: number; limit
       ) : (
         <FormFailure form={form} />
       )}
-      {change.isSuccess ? <Notice kind="success">Saved as a new version; earlier readings keep the limits of their time.</Notice> : null}
+      {saved ? <Notice kind="success">Saved as a new version; earlier readings keep the limits of their time.</Notice> : null}
       <div className="overflow-x-auto">
         <table className="w-full text-left text-sm">
           <thead>

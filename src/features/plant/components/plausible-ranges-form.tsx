@@ -4,7 +4,7 @@ import { plausibleSettingUnits } from '../../../../shared/plausibility-display';
 import { Notice } from '../../../components/ui/notice';
 import { newPlausibleVersionSchema } from '../../../../shared/schemas/plant';
 import { FieldMessage, FormFailure, throughContract, useSchemaForm, type Fail } from '../../../components/form/schema-form';
-import { useChangeSetup } from '../api/setup';
+import { useChangeSetup, type OnVersionSaved } from '../api/setup';
 import { SaveVersion } from './save-version';
 
 const ends = ['low', 'high'] as const;
@@ -30,10 +30,11 @@ function parse(text: Texts, fail: Fail): PlausibleRanges {
 type Values = { ranges: Texts; note: string };
 const rangesForm = throughContract((v: Values, fail) => ({ ranges: parse(v.ranges, fail), note: v.note }), newPlausibleVersionSchema);
 
-type Props = { unitId: number; ranges: PlausibleRanges; own: boolean; editable: boolean };
+/** saved: the version in force is the one this person just saved here. */
+type Props = { unitId: number; ranges: PlausibleRanges; own: boolean; editable: boolean; saved: boolean; onVersionSaved: OnVersionSaved };
 
-export function PlausibleRangesForm({ unitId, ranges, own, editable }: Props) {
-  const change = useChangeSetup(unitId);
+export function PlausibleRangesForm({ unitId, ranges, own, editable, saved, onVersionSaved }: Props) {
+  const change = useChangeSetup(unitId, onVersionSaved);
   const form = useSchemaForm(rangesForm, {
     defaultValues: {
       ranges: Object.fromEntries(
@@ -64,7 +65,7 @@ export function PlausibleRangesForm({ unitId, ranges, own, editable }: Props) {
         Flows are per cent of the design CW flow, and of the design duty ÷ 2210 kJ/kg (HEI) for exhaust steam.
       </p>
       <FormFailure form={form} />
-      {change.isSuccess ? <Notice kind="success">Saved as a new version; earlier readings keep the ranges of their time.</Notice> : null}
+      {saved ? <Notice kind="success">Saved as a new version; earlier readings keep the ranges of their time.</Notice> : null}
       <div className="overflow-x-auto">
         <table className="w-full text-left text-sm">
           <thead>

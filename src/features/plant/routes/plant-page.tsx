@@ -7,7 +7,7 @@ import { equipmentSchema } from '../../../../shared/schemas/plant';
 import { Button } from '../../../components/ui/button';
 import { FormFailure, useSchemaForm } from '../../../components/form/schema-form';
 import { useMe } from '../../session';
-import { useChangeSetup, useUnitSetup, type UnitSetup } from '../api/setup';
+import { useChangeSetup, useUnitSetup, useVersionsSavedHere, type UnitSetup } from '../api/setup';
 import { DesignForm } from '../components/design-form';
 import { LimitsForm } from '../components/limits-form';
 import { PlausibleRangesForm } from '../components/plausible-ranges-form';
@@ -78,6 +78,7 @@ export function PlantPage() {
   const { unitId, unit } = useSelectedUnit();
   useWatchUnit(unitId);
   const setup = useUnitSetup(unitId);
+  const { versions: savedHere, onVersionSaved } = useVersionsSavedHere(unitId);
   const editable = Boolean(me && can(me.role, 'plant.manage'));
   return (
     <section className="flex flex-col gap-4">
@@ -93,14 +94,21 @@ export function PlantPage() {
       {setup.data && unit ? (
         <div className="grid gap-4 lg:grid-cols-2" key={`${setup.data.unit.id}-${setup.data.design.versionId}-${setup.data.limits.versionId}-${setup.data.plausible.versionId}`}>
           <div className="flex flex-col gap-4">
-            <DesignForm unitId={setup.data.unit.id} design={setup.data.design.data} editable={editable} />
+            <DesignForm unitId={setup.data.unit.id} design={setup.data.design.data} editable={editable} saved={savedHere.design === setup.data.design.versionId} onVersionSaved={onVersionSaved} />
             <History title="Design data versions" rows={setup.data.designHistory} timeZone={unit.timeZone} />
             <Equipment setup={setup.data} editable={editable} />
           </div>
           <div className="flex flex-col gap-4">
-            <LimitsForm unitId={setup.data.unit.id} limits={setup.data.limits.data} editable={editable} />
+            <LimitsForm unitId={setup.data.unit.id} limits={setup.data.limits.data} editable={editable} saved={savedHere.limits === setup.data.limits.versionId} onVersionSaved={onVersionSaved} />
             <History title="Limit versions" rows={setup.data.limitHistory} timeZone={unit.timeZone} />
-            <PlausibleRangesForm unitId={setup.data.unit.id} ranges={setup.data.plausible.data} own={setup.data.plausible.versionId !== null} editable={editable} />
+            <PlausibleRangesForm
+              unitId={setup.data.unit.id}
+              ranges={setup.data.plausible.data}
+              own={setup.data.plausible.versionId !== null}
+              editable={editable}
+              saved={savedHere.plausible === setup.data.plausible.versionId}
+              onVersionSaved={onVersionSaved}
+            />
             {setup.data.plausibleHistory.length ? <History title="Plausible range versions" rows={setup.data.plausibleHistory} timeZone={unit.timeZone} /> : null}
           </div>
         </div>
