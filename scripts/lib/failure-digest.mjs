@@ -1,7 +1,6 @@
 // The names of the tests that failed, read from the runners' JSON reports, for the end of
 // `npm test`: a long run's own output scrolls away, and CI may keep only its last lines.
 import { existsSync, readFileSync } from 'node:fs';
-
 import { stripVTControlCharacters } from 'node:util';
 
 const firstLine = (text) => stripVTControlCharacters(String(text ?? '')).split('\n').find((l) => l.trim())?.trim().slice(0, 300) ?? '';

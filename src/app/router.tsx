@@ -20,7 +20,7 @@ import { loadUsersPage } from '../features/admin-users';
 import { loadShiftsPage } from '../features/shifts';
 import { loadAuditPage } from '../features/audit';
 import { loadOverviewPage } from '../features/overview';
-import { forgetOfflineCopies, noteSignedInPerson } from '../features/offline';
+import { forgetOfflineCopies, noteSignedInPerson } from '../features/offline/shell';
 
 export function createAppRouter(queryClient: QueryClient) {
   // Any 401 from the API means the session ended (expiry, deactivation, restart of the store).

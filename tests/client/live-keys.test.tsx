@@ -6,6 +6,7 @@ import { QueryClient, QueryClientProvider, type QueryKey } from '@tanstack/react
 import { renderHook } from '@testing-library/react';
 import type { ReactNode } from 'react';
 import { io } from 'socket.io-client';
+import { getSocket } from '../../src/lib/socket';
 import { describe, expect, it } from 'vitest';
 import { liveEntities, type LiveEntity, type LiveEvent } from '../../shared/live-events';
 import { invalidateForChange } from '../../src/app/live-keys';
@@ -120,10 +121,12 @@ describe('live update → stale queries', () => {
     }
   }
 
-  it('does the same for an event arriving on the live socket', () => {
+  it('does the same for an event arriving on the live socket', async () => {
     const queryClient = cacheOfOpenPages();
     const wrapper = ({ children }: { children: ReactNode }) => <QueryClientProvider client={queryClient}>{children}</QueryClientProvider>;
     renderHook(() => useLiveUpdates(true), { wrapper });
+    // The socket.io client is loaded after the page draws (src/lib/socket.ts).
+    await getSocket().ready;
     const socket = io() as unknown as { receive: (event: string, ...args: unknown[]) => void };
     socket.receive('changed', { entity: 'flag', id: 3, unitId: 2 } satisfies LiveEvent);
     expect(staleIn(queryClient)).toEqual(['board U2', 'flags U2', 'overview', 'trend U2']);

@@ -19,20 +19,20 @@ const messagesOf = (result: { success: boolean; error?: { issues: { path: Proper
   Object.fromEntries((result.error?.issues ?? []).map((i) => [i.path.join('.'), i.message]));
 
 describe('throughContract', () => {
-  it('gives the wire shape when the shared schema accepts it', () => {
-    const parsed = openForm.safeParse({ title: 'Seal leak on 1-CWP-B', hours: '72', ownerId: '4' });
+  it('gives the wire shape when the shared schema accepts it', async () => {
+    const parsed = (await openForm.load()).safeParse({ title: 'Seal leak on 1-CWP-B', hours: '72', ownerId: '4' });
     expect(parsed.success).toBe(true);
     expect(parsed.data).toMatchObject({ title: 'Seal leak on 1-CWP-B', limitHours: 72, ownerId: 4 });
   });
 
-  it('puts the shared schema’s messages on the form fields, renamed where the form names them differently', () => {
-    const parsed = openForm.safeParse({ title: 'x', hours: '0', ownerId: '' });
+  it('puts the shared schema’s messages on the form fields, renamed where the form names them differently', async () => {
+    const parsed = (await openForm.load()).safeParse({ title: 'x', hours: '0', ownerId: '' });
     expect(parsed.success).toBe(false);
     // The schema's own words (log.ts), on the box that holds each value.
     expect(messagesOf(parsed)).toEqual({ title: 'Name the condition', hours: 'Give the time allowed', ownerId: 'Choose the owner' });
   });
 
-  it('keeps a conversion’s own message and does not stack the contract’s on the same field', () => {
+  it('keeps a conversion’s own message and does not stack the contract’s on the same field', async () => {
     const schema = throughContract(
       (v: { hours: string }, fail) => {
         if (!/^\d+$/.test(v.hours)) fail('hours', `“${v.hours}” is not a number`);
@@ -41,16 +41,16 @@ describe('throughContract', () => {
       newConditionSchema,
       (path) => (path === 'limitHours' ? 'hours' : undefined),
     );
-    expect(messagesOf(schema.safeParse({ hours: '1O' }))).toEqual({ hours: '“1O” is not a number' });
+    expect(messagesOf((await schema.load()).safeParse({ hours: '1O' }))).toEqual({ hours: '“1O” is not a number' });
   });
 
-  it('maps a round’s contract paths onto its boxes (pressure.value → pressure)', () => {
+  it('maps a round’s contract paths onto its boxes (pressure.value → pressure)', async () => {
     const round = throughContract((v: ReadingFormValues) => {
       const { unitId: _unit, ...reading } = readingSetWire(1, v);
       return reading;
     }, recordReadingSchema, roundFieldFor);
     const values = { ...emptyReadingForm({ pressureUnit: 'kPa_a', temperatureUnit: 'degC', flowUnit: 'm3_h', barometerUnit: 'kPa_a' }), pressure: '6.5', cwInlet: '25', cwOutlet: '35' };
-    const messages = messagesOf(round.safeParse(values));
+    const messages = messagesOf((await round.load()).safeParse(values));
     expect(Object.keys(messages)).toEqual(['hotwell']);
     expect(messages.hotwell).toBe('Hotwell temperature is missing');
   });

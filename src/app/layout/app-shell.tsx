@@ -1,6 +1,6 @@
 import { Navigate, Outlet, useLocation, useNavigate, useSearchParams } from 'react-router';
 import { rememberedUnitId } from '../../components/readings/unit-picker';
-import { useState } from 'react';
+import { lazy, Suspense, useState } from 'react';
 import { roleLabels } from '../../../shared/roles';
 import { useMe, useSignOut } from '../../features/session';
 import { Notice } from '../../components/ui/notice';
@@ -10,7 +10,9 @@ import { MainNav } from './main-nav';
 import { useConnected, useLiveUpdates } from '../use-live-updates';
 import { PendingOrdersPrompt } from '../../features/orders';
 import { Button } from '../../components/ui/button';
-import { OfflineStatus } from '../../features/offline';
+import { loadOfflineStatus } from '../../features/offline/shell';
+
+const OfflineStatus = lazy(async () => ({ default: await loadOfflineStatus() }));
 
 export function AppShell() {
   const { data: me, isPending, error } = useMe();
@@ -53,7 +55,9 @@ export function AppShell() {
             {me.crewName ? ` · Crew ${me.crewName}` : ''}
           </span>
           <div className="ml-auto flex items-center gap-2 text-sm sm:ml-0">
-            <OfflineStatus userId={me.id} />
+            <Suspense fallback={null}>
+              <OfflineStatus userId={me.id} />
+            </Suspense>
             <Button tone="toggle" onClick={toggleTheme}>
               {theme === 'dark' ? '☀ Light' : '☾ Dark'}
             </Button>

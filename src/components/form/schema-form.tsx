@@ -1,9 +1,11 @@
 // The one way a form is built: react-hook-form checked by a shared zod contract (zodResolver), the
 // server's field messages put back beside the same inputs, and the rest listed by their labels.
-import { useId, useState, type BaseSyntheticEvent } from 'react';
-import { zodResolver } from '@hookform/resolvers/zod';
-import { useForm, type FieldErrors, type FieldValues, type UseFormProps, type UseFormReturn } from 'react-hook-form';
-import { z } from 'zod';
+// zod and the resolver are loaded on demand (see lazy-contract.ts): a page may pass its contract as
+// a lazy one and draw before they arrive; the first check waits for them.
+import { useEffect, useId, useRef, useState, type BaseSyntheticEvent } from 'react';
+import { useForm, type FieldErrors, type FieldValues, type Resolver, type UseFormProps, type UseFormReturn } from 'react-hook-form';
+import type { z } from 'zod';
+import { lazyContract, loadContract, type Contract, type LazyContract } from './lazy-contract';
 import { applyServerErrors, isPlaced, labelled, otherFieldMessages, type FieldPlacement } from '../../lib/form-errors';
 import { Notice } from '../ui/notice';
 
@@ -18,26 +20,22 @@ export type Fail = (field: string, message: string) => void;
  */
 export function throughContract<TForm, TSchema extends z.ZodType>(
   toWire: (values: TForm, fail: Fail) => unknown,
-  schema: TSchema,
+  contract: Contract<TSchema>,
   fieldFor: (path: string) => string | undefined = () => undefined,
-) {
-  return z.custom<TForm>(() => true).transform((values, ctx): z.output<TSchema> => {
-    const failed = new Set<string>();
-    const wire = toWire(values, (field, message) => {
-      failed.add(field);
-      ctx.addIssue({ code: 'custom', message, path: field.split('.') });
-    });
-    const parsed = schema.safeParse(wire);
-    if (parsed.success && !failed.size) return parsed.data;
-    for (const issue of parsed.error?.issues ?? []) {
-      const path = issue.path.join('.');
-      const field = fieldFor(path) ?? path;
-      if (failed.has(field)) continue;
-      failed.add(field);
-      ctx.addIssue({ code: 'custom', message: issue.message, path: field ? field.split('.') : [] });
-    }
-    return z.NEVER;
+): LazyContract<z.ZodType<z.output<TSchema>, TForm>> {
+  return lazyContract(async () => {
+    // zod by its named exports from a module of its own, so the bundler keeps only what is used.
+    const [{ checkedThrough }, schema] = await Promise.all([import('./checked-through'), loadContract(contract)]);
+    return checkedThrough(toWire, schema, fieldFor);
   });
+}
+
+/** react-hook-form's resolver for a contract: zodResolver, once it and the contract are loaded. */
+function contractResolver<S extends z.ZodType>(contract: Contract<S>): Resolver<FieldValues, unknown, unknown> {
+  return async (values, context, options) => {
+    const [{ zodResolver }, schema] = await Promise.all([import('@hookform/resolvers/zod'), loadContract(contract)]);
+    return (zodResolver(schema as never) as unknown as Resolver<FieldValues, unknown, unknown>)(values, context, options);
+  };
 }
 
 type Options<TIn extends FieldValues, TOut> = Omit<UseFormProps<TIn, unknown, TOut>, 'resolver'> & Partial<FieldPlacement>;
@@ -60,12 +58,19 @@ export type SchemaForm<TIn extends FieldValues, TOut> = UseFormReturn<TIn, unkno
 
 /** react-hook-form with the shared contract as its resolver; see `throughContract` for forms whose values differ from the wire. */
 export function useSchemaForm<TSchema extends z.ZodType<unknown, FieldValues>>(
-  schema: TSchema,
+  contract: Contract<TSchema>,
   { placed, fieldFor, ...options }: Options<z.input<TSchema>, z.output<TSchema>>,
 ): SchemaForm<z.input<TSchema>, z.output<TSchema>> {
   type TIn = z.input<TSchema>;
   type TOut = z.output<TSchema>;
-  const form = useForm<TIn, unknown, TOut>({ ...options, resolver: zodResolver(schema as never) as never });
+  const form = useForm<TIn, unknown, TOut>({ ...options, resolver: contractResolver(contract) as never });
+  // Fetched as the form appears, so a submit seldom waits for it. (A page may build its contract on each
+  // render; fetching the first is enough: they share the code they load.)
+  const firstContract = useRef(contract);
+  useEffect(() => {
+    void loadContract(firstContract.current).catch(() => undefined);
+    void import('@hookform/resolvers/zod').catch(() => undefined);
+  }, []);
   const formId = useId();
   const messageId = (field: string) => `${formId}-${field.replace(/[^\w-]/g, '-')}-message`;
   const [failure, setFailure] = useState<unknown>(null);

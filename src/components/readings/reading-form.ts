@@ -1,5 +1,6 @@
 // The round form holds text as typed; this turns it into the shared reading-set contract.
-import { readingSetInputSchema, type ReadingSetInput } from '../../../shared/schemas/reading-set';
+import type { ReadingSetInput, readingSetInputSchema } from '../../../shared/schemas/reading-set';
+import { lazyContract } from '../form/lazy-contract';
 import { fieldLabel } from '../../../shared/schemas/field-labels';
 import type { AbsolutePressureUnit, FlowUnit, PressureUnit, TemperatureUnit } from '../../../shared/units';
 
@@ -125,9 +126,12 @@ export function readingSetWire(unitId: number, v: ReadingFormValues) {
   };
 }
 
+/** The shared reading-set contract, loaded as the page opens (see form/lazy-contract.ts). */
+export const readingSetContract = lazyContract(async () => (await import('../../../shared/schemas/reading-set')).readingSetInputSchema);
+
 /** The form's text as a checked reading set (for the live checks), or the message for each box. */
-export function toReadingSet(unitId: number, v: ReadingFormValues): { input: ReadingSetInput | null; errors: FormErrors } {
-  const parsed = readingSetInputSchema.safeParse(readingSetWire(unitId, v));
+export function toReadingSet(unitId: number, v: ReadingFormValues, contract: typeof readingSetInputSchema): { input: ReadingSetInput | null; errors: FormErrors } {
+  const parsed = contract.safeParse(readingSetWire(unitId, v));
   if (parsed.success) return { input: parsed.data, errors: {} };
   const errors: FormErrors = {};
   for (const issue of parsed.error.issues) {

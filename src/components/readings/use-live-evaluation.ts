@@ -1,13 +1,16 @@
 import { useMemo } from 'react';
-import { evaluateReadingSet, type Evaluation } from '../../../shared/calc/evaluate';
+import type { Evaluation } from '../../../shared/calc/evaluate';
 import { CalcInputError } from '../../../shared/calc/input-error';
-import { readingSetToSi } from '../../../shared/calc/reading-set-si';
-import { describeImplausible, type ImplausibleNotice } from '../../../shared/plausibility-display';
+import type { ImplausibleNotice } from '../../../shared/plausibility-display';
 import type { ReadingSetInput } from '../../../shared/schemas/reading-set';
 import { isVacuumUnit, type AbsolutePressureUnit } from '../../../shared/units';
 import type { DisplayPreferences } from '../../../shared/display';
 import type { DesignAndLimits } from './get-condenser-design';
-import { fieldForPath, toReadingSet, type FormErrors, type ReadingFormValues } from './reading-form';
+import { fieldForPath, readingSetContract, toReadingSet, type FormErrors, type ReadingFormValues } from './reading-form';
+import { useLoadedContract } from '../form/lazy-contract';
+import { once, useLoaded } from '../../lib/load-on-demand';
+
+const loadEngine = once(() => import('./live-engine'));
 
 export type LiveEvaluation = {
   input: ReadingSetInput | null;
@@ -21,17 +24,23 @@ export type LiveEvaluation = {
   warnings: FormErrors;
 };
 
-/** Recomputes every check on each keystroke with the same engine the server uses. */
+/**
+ * Recomputes every check on each keystroke with the same engine the server uses. Until the engine and
+ * the shared contract have loaded (moments after the page opens) there is nothing to show yet, as with
+ * an empty form; what was typed meanwhile is checked as soon as they are there.
+ */
 export function useLiveEvaluation(unitId: number | null, values: ReadingFormValues, data: DesignAndLimits | undefined): LiveEvaluation {
+  const contract = useLoadedContract(readingSetContract);
+  const engine = useLoaded(loadEngine);
   const { input, evaluation, errors, notices } = useMemo(() => {
     const none: ImplausibleNotice[] = [];
-    if (!unitId || !data) return { input: null, evaluation: null, errors: {} as FormErrors, notices: none };
-    const built = toReadingSet(unitId, values);
+    if (!unitId || !data || !contract || !engine) return { input: null, evaluation: null, errors: {} as FormErrors, notices: none };
+    const built = toReadingSet(unitId, values, contract);
     if (!built.input) return { input: null, evaluation: null, errors: built.errors, notices: none };
     try {
-      const si = readingSetToSi(built.input);
-      const evaluation = evaluateReadingSet(si, data.design, data.limits, data.plausible);
-      return { input: built.input, evaluation, errors: {} as FormErrors, notices: describeImplausible(evaluation.implausible, built.input, si.cwInletK, data.design) };
+      const si = engine.readingSetToSi(built.input);
+      const evaluation = engine.evaluateReadingSet(si, data.design, data.limits, data.plausible);
+      return { input: built.input, evaluation, errors: {} as FormErrors, notices: engine.describeImplausible(evaluation.implausible, built.input, si.cwInletK, data.design) };
     } catch (error) {
       if (error instanceof CalcInputError) {
         const field = fieldForPath[error.field];
@@ -39,7 +48,7 @@ export function useLiveEvaluation(unitId: number | null, values: ReadingFormValu
       }
       throw error;
     }
-  }, [unitId, values, data]);
+  }, [unitId, values, data, contract, engine]);
   const warnings: FormErrors = {};
   for (const notice of notices) {
     const field = fieldForPath[notice.field];

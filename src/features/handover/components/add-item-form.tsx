@@ -1,4 +1,4 @@
-import { newHandoverItemSchema } from '../../../../shared/schemas/handovers';
+import { newHandoverItemContract } from '../lib/contracts';
 import { Button } from '../../../components/ui/button';
 import { FieldMessage, FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
 import { useClientKey, useHandoverAction } from '../api/handover';
@@ -13,7 +13,7 @@ export function AddItemForm({ handoverId, unitId }: { handoverId: number; unitId
   const action = useHandoverAction(unitId);
   const [clientKey, newClientKey] = useClientKey();
   // The same key until it succeeds: a double click or a retry makes one item.
-  const schema = throughContract((v: Values) => ({ ...v, detail: v.detail || undefined, reference: v.reference || undefined, clientKey }), newHandoverItemSchema);
+  const schema = throughContract((v: Values) => ({ ...v, detail: v.detail || undefined, reference: v.reference || undefined, clientKey }), newHandoverItemContract);
   const form = useSchemaForm(schema, { defaultValues: { kind: 'follow_up', priority: 'normal', title: '', detail: '', reference: '' } });
   return (
     <form

@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { formatRemaining } from '../../../../shared/conditions';
 import { Button } from '../../../components/ui/button';
-import { answerSchema, attachmentReasonSchema, handoverAmendmentSchema, questionSchema } from '../../../../shared/schemas/handovers';
+import { answerContract, attachmentReasonContract, handoverAmendmentContract, questionContract } from '../lib/contracts';
 import { ApiError } from '../../../lib/api-client';
 import { FieldMessage, FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
 import { useClientKey, useHandoverAction, useUploadAttachment, type Board, type BoardItem } from '../api/handover';
@@ -24,7 +24,7 @@ const field = 'rounded-md border border-line bg-field px-2 py-1';
 function AmendItemForm({ board, item }: { board: Board; item: BoardItem }) {
   const action = useHandoverAction(board.handover.unitId);
   const [clientKey, newClientKey] = useClientKey();
-  const schema = throughContract((v: { text: string; reason: string }) => ({ itemId: item.id, ...v, clientKey }), handoverAmendmentSchema);
+  const schema = throughContract((v: { text: string; reason: string }) => ({ itemId: item.id, ...v, clientKey }), handoverAmendmentContract);
   const form = useSchemaForm(schema, { defaultValues: { text: '', reason: '' } });
   return (
     <form
@@ -58,7 +58,7 @@ function AmendItemForm({ board, item }: { board: Board; item: BoardItem }) {
 /** A photo or PDF on an item; after submit it is an amendment and needs a reason, checked before the file is sent. */
 function AttachmentForm({ item, unitId, draft }: { item: BoardItem; unitId: number; draft: boolean }) {
   const upload = useUploadAttachment(unitId);
-  const schema = throughContract((v: { reason: string }) => ({ reason: draft ? undefined : v.reason }), attachmentReasonSchema);
+  const schema = throughContract((v: { reason: string }) => ({ reason: draft ? undefined : v.reason }), attachmentReasonContract);
   const form = useSchemaForm(schema, { defaultValues: { reason: '' }, placed: ['reason', 'file'] });
   const send = (file: File) =>
     form.submit(async ({ reason }) => {
@@ -95,7 +95,7 @@ function AttachmentForm({ item, unitId, draft }: { item: BoardItem; unitId: numb
 
 function AnswerForm({ queryId, unitId }: { queryId: number; unitId: number }) {
   const action = useHandoverAction(unitId);
-  const form = useSchemaForm(answerSchema, { defaultValues: { answer: '' } });
+  const form = useSchemaForm(answerContract, { defaultValues: { answer: '' } });
   return (
     <form className="mt-1 flex flex-wrap gap-2" noValidate onSubmit={form.submit((v) => action.mutateAsync({ kind: 'answer', queryId, answer: v.answer }))}>
       <input aria-label="Answer" className="flex-1 rounded-md border border-line bg-field px-2" {...form.register('answer')} {...form.describe('answer')} />
@@ -111,7 +111,7 @@ function AnswerForm({ queryId, unitId }: { queryId: number; unitId: number }) {
 function AskForm({ itemId, unitId }: { itemId: number; unitId: number }) {
   const action = useHandoverAction(unitId);
   const [clientKey, newClientKey] = useClientKey();
-  const schema = throughContract((v: { question: string }) => ({ question: v.question, clientKey }), questionSchema);
+  const schema = throughContract((v: { question: string }) => ({ question: v.question, clientKey }), questionContract);
   const form = useSchemaForm(schema, { defaultValues: { question: '' } });
   return (
     <form

@@ -1,4 +1,4 @@
-import { editHandoverItemSchema } from '../../../../shared/schemas/handovers';
+import { editHandoverItemContract } from '../lib/contracts';
 import { Button } from '../../../components/ui/button';
 import { FieldMessage, FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
 import { useHandoverAction, type BoardItem } from '../api/handover';
@@ -12,7 +12,7 @@ export function ItemEditor({ item, unitId, onDone }: { item: BoardItem; unitId: 
   const action = useHandoverAction(unitId);
   const schema = throughContract(
     (v: Values) => (item.automatic ? { detail: v.detail || null, version: item.version } : { title: v.title, detail: v.detail || null, priority: v.priority, version: item.version }),
-    editHandoverItemSchema,
+    editHandoverItemContract,
   );
   const form = useSchemaForm(schema, { defaultValues: { title: item.title, detail: item.detail ?? '', priority: item.priority } });
   return (

@@ -7,7 +7,7 @@ import { Notice } from '../../../components/ui/notice';
 import { useBoardPresence, useWatchUnit } from '../../../app/use-live-updates';
 import { useCrews } from '../../../components/plant/crews';
 import { ApiError } from '../../../lib/api-client';
-import { handoverAmendmentSchema } from '../../../../shared/schemas/handovers';
+import { handoverAmendmentContract } from '../lib/contracts';
 import { FieldMessage, FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
 import { useMe } from '../../session';
 import { useClientKey, useCurrentHandover, useHandoverAction, type ShiftChange } from '../api/handover';
@@ -139,7 +139,7 @@ export function HandoverPage() {
 function AmendHandoverForm({ handoverId, unitId }: { handoverId: number; unitId: number }) {
   const action = useHandoverAction(unitId);
   const [clientKey, newClientKey] = useClientKey();
-  const schema = throughContract((v: { text: string; reason: string }) => ({ ...v, clientKey }), handoverAmendmentSchema);
+  const schema = throughContract((v: { text: string; reason: string }) => ({ ...v, clientKey }), handoverAmendmentContract);
   const form = useSchemaForm(schema, { defaultValues: { text: '', reason: '' } });
   const input = 'rounded-md border border-line bg-field px-2 py-1';
   return (

@@ -4,6 +4,7 @@
 import { useEffect, useSyncExternalStore } from 'react';
 import { api, ApiError } from '../../../lib/api-client';
 import { idbQueueStorage } from './idb-storage';
+import { signedInPerson } from './session-person';
 import { inEntryOrder, isUnreachable, sendWaiting, type QueueStorage, type QueuedKind, type QueuedRecord, type SendOutcome } from './queue';
 
 let storage: QueueStorage = idbQueueStorage;
@@ -84,10 +85,7 @@ export async function discard(clientId: string) {
 // Who the page's session belongs to now. A record goes out with whatever session cookie the page
 // holds at that moment, so each send first checks it is still its author's: at shift change one
 // person signs out and the next signs in on the same tablet while a slow pass is still sending.
-let sessionUserId: number | null = null;
-export function noteSignedInPerson(userId: number | null) {
-  sessionUserId = userId;
-}
+export { noteSignedInPerson } from './session-person';
 
 const sending = new Map<number, Promise<SendOutcome>>();
 
@@ -97,7 +95,7 @@ export function sendQueued(userId: number, onSent: (record: QueuedRecord, saved:
   if (running) return running;
   const pass = sendWaiting(storage, userId, async (record) => {
     // Treated as a signed-out answer: the pass stops and the record waits for its author.
-    if (sessionUserId !== userId) throw new ApiError(401, 'SIGNED_OUT', 'Sign in as the person who entered this record to send it');
+    if (signedInPerson() !== userId) throw new ApiError(401, 'SIGNED_OUT', 'Sign in as the person who entered this record to send it');
     const saved = await api.post<{ id: number }>(pathFor(record.kind, record.unitId), { ...record.payload, clientId: record.clientId, enteredAt: record.enteredAt });
     onSent(record, saved);
   }).finally(() => {

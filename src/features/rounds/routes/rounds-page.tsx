@@ -11,7 +11,7 @@ import { ReadingFormFields } from '../../../components/readings/reading-form-fie
 import { ConfirmOutsidePlausible, useOutsidePlausibleQuestion } from '../../../components/readings/plausibility';
 import { useCondenserDesign } from '../../../components/readings/get-condenser-design';
 import { boxLabels, emptyReadingForm, formValuesFromReading, readingSetWire, roundFieldFor, type FormErrors, type ReadingFormValues } from '../../../components/readings/reading-form';
-import { recordReadingSchema } from '../../../../shared/schemas/readings';
+import { lazyContract } from '../../../components/form/lazy-contract';
 import { FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
 import { loadUnitChoices, useRememberUnitChoices } from '../../../components/readings/unit-choices';
 import { useLiveEvaluation } from '../../../components/readings/use-live-evaluation';
@@ -41,6 +41,9 @@ function LastReadingHint({ last, timeZone }: { last: ReadingSummary | undefined;
 
 type RoundValues = ReadingFormValues & { takenAt: StationTimeValue };
 
+/** The shared round contract, loaded as the page opens rather than with its code (form/lazy-contract.ts). */
+const recordReadingContract = lazyContract(async () => (await import('../../../../shared/schemas/readings')).recordReadingSchema);
+
 /** The line a round kept on the device shows while it waits: the readings a person checks it by. */
 function roundSummary(reading: Omit<ReadingSetInput, 'unitId'>): string {
   const q = (v: { value: number; unit: string } | null | undefined, labels: Record<string, { label: string } | string>) => {
@@ -61,14 +64,18 @@ export function RoundsPage() {
   const timeZone = unit?.timeZone ?? 'UTC';
   // The boxes hold text in the round's units; the shared round contract checks what they make, and its
   // messages come back beside the box that holds each value.
-  const schema = throughContract(
-    ({ takenAt, ...boxes }: RoundValues, fail) => {
-      const { unitId: _unit, ...reading } = readingSetWire(unitId ?? 0, boxes);
-      const at = stationTimeToWire(takenAt, timeZone, fail, 'takenAt');
-      return { ...reading, ...(at ? { takenAt: at } : {}) };
-    },
-    recordReadingSchema,
-    roundFieldFor,
+  const schema = useMemo(
+    () =>
+      throughContract(
+        ({ takenAt, ...boxes }: RoundValues, fail) => {
+          const { unitId: _unit, ...reading } = readingSetWire(unitId ?? 0, boxes);
+          const at = stationTimeToWire(takenAt, timeZone, fail, 'takenAt');
+          return { ...reading, ...(at ? { takenAt: at } : {}) };
+        },
+        recordReadingContract,
+        roundFieldFor,
+      ),
+    [unitId, timeZone],
   );
   const blank = (): RoundValues => ({ ...emptyReadingForm(loadUnitChoices(me?.id)), takenAt: emptyStationTime });
   const form = useSchemaForm(schema, { defaultValues: blank(), fieldFor: roundFieldFor });

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 import { sessionKeys } from './session-keys';
-import { forgetOfflineCopies, noteSignedInPerson } from '../../offline';
+import { forgetOfflineCopies, noteSignedInPerson } from '../../offline/shell';
 
 export const signOut = () => api.delete<void>('/api/session');
 

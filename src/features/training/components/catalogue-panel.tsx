@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import type { z } from 'zod';
 import { newTaskSchema, qualificationSystemLabels, qualificationSystems, taskChangeSchema } from '../../../../shared/schemas/training';
 import { Button } from '../../../components/ui/button';
 import { FormFailure, throughContract, useSchemaForm } from '../../../components/form/schema-form';
@@ -17,10 +18,11 @@ const blank: Values = { taskKey: '', position: 'field_operator', system: 'circul
 const taskFields = (v: Values) => ({ position: v.position, system: v.system, title: v.title, standard: v.standard, procedureRef: v.procedureRef || null, requiredPerformances: Number(v.requiredPerformances) });
 const newTaskForm = throughContract((v: Values) => ({ ...taskFields(v), taskKey: v.taskKey }), newTaskSchema);
 const changeTaskForm = throughContract((v: Values) => ({ ...taskFields(v), changeNote: v.changeNote }), taskChangeSchema);
+type TaskContract = z.ZodType<z.output<typeof newTaskSchema> | z.output<typeof taskChangeSchema>, Values>;
 
 function TaskForm({ editing, onDone }: { editing: TaskView | null; onDone: () => void }) {
   const save = useSaveTask();
-  const form = useSchemaForm(editing ? changeTaskForm : newTaskForm, {
+  const form = useSchemaForm<TaskContract>(editing ? changeTaskForm : newTaskForm, {
     defaultValues: editing ? { ...blank, ...editing, procedureRef: editing.procedureRef ?? '', requiredPerformances: String(editing.requiredPerformances), changeNote: '' } : blank,
   });
   const errors = form.formState.errors;
