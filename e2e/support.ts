@@ -121,6 +121,20 @@ export async function shiftChangeNotWithin(baseURL: string, minutes: number, uni
   return shiftChangeNow(baseURL, unitName);
 }
 
+/**
+ * Records, as `email`, a round with the same readings as the unit's latest one, taken now. For a test
+ * that needs a round in the shift in progress when it runs just after a shift change, before the
+ * demo's hourly rounds have reached the new shift; the same readings keep the unit's picture as it was.
+ */
+export async function repeatLastRound(baseURL: string, email: string, unitId: number) {
+  const { api, csrf } = await apiAs(baseURL, email);
+  const { readings } = (await (await api.get(`/api/units/${unitId}/readings?limit=1`)).json()) as { readings: { raw: Record<string, unknown> }[] };
+  const { unitId: _unit, takenAt: _takenAt, ...raw } = readings[0]!.raw;
+  const saved = await api.post(`/api/units/${unitId}/readings`, { headers: { 'x-csrf-token': csrf }, data: { ...raw, confirmOutsidePlausible: [] } });
+  expect(saved.status(), await saved.text()).toBe(201);
+  await api.dispose();
+}
+
 /** The signed-in person's name, as the page header shows it. */
 export async function signedInName(page: Page): Promise<string> {
   const text = await page.getByTestId('signed-in-as').textContent();

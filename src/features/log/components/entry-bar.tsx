@@ -35,17 +35,22 @@ export function EntryBar({ unitId, settings, position, fixing = null, onFixed }:
   const equipmentId = useWatch({ control: form.control, name: 'equipmentId' });
   const textError = form.error('text');
   const tag = equipment.data?.find((e) => String(e.id) === equipmentId)?.tag;
+  // The refused entry is put in the bar once, when its author picks it: not again on each redraw (the
+  // form object is new on every render), which would undo the correction being typed.
+  const { reset } = form;
+  const { timeZone } = settings;
+  const firstCategory = settings.categories[0]?.key ?? 'other';
   useEffect(() => {
     if (!fixing) return;
     const p = fixing.payload as { text?: string; category?: string; eventAt?: string; equipmentId?: number | null; carryToHandover?: boolean };
-    form.reset({
+    reset({
       text: p.text ?? '',
-      category: p.category ?? settings.categories[0]?.key ?? 'other',
-      eventAt: { text: toStationInputValue(p.eventAt ?? fixing.enteredAt, settings.timeZone), repeated: 'first' },
+      category: p.category ?? firstCategory,
+      eventAt: { text: toStationInputValue(p.eventAt ?? fixing.enteredAt, timeZone), repeated: 'first' },
       equipmentId: p.equipmentId ? String(p.equipmentId) : '',
       carryToHandover: Boolean(p.carryToHandover),
     });
-  }, [fixing, form, settings]);
+  }, [fixing, reset, timeZone, firstCategory]);
   const onSubmit = form.submit(async (entry) => {
     await add.mutateAsync({ entry, userId: me!.id });
     form.reset({ ...form.getValues(), text: '', eventAt: emptyStationTime, carryToHandover: false });
