@@ -110,17 +110,24 @@ async function signIn(context: BrowserContext, email: string) {
   if (!res.ok()) throw new Error(`sign-in ${email}: HTTP ${res.status()} ${await res.text()}`);
 }
 
-type Visit = { ms: number; bytes: number; requests: number; fromServiceWorker: number; fromCache: number; encodings: Set<string> };
+type Visit = { ms: number; bytes: number; requests: number; fromServiceWorker: number; fromCache: number; encodings: Set<string>; timeline: string[] };
 
 /** Loads `url` on a throttled connection and waits for `ready`; counts bytes as received (encoded) per request. */
 async function throttledVisit(page: Page, url: string, ready: (page: Page) => Promise<void>): Promise<Visit> {
   const cdp = await page.context().newCDPSession(page);
   await cdp.send('Network.enable');
   await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 150, downloadThroughput: 1_600_000 / 8, uploadThroughput: 750_000 / 8 });
-  const visit: Visit = { ms: 0, bytes: 0, requests: 0, fromServiceWorker: 0, fromCache: 0, encodings: new Set() };
-  cdp.on('Network.loadingFinished', (e: { encodedDataLength: number }) => {
+  const visit: Visit = { ms: 0, bytes: 0, requests: 0, fromServiceWorker: 0, fromCache: 0, encodings: new Set(), timeline: [] };
+  const begun = new Map<string, { url: string; at: number }>();
+  const since = () => (performance.now() - started).toFixed(0).padStart(5);
+  cdp.on('Network.requestWillBeSent', (e: { requestId: string; request: { url: string } }) => {
+    begun.set(e.requestId, { url: e.request.url.replace(base, ''), at: performance.now() - started });
+  });
+  cdp.on('Network.loadingFinished', (e: { requestId: string; encodedDataLength: number }) => {
     visit.bytes += e.encodedDataLength;
     visit.requests++;
+    const b = begun.get(e.requestId);
+    if (b) visit.timeline.push(`${b.at.toFixed(0).padStart(5)} → ${since()} ms  ${b.url}`);
   });
   cdp.on('Network.responseReceived', (e: { response: { fromServiceWorker?: boolean; fromDiskCache?: boolean; fromPrefetchCache?: boolean; url: string; headers: Record<string, string> } }) => {
     if (e.response.fromServiceWorker) visit.fromServiceWorker++;
@@ -214,6 +221,8 @@ async function measure(entryFile: string) {
     console.log(
       line(`repeat visit (${repeat.fromServiceWorker ? `${repeat.fromServiceWorker} from the service worker` : `${repeat.fromCache} from the HTTP cache${hasWorker ? '' : ', no service worker'}`})`, repeat, 1000),
     );
+    // `--timeline`: when each response of the visits began and ended, to see what a visit waits on.
+    if (args.has('--timeline')) for (const [label, v] of [['first', first], ['repeat', repeat]] as const) console.log(`\n${label} visit:\n${v.timeline.join('\n')}`);
     const encodings = [...first.encodings].join(', ');
     console.log(`  the server's Content-Encoding for JavaScript (${entryFile} and others): ${encodings}${encodings === 'none' ? ' — responses are not compressed' : ''}`);
   } finally {

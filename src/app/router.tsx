@@ -4,11 +4,12 @@ import { setSignedOutHandler } from '../lib/api-client';
 import { AppShell } from './layout/app-shell';
 import { RequireRole } from './layout/require-role';
 import { NotFoundPage } from './layout/not-found-page';
-import { loadSignInPage, loadChangePasswordPage, sessionKeys } from '../features/session';
+import { loadSignInPage, loadChangePasswordPage, meQueryOptions, sessionKeys } from '../features/session';
+import { rememberedUnitId, unitsQueryOptions } from '../components/readings/unit-picker';
 import { loadHandoverPage, loadHandoverPrintPage } from '../features/handover';
 import { loadLogPage } from '../features/log';
 import { loadOrdersPage } from '../features/orders';
-import { loadReadingPage, loadRoundsPage } from '../features/rounds';
+import { loadReadingPage, loadRoundsPage, prefetchRoundsPage } from '../features/rounds';
 import { loadFlagsPage } from '../features/flags';
 import { loadTrendsPage } from '../features/trends';
 import { loadImportPage } from '../features/imports';
@@ -30,11 +31,22 @@ export function createAppRouter(queryClient: QueryClient) {
     void forgetOfflineCopies();
     queryClient.setQueryData(sessionKeys.me(), null);
   });
+  // A route's data is asked for as its code loads, not after the page has drawn (one round trip, not
+  // several, on a slow link); the loaders only start the queries and never hold the page back.
+  const unitIn = (request: Request) => Number(new URL(request.url).searchParams.get('unit')) || rememberedUnitId();
+  const startShellQueries = () => {
+    void queryClient.prefetchQuery(meQueryOptions());
+    void queryClient.prefetchQuery(unitsQueryOptions());
+    return null;
+  };
   return createBrowserRouter([
     { path: '/sign-in', lazy: async () => ({ Component: await loadSignInPage() }) },
     {
       path: '/',
       element: <AppShell />,
+      loader: startShellQueries,
+      // Shown while the first page's code arrives (the loaders themselves return at once).
+      hydrateFallbackElement: <p className="p-8 text-muted">Loading…</p>,
       children: [
         { index: true, lazy: async () => ({ Component: await loadOverviewPage() }) },
         {
@@ -45,7 +57,14 @@ export function createAppRouter(queryClient: QueryClient) {
         { path: 'handover/:id/print', lazy: async () => ({ Component: await loadHandoverPrintPage() }) },
         { path: 'log', lazy: async () => ({ Component: await loadLogPage() }) },
         { path: 'orders', lazy: async () => ({ Component: await loadOrdersPage() }) },
-        { path: 'rounds', lazy: async () => ({ Component: await loadRoundsPage() }) },
+        {
+          path: 'rounds',
+          loader: ({ request }) => {
+            prefetchRoundsPage(queryClient, unitIn(request));
+            return null;
+          },
+          lazy: async () => ({ Component: await loadRoundsPage() }),
+        },
         { path: 'rounds/:id', lazy: async () => ({ Component: await loadReadingPage() }) },
         { path: 'flags', lazy: async () => ({ Component: await loadFlagsPage() }) },
         { path: 'trends', lazy: async () => ({ Component: await loadTrendsPage() }) },

@@ -6,6 +6,7 @@ import type { ReadingSetInput } from '../../../../shared/schemas/reading-set';
 import { api } from '../../../lib/api-client';
 import { invalidateForChange } from '../../../app/live-keys';
 import { readingKeys } from './reading-keys';
+import { readingsQueryOptions } from './readings-query';
 import { sendOrKeep, type QueuedRecord } from '../../offline';
 
 export type ReadingSummary = {
@@ -59,11 +60,7 @@ export type ReadingDetail = {
   countersign: { by: string; at: string } | null;
 };
 
-export const readingsQueryOptions = (unitId: number) =>
-  queryOptions({
-    queryKey: readingKeys.list(unitId),
-    queryFn: async () => (await api.get<{ readings: ReadingSummary[] }>(`/api/units/${unitId}/readings?limit=20`)).readings,
-  });
+export { readingsQueryOptions };
 export const useReadings = (unitId: number | null) => useQuery({ ...readingsQueryOptions(unitId ?? 0), enabled: unitId !== null });
 
 export const readingQueryOptions = (id: number) =>
