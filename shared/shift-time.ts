@@ -18,14 +18,27 @@ export function shiftStartFor(at: Date, timeZone: string, changeTimes: readonly 
   return new Date(best);
 }
 
+// nextShiftStart's answers by their exact inputs: it is asked on nearly every request (the crew on shift,
+// the shift picture) and each answer takes up to 26 × 7 zone conversions; its inputs are shift starts,
+// a handful a day, so the same few answers are asked again and again. Bounded: emptied when full.
+const nextStarts = new Map<string, number>();
+const NEXT_STARTS_KEPT = 2000;
+
 /** Start (UTC) of the shift after the one starting at `shiftStart`. */
 export function nextShiftStart(shiftStart: Date, timeZone: string, changeTimes: readonly string[]): Date {
+  const key = `${shiftStart.getTime()}|${timeZone}|${changeTimes.join(',')}`;
+  const known = nextStarts.get(key);
+  if (known !== undefined) return new Date(known);
   // Half an hour past the longest possible shift gap lands inside the next shift or the one after;
   // stepping forward an hour at a time finds the first change after `shiftStart`.
   for (let hours = 1; hours <= 26; hours++) {
     const probe = new Date(shiftStart.getTime() + hours * 3_600_000);
     const start = shiftStartFor(probe, timeZone, changeTimes);
-    if (start.getTime() > shiftStart.getTime()) return start;
+    if (start.getTime() > shiftStart.getTime()) {
+      if (nextStarts.size >= NEXT_STARTS_KEPT) nextStarts.clear();
+      nextStarts.set(key, start.getTime());
+      return start;
+    }
   }
   throw new Error('no shift change within 26 hours');
 }
