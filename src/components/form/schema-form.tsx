@@ -30,10 +30,20 @@ export function throughContract<TForm, TSchema extends z.ZodType>(
   });
 }
 
+const CHECKS_UNAVAILABLE = 'checks-unavailable';
+const checksUnavailable = 'The form’s checks could not be loaded, so nothing was saved: check the connection and save again.';
+
 /** react-hook-form's resolver for a contract: zodResolver, once it and the contract are loaded. */
 function contractResolver<S extends z.ZodType>(contract: Contract<S>): Resolver<FieldValues, unknown, unknown> {
   return async (values, context, options) => {
-    const [{ zodResolver }, schema] = await Promise.all([import('@hookform/resolvers/zod'), loadContract(contract)]);
+    let loaded: [typeof import('@hookform/resolvers/zod'), S];
+    try {
+      loaded = await Promise.all([import('@hookform/resolvers/zod'), loadContract(contract)]);
+    } catch {
+      // The checks' code did not arrive (the connection dropped first): refuse, and say so (see useSchemaForm's submit).
+      return { values: {}, errors: { root: { type: CHECKS_UNAVAILABLE, message: checksUnavailable } } };
+    }
+    const [{ zodResolver }, schema] = loaded;
     return (zodResolver(schema as never) as unknown as Resolver<FieldValues, unknown, unknown>)(values, context, options);
   };
 }
@@ -95,7 +105,8 @@ export function useSchemaForm<TSchema extends z.ZodType<unknown, FieldValues>>(
           }
         },
         (errors) => {
-          setFailure(null);
+          const root = (errors as { root?: { type?: string } }).root;
+          setFailure(root?.type === CHECKS_UNAVAILABLE ? new Error(checksUnavailable) : null);
           refused?.(errors);
         },
       ),
