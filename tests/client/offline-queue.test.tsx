@@ -187,3 +187,25 @@ describe('the list of what waits', () => {
     expect(screen.getAllByTestId('waiting-record')).toHaveLength(1);
   });
 });
+
+describe('the shell’s online indicator', () => {
+  it('says Online once the browser has its network back, even if the “online” event came before it listened', async () => {
+    fakeServer({ 'GET /api/session/csrf': { body: { csrfToken: 't' } } });
+    const onLine = vi.spyOn(navigator, 'onLine', 'get').mockReturnValue(false);
+    const { QueryClient, QueryClientProvider } = await import('@tanstack/react-query');
+    const { OfflineStatus } = await import('../../src/features/offline/components/offline-status');
+    render(
+      <QueryClientProvider client={new QueryClient()}>
+        <OfflineStatus userId={7} />
+      </QueryClientProvider>,
+    );
+    expect(screen.getByRole('status').textContent).toMatch(/Offline/);
+    // The network comes back between the indicator's first draw and its listening (no event reaches it) ...
+    onLine.mockReturnValue(true);
+    // ... and the next change of the queue redraws it: it must read the network afresh, not keep “Offline”.
+    await act(async () => {
+      await discard('a record not on this device');
+    });
+    expect(screen.getByRole('status').textContent).toMatch(/^\W*Online/);
+  });
+});

@@ -1,4 +1,4 @@
-import { useEffect, useState } from 'react';
+import { useEffect, useSyncExternalStore } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import { invalidateForChange } from '../../../app/live-keys';
 import { loadQueue, noteSignedInPerson, sendQueued } from './offline-store';
@@ -6,19 +6,22 @@ import { loadQueue, noteSignedInPerson, sendQueued } from './offline-store';
 /** How often waiting records are tried while the page is open, besides `online` and app start. */
 export const RETRY_INTERVAL_MS = 30_000;
 
-/** Whether the browser says it has a network (it may still fail a request: the queue copes). */
+const onNetworkChange = (listener: () => void) => {
+  window.addEventListener('online', listener);
+  window.addEventListener('offline', listener);
+  return () => {
+    window.removeEventListener('online', listener);
+    window.removeEventListener('offline', listener);
+  };
+};
+
+/**
+ * Whether the browser says it has a network (it may still fail a request: the queue copes). Read
+ * afresh on every draw, not only on the events: one that came before the indicator listened (it loads
+ * after the page) must not leave it saying "Offline".
+ */
 export function useOnline(): boolean {
-  const [online, setOnline] = useState(() => navigator.onLine);
-  useEffect(() => {
-    const update = () => setOnline(navigator.onLine);
-    window.addEventListener('online', update);
-    window.addEventListener('offline', update);
-    return () => {
-      window.removeEventListener('online', update);
-      window.removeEventListener('offline', update);
-    };
-  }, []);
-  return online;
+  return useSyncExternalStore(onNetworkChange, () => navigator.onLine);
 }
 
 /**
