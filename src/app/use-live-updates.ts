@@ -91,6 +91,8 @@ export function useBoardPresence(unitId: number | null): string[] {
   return presence && presence.unitId === unitId ? presence.people : [];
 }
 
+const FIRST_CONNECT_GRACE_MS = 10_000;
+
 /**
  * Whether this tab is hearing the server: false while the browser is offline or the live connection
  * is down (after a short grace, so a reconnect does not flash a warning).
@@ -111,7 +113,11 @@ export function useConnected(signedIn: boolean): boolean {
     socket.on('disconnect', update);
     window.addEventListener('online', update);
     window.addEventListener('offline', update);
+    // A connection that never comes up (its client could not be fetched, the server is unreachable) sends
+    // no event: look once after a grace long enough for a slow link to load the client and connect.
+    const firstLook = setTimeout(() => setConnected(navigator.onLine && socket.connected), FIRST_CONNECT_GRACE_MS);
     return () => {
+      clearTimeout(firstLook);
       clearTimeout(timer);
       socket.off('connect', update);
       socket.off('disconnect', update);

@@ -4,6 +4,8 @@ import type { Socket } from 'socket.io-client';
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
 type Listener = (...args: any[]) => void;
 
+const RETRY_LOAD_MS = 5000;
+
 /**
  * The tab's live connection. The socket.io client (~15 kB gzip'd) is loaded after the first page
  * has drawn, not with it: until it is there, listeners are kept and attached when it arrives, and an
@@ -18,11 +20,18 @@ export class LiveConnection {
   readonly ready: Promise<void>;
 
   constructor(load: () => Promise<typeof import('socket.io-client')> = () => import('socket.io-client')) {
-    this.ready = load().then(({ io }) => {
-      if (this.closed) return;
-      this.socket = io({ withCredentials: true, transports: ['websocket', 'polling'] });
-      for (const [event, fns] of this.listeners) for (const fn of fns) this.socket.on(event, fn);
-    });
+    // A client that could not be fetched (the network dropped first) is asked for again a little later;
+    // until then the page is as it is with the connection down (the shell says so after a grace, see useConnected).
+    const attempt = (): Promise<void> =>
+      load().then(
+        ({ io }) => {
+          if (this.closed) return;
+          this.socket = io({ withCredentials: true, transports: ['websocket', 'polling'] });
+          for (const [event, fns] of this.listeners) for (const fn of fns) this.socket.on(event, fn);
+        },
+        () => (this.closed ? undefined : new Promise<void>((resolve) => setTimeout(resolve, RETRY_LOAD_MS)).then(attempt)),
+      );
+    this.ready = attempt();
   }
 
   get connected(): boolean {
