@@ -5,7 +5,7 @@ import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
 import { navigationFor } from '../src/app/navigation';
 import type { Role } from '../shared/roles';
-import { signIn } from './support';
+import { shiftChangeNotWithin, signIn } from './support';
 
 const people: { role: Role; email: string }[] = [
   { role: 'trainee', email: 'trainee.a@fernhollow.example' },
@@ -85,3 +85,45 @@ for (const { role, email } of people) {
     expect(findings, readable(findings)).toEqual([]);
   });
 }
+
+// Pages reached through a record rather than the menu: opened by the link a person would follow, from
+// the page that lists the record (the demo has one of each), then checked as above.
+const recordPages: { name: string; email: string; from: string; link: string }[] = [
+  { name: 'a round', email: 'operator.b@fernhollow.example', from: '/rounds?unit=1', link: 'a[href^="/rounds/"]' },
+  { name: 'a past shift in the logbook', email: 'trainer@fernhollow.example', from: '/logbook?q=seal', link: 'a[href^="/logbook/units/"]' },
+  { name: 'a trainee’s record', email: 'trainer@fernhollow.example', from: '/training', link: 'a[href^="/training/trainees/"]' },
+];
+
+/** Opens `href` and checks it once drawn. */
+async function checkRecordPage(page: Page, href: string) {
+  await page.goto(href);
+  await expect(page.locator('h1').first()).toBeVisible({ timeout: 15_000 });
+  await expect(page.getByText(/^Loading/)).toHaveCount(0, { timeout: 15_000 });
+  return check(page, href.replace(/\?.*$/, '').replace(/\d[^/]*/g, ':id'));
+}
+
+for (const { name, email, from, link } of recordPages) {
+  test(`${name} has no serious or critical accessibility violation, light and dark`, async ({ page }) => {
+    await signIn(page, email);
+    await expect(page.getByTestId('signed-in-as')).toBeVisible();
+    await page.goto(from);
+    const first = page.locator(link).first();
+    await expect(first, `no link to ${name} on ${from}`).toBeVisible({ timeout: 15_000 });
+    const findings = await checkRecordPage(page, (await first.getAttribute('href'))!);
+    expect(findings, readable(findings)).toEqual([]);
+  });
+}
+
+// The print view of a handover is opened from its board: the outgoing operator starts this shift's
+// draft unless an earlier test has, and follows "Print view".
+test('a handover’s print view has no serious or critical accessibility violation, light and dark', async ({ page, baseURL }) => {
+  const change = await shiftChangeNotWithin(baseURL!, 2);
+  await signIn(page, `operator.${change.outgoing}@fernhollow.example`);
+  await expect(page.getByTestId('signed-in-as')).toBeVisible();
+  await page.goto(`/handover?unit=${change.unitId}`);
+  if (!change.draftStarted) await page.getByRole('button', { name: 'Start this shift’s handover' }).click();
+  const print = page.getByRole('link', { name: 'Print view' });
+  await expect(print).toBeVisible({ timeout: 15_000 });
+  const findings = await checkRecordPage(page, (await print.getAttribute('href'))!);
+  expect(findings, readable(findings)).toEqual([]);
+});
