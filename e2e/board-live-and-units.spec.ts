@@ -2,7 +2,7 @@
 // reaches every open screen of the other at once; the handover editor never mixes up units, and
 // text typed just before a reload is still there.
 import { expect, test, type Page } from '@playwright/test';
-import { shiftChangeNotWithin, shiftChangeNow, signInReadingOrders } from './support';
+import { shiftChangeNotWithin, shiftChangeNow, signInReadingOrders, typeVacuumRound } from './support';
 
 const nav = (page: Page, name: string) => page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name, exact: true }).click();
 
@@ -53,15 +53,9 @@ test('a round with a high backpressure saved in one browser shows within a secon
   await signInReadingOrders(recorder, 'field.a@fernhollow.example');
   await recorder.goto(`/rounds?unit=${unitParam}`);
   const form = recorder.getByRole('form', { name: 'Record a round' });
-  await form.getByLabel('Pressure gauge').selectOption('inHg_vac');
-  await form.getByLabel('Barometer', { exact: true }).fill('29.92');
   // 25.0 inHg vacuum → 4.92 inHgA = 16.66 kPa a (1 inHg at 32 °F = 3.386389 kPa): above the 16 kPa a alarm limit.
-  await form.getByLabel('Condenser vacuum').fill('25.0');
-  await form.getByLabel('Hotwell temperature').fill('54.5');
   // Warm water (33 → 43 °C) keeps the TTD (13 K) inside its plausible 1–15 K, so no confirmation is asked.
-  await form.getByLabel('CW inlet temperature').fill('33');
-  await form.getByLabel('CW outlet temperature').fill('43');
-  await form.getByLabel('CW flow', { exact: true }).fill('54000');
+  await typeVacuumRound(form, { vacuumInHg: '25.0', hotwellC: '54.5', cwInC: '33', cwOutC: '43', cwFlowM3h: '54000' });
   await form.getByRole('button', { name: 'Save round' }).click();
   await expect(recorder.getByText('Round saved.')).toBeVisible();
 

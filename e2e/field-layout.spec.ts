@@ -2,7 +2,7 @@
 // round. The checks stay in view while a round is typed, the menu reaches every page a role has, and
 // every control on the pages used out there is big enough for a finger.
 import { expect, test, type Page } from '@playwright/test';
-import { signInReadingOrders } from './support';
+import { signInReadingOrders, typeVacuumRound } from './support';
 
 const devices = [
   { name: 'phone', viewport: { width: 390, height: 844 } },
@@ -65,16 +65,10 @@ for (const device of devices) {
       const form = page.getByRole('form', { name: 'Record a round' });
       const summary = page.getByTestId('checks-summary');
       await expect(summary).toContainText('Checks appear here as you type');
-      await form.getByLabel('Pressure gauge').selectOption('inHg_vac');
-      await form.getByLabel('Barometer', { exact: true }).fill('29.92');
       // 25.0 inHg vacuum → 4.92 inHgA = 16.661 kPa a (1 inHg at 32 °F = 3.386389 kPa, NIST SP 811): above the
       // demo's 16 kPa a alarm limit, as in rounds-flags-trends.spec.ts.
-      await form.getByLabel('Condenser vacuum').fill('25.0');
-      await form.getByLabel('Hotwell temperature').fill('54.5');
-      await form.getByLabel('CW inlet temperature').fill('33');
-      await form.getByLabel('CW outlet temperature').fill('43');
+      await typeVacuumRound(form, { vacuumInHg: '25.0', hotwellC: '54.5', cwInC: '33', cwOutC: '43', cwFlowM3h: '54000' });
       const flow = form.getByLabel('CW flow', { exact: true });
-      await flow.fill('54000');
       await expect(flow).toBeFocused();
 
       // The backpressure's line: the shape and word of its status, its value and its unit (in the round's units).

@@ -1,5 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
-import { apiAs, signInReadingOrders } from './support';
+import { apiAs, signInReadingOrders, typeVacuumRound } from './support';
 
 // A field operator walks a round where there is no network: the round and a log entry are kept on
 // the device, survive a reload without a network (the shell and the data come from the service
@@ -75,13 +75,7 @@ test('a round and a log entry made offline are kept through a reload, then store
 
   // A round typed in the pump house: judged on the device as it is typed.
   const form = page.getByRole('form', { name: 'Record a round' });
-  await form.getByLabel('Pressure gauge').selectOption('inHg_vac');
-  await form.getByLabel('Barometer', { exact: true }).fill('29.92');
-  await form.getByLabel('Condenser vacuum').fill('28.0');
-  await form.getByLabel('Hotwell temperature').fill('37');
-  await form.getByLabel('CW inlet temperature').fill('25');
-  await form.getByLabel('CW outlet temperature').fill('33');
-  await form.getByLabel('CW flow', { exact: true }).fill('54000');
+  await typeVacuumRound(form, { vacuumInHg: '28.0', hotwellC: '37', cwInC: '25', cwOutC: '33', cwFlowM3h: '54000' });
   await expect(page.getByTestId('check-saturationTemperature')).toBeVisible();
   await form.getByRole('button', { name: 'Save round' }).click();
   await expect(page.getByText('the round is kept on this device, waiting to send')).toBeVisible();

@@ -1,21 +1,16 @@
 import { expect, test } from '@playwright/test';
-import { signIn, signOut } from './support';
+import { signIn, signOut, typeVacuumRound } from './support';
 
 test('an operator records a round in inHg vacuum with a barometer and an alarm flag is raised', async ({ page }) => {
   await signIn(page, 'operator.b@fernhollow.example');
   await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Rounds' }).click();
   await expect(page.getByTestId('last-reading')).toContainText('Last round');
   const form = page.getByRole('form', { name: 'Record a round' });
-  await form.getByLabel('Pressure gauge').selectOption('inHg_vac');
-  await expect(form.getByLabel('Barometer unit')).toHaveValue('inHgA');
-  await form.getByLabel('Barometer', { exact: true }).fill('29.92');
   // 25.0 inHg vacuum → 4.92 inHgA = 16.661 kPa a (1 inHg at 32 °F = 3.386389 kPa, NIST SP 811): above the 16 kPa a alarm limit.
-  await form.getByLabel('Condenser vacuum').fill('25.0');
-  await form.getByLabel('Hotwell temperature').fill('54.5');
   // Warm water (33 → 43 °C) keeps the TTD (13 K) inside its plausible 1–15 K, so no confirmation is asked.
-  await form.getByLabel('CW inlet temperature').fill('33');
-  await form.getByLabel('CW outlet temperature').fill('43');
-  await form.getByLabel('CW flow', { exact: true }).fill('54000');
+  await typeVacuumRound(form, { vacuumInHg: '25.0', hotwellC: '54.5', cwInC: '33', cwOutC: '43', cwFlowM3h: '54000' });
+  // A vacuum gauge takes its barometer in inHg absolute.
+  await expect(form.getByLabel('Barometer unit')).toHaveValue('inHgA');
   // Ts(16.661 kPa) = 56.16 °C: IAPWS-IF97 saturation-temperature equation (eq. 31) worked by hand,
   // between the steam tables' 53.97 °C at 15 kPa and 60.06 °C at 20 kPa. Subcooling = 56.16 − 54.5
   // = 1.66 K; TTD = 56.16 − 43 = 13.16 K.

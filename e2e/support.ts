@@ -1,4 +1,4 @@
-import { expect, request, type Page } from '@playwright/test';
+import { expect, request, type Locator, type Page } from '@playwright/test';
 
 export const DEMO_PASSWORD = 'hotwell-demo-2026';
 
@@ -139,4 +139,18 @@ export async function repeatLastRound(baseURL: string, email: string, unitId: nu
 export async function signedInName(page: Page): Promise<string> {
   const text = await page.getByTestId('signed-in-as').textContent();
   return text!.split(' · ')[0]!.trim();
+}
+
+/**
+ * Types a round on the rounds form with the gauge in inHg vacuum and a barometer of 29.92 inHgA (the
+ * way the demo's field operators read it), in °C and m³/h. Does not save.
+ */
+export async function typeVacuumRound(form: Locator, r: { vacuumInHg: string; hotwellC: string; cwInC: string; cwOutC: string; cwFlowM3h: string }) {
+  await form.getByLabel('Pressure gauge').selectOption('inHg_vac');
+  await form.getByLabel('Barometer', { exact: true }).fill('29.92');
+  await form.getByLabel('Condenser vacuum').fill(r.vacuumInHg);
+  await form.getByLabel('Hotwell temperature').fill(r.hotwellC);
+  await form.getByLabel('CW inlet temperature').fill(r.cwInC);
+  await form.getByLabel('CW outlet temperature').fill(r.cwOutC);
+  await form.getByLabel('CW flow', { exact: true }).fill(r.cwFlowM3h);
 }
