@@ -3,7 +3,8 @@
 // what a refusal or a sign-in answer does, and that another person's records wait for them.
 import { act, render, screen, within } from '@testing-library/react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import { discard, noteSignedInPerson, replaceQueueStorage, sendOrKeep, sendQueued, loadQueue } from '../../src/features/offline/api/offline-store';
+import { discard, replaceQueueStorage, sendOrKeep, sendQueued, loadQueue } from '../../src/features/offline/api/offline-store';
+import { noteSignedInPerson } from '../../src/features/offline/api/session-person';
 import { sendWaiting, type QueueStorage, type QueuedRecord } from '../../src/features/offline/api/queue';
 import { WaitingRecords } from '../../src/features/offline/components/waiting-records';
 import { ApiError } from '../../src/lib/api-client';

@@ -85,7 +85,6 @@ export async function discard(clientId: string) {
 // Who the page's session belongs to now. A record goes out with whatever session cookie the page
 // holds at that moment, so each send first checks it is still its author's: at shift change one
 // person signs out and the next signs in on the same tablet while a slow pass is still sending.
-export { noteSignedInPerson } from './session-person';
 
 const sending = new Map<number, Promise<SendOutcome>>();
 

@@ -1,7 +1,8 @@
 import { useEffect, useSyncExternalStore } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import { invalidateForChange } from '../../../app/live-keys';
-import { loadQueue, noteSignedInPerson, sendQueued } from './offline-store';
+import { loadQueue, sendQueued } from './offline-store';
+import { noteSignedInPerson } from './session-person';
 
 /** How often waiting records are tried while the page is open, besides `online` and app start. */
 export const RETRY_INTERVAL_MS = 30_000;

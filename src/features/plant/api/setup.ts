@@ -50,10 +50,12 @@ export function useChangeSetup(unitId: number, onVersionSaved?: OnVersionSaved) 
   });
 }
 
-/** The versions this person saved on this page, per unit: a form says “Saved” while the version in force is the one they saved. */
-export function useVersionsSavedHere(unitId: number | null) {
-  const [saved, setSaved] = useState<{ unitId: number | null; versions: Partial<Record<VersionKind, number>> }>({ unitId, versions: {} });
-  const versions = saved.unitId === unitId ? saved.versions : {};
-  const onVersionSaved = useCallback<OnVersionSaved>((kind, versionId) => setSaved((s) => ({ unitId, versions: { ...(s.unitId === unitId ? s.versions : {}), [kind]: versionId } })), [unitId]);
+/**
+ * The versions this person saved on this page: a form says “Saved” while the version in force is the one
+ * they saved. Version ids are unique across units, so another unit's in-force version never matches.
+ */
+export function useVersionsSavedHere() {
+  const [versions, setVersions] = useState<Partial<Record<VersionKind, number>>>({});
+  const onVersionSaved = useCallback<OnVersionSaved>((kind, versionId) => setVersions((v) => ({ ...v, [kind]: versionId })), []);
   return { versions, onVersionSaved };
 }

@@ -78,7 +78,7 @@ export function PlantPage() {
   const { unitId, unit } = useSelectedUnit();
   useWatchUnit(unitId);
   const setup = useUnitSetup(unitId);
-  const { versions: savedHere, onVersionSaved } = useVersionsSavedHere(unitId);
+  const { versions: savedHere, onVersionSaved } = useVersionsSavedHere();
   const editable = Boolean(me && can(me.role, 'plant.manage'));
   return (
     <section className="flex flex-col gap-4">
