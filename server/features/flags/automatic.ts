@@ -36,17 +36,25 @@ export async function refreshAutomaticFlags(
     lock: transaction.LOCK.UPDATE,
   });
   const byParameter = new Map(open.map((f) => [f.parameter, f]));
+  // Flags this round only brings up to date (last value, last seen): no hook watches those
+  // columns (the search document and the handover's item show neither), so they are written
+  // together in one statement instead of one save each.
+  const seenAgain: { id: number; value: number | null }[] = [];
   let raised = 0;
   for (const check of broken) {
     const severity = check.status as 'watch' | 'alarm';
     const existing = byParameter.get(check.key);
+    const escalates = existing !== undefined && severity === 'alarm' && existing.severity !== 'alarm';
+    if (existing && !escalates && takenAt >= existing.lastSeenAt) {
+      seenAgain.push({ id: existing.id, value: check.value });
+      continue;
+    }
     if (existing) {
       if (takenAt >= existing.lastSeenAt) {
         existing.lastReadingSetId = readingSetId;
         existing.lastSeenAt = takenAt;
         existing.lastValue = check.value;
       }
-      const escalates = severity === 'alarm' && existing.severity !== 'alarm';
       if (escalates) existing.severity = 'alarm';
       existing.version += 1;
       await existing.save({ transaction });
@@ -74,6 +82,12 @@ export async function refreshAutomaticFlags(
       publish(transaction, { entity: 'flag', id: created.id, unitId });
       raised += 1;
     }
+  }
+  if (seenAgain.length) {
+    await Flag.sequelize!.query(
+      `UPDATE flags SET last_reading_set_id = ?, last_seen_at = ?, last_value = CASE id ${seenAgain.map(() => 'WHEN ? THEN ?').join(' ')} END, version = version + 1 WHERE id IN (${seenAgain.map(() => '?').join(', ')})`,
+      { replacements: [readingSetId, takenAt, ...seenAgain.flatMap((f) => [f.id, f.value]), ...seenAgain.map((f) => f.id)], transaction },
+    );
   }
   return raised;
 }
