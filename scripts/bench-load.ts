@@ -48,6 +48,13 @@ const rssOf = (child: ChildProcess) => {
   return Number(/VmRSS:\s+(\d+) kB/.exec(status)?.[1] ?? 0) / 1024;
 };
 
+// The server's CPU time so far (user + system, in ms), from /proc: how much work a phase cost it,
+// which varies far less between runs than the latencies do.
+const cpuMsOf = (child: ChildProcess) => {
+  const fields = readFileSync(`/proc/${child.pid}/stat`, 'utf8').split(') ')[1]!.split(' ');
+  return ((Number(fields[11]) + Number(fields[12])) * 1000) / 100; // utime, stime in clock ticks (USER_HZ = 100)
+};
+
 type Action = { name: string; weight: number; run: (s: Session, i: number) => Promise<{ status: number }> };
 
 function mix(unitIds: number[]): Action[] {
@@ -85,7 +92,8 @@ function pick(actions: Action[]): Action {
   return actions.at(-1)!;
 }
 
-async function phase(label: string, sessions: Session[], actions: Action[]) {
+async function phase(label: string, sessions: Session[], actions: Action[], server: ChildProcess) {
+  const cpuBefore = cpuMsOf(server);
   const times: number[] = [];
   const perAction = new Map<string, number[]>();
   const errors = new Map<string, number>();
@@ -115,7 +123,9 @@ async function phase(label: string, sessions: Session[], actions: Action[]) {
   );
   const seconds = (performance.now() - started) / 1000;
   const line = (values: number[]) => `p50 ${percentile(values, 50).toFixed(1)} ms, p95 ${percentile(values, 95).toFixed(1)} ms, p99 ${percentile(values, 99).toFixed(1)} ms`;
+  const cpuMs = cpuMsOf(server) - cpuBefore;
   console.log(`${label}: ${times.length} requests in ${seconds.toFixed(1)} s = ${(times.length / seconds).toFixed(1)} req/s; ${line(times)}; errors ${[...errors.values()].reduce((a, b) => a + b, 0)}`);
+  console.log(`  server CPU ${(cpuMs / 1000).toFixed(1)} s = ${((100 * cpuMs) / 1000 / seconds).toFixed(0)} % of one core, ${(cpuMs / times.length).toFixed(2)} ms per request`);
   for (const [name, values] of perAction) if (perAction.size > 1) console.log(`  ${name.padEnd(10)} ${String(values.length).padStart(6)} × ${line(values)}`);
   for (const [what, count] of errors) console.log(`  error ${what}: ${count}`);
   return { p95: percentile(times, 95), errors: [...errors.values()].reduce((a, b) => a + b, 0) };
@@ -157,8 +167,8 @@ async function run(url: string) {
     for (let i = 0; i < CLIENTS; i++) sessions.push(await signIn(writers[i % writers.length]!));
     const rssBefore = rssOf(server);
     console.log(`${CLIENTS} signed-in clients, think time 0.5–1.5 s, ${SECONDS} s per phase; server RSS ${rssBefore.toFixed(0)} MB`);
-    const floor = await phase('floor (GET /api/me)', sessions, [{ name: 'me', weight: 1, run: (s) => call('GET', '/api/me', s) }]);
-    const load = await phase('mix (board, log, overview, search, log entry, round)', sessions, mix(unitIds));
+    const floor = await phase('floor (GET /api/me)', sessions, [{ name: 'me', weight: 1, run: (s) => call('GET', '/api/me', s) }], server);
+    const load = await phase('mix (board, log, overview, search, log entry, round)', sessions, mix(unitIds), server);
     const rssAfter = rssOf(server);
     console.log(`server RSS before ${rssBefore.toFixed(0)} MB, after ${rssAfter.toFixed(0)} MB`);
     console.log(`mix p95 / floor p95: ${(load.p95 / floor.p95).toFixed(2)}× (target within 3×); errors ${load.errors + floor.errors} (target 0)`);

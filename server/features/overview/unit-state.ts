@@ -8,36 +8,42 @@ import type { Status } from '../../../shared/calc/limits';
 import { overviewCheckKeys, type OverviewCheck, type OverviewFlag } from '../../../shared/schemas/overview';
 import { Condition } from '../conditions/index';
 import { Handover, HandoverAck, HandoverItem, HandoverQuery } from '../handovers/index';
-import { ReadingAmendment, ReadingCountersign, ReadingSet } from '../readings/index';
 
 /** The newest round (walked and recorded, not imported history) of each unit, in its current version. */
 export async function latestRounds(sequelize: Sequelize, unitIds: number[]) {
   if (!unitIds.length) return new Map<number, LatestRound>();
-  // One index range per unit, newest first, in a single statement.
+  // One statement: an index range per unit, newest first, then that round with its latest
+  // amendment's results and whether it is countersigned (this page is asked by everyone on shift).
   const pick = unitIds.map(() => `(SELECT id FROM reading_sets WHERE unit_id = ? AND source = 'round' ORDER BY taken_at DESC, id DESC LIMIT 1)`).join(' UNION ALL ');
-  const ids = (await sequelize.query<{ id: number }>(pick, { replacements: unitIds, type: QueryTypes.SELECT })).map((r) => Number(r.id));
-  if (!ids.length) return new Map<number, LatestRound>();
-  const [readings, amendments, countersigns] = await Promise.all([
-    ReadingSet.findAll({ where: { id: ids }, attributes: ['id', 'unitId', 'takenAt', 'recordedBy', 'recordedAsTrainee', 'results', 'worstStatus'] }),
-    ReadingAmendment.findAll({ where: { readingSetId: ids }, attributes: ['id', 'readingSetId', 'results', 'worstStatus'], order: [['id', 'ASC']] }),
-    ReadingCountersign.findAll({ where: { readingSetId: ids }, attributes: ['readingSetId'] }),
-  ]);
-  const signed = new Set(countersigns.map((c) => c.readingSetId));
+  type Row = {
+    id: number; unitId: number; takenAt: Date; recordedBy: number; recordedAsTrainee: number; results: Evaluation | string; worstStatus: Status;
+    amendedResults: Evaluation | string | null; amendedWorstStatus: Status | null; countersigned: number;
+  };
+  const rows = await sequelize.query<Row>(
+    `SELECT r.id, r.unit_id AS unitId, r.taken_at AS takenAt, r.recorded_by AS recordedBy, r.recorded_as_trainee AS recordedAsTrainee, r.results, r.worst_status AS worstStatus,
+       a.results AS amendedResults, a.worst_status AS amendedWorstStatus,
+       EXISTS (SELECT 1 FROM reading_countersigns c WHERE c.reading_set_id = r.id) AS countersigned
+     FROM (${pick}) latest
+     JOIN reading_sets r ON r.id = latest.id
+     LEFT JOIN reading_amendments a ON a.id = (SELECT MAX(x.id) FROM reading_amendments x WHERE x.reading_set_id = r.id)`,
+    { replacements: unitIds, type: QueryTypes.SELECT },
+  );
+  const parsed = (value: Evaluation | string): Evaluation => (typeof value === 'string' ? (JSON.parse(value) as Evaluation) : value);
   return new Map(
-    readings.map((r) => {
-      const current = amendments.filter((a) => a.readingSetId === r.id).at(-1);
+    rows.map((r) => {
+      const amended = r.amendedResults !== null;
       const round: LatestRound = {
-        id: r.id,
-        unitId: r.unitId,
-        takenAt: r.takenAt,
-        recordedBy: r.recordedBy,
+        id: Number(r.id),
+        unitId: Number(r.unitId),
+        takenAt: new Date(r.takenAt),
+        recordedBy: Number(r.recordedBy),
         recordedAsTrainee: Boolean(r.recordedAsTrainee),
-        needsCountersign: Boolean(r.recordedAsTrainee) && !signed.has(r.id),
-        amended: Boolean(current),
-        worstStatus: current?.worstStatus ?? r.worstStatus,
-        checks: keyChecks(current?.results ?? r.results),
+        needsCountersign: Boolean(r.recordedAsTrainee) && !Number(r.countersigned),
+        amended,
+        worstStatus: (amended ? r.amendedWorstStatus : r.worstStatus)!,
+        checks: keyChecks(parsed(amended ? r.amendedResults! : r.results)),
       };
-      return [r.unitId, round];
+      return [round.unitId, round];
     }),
   );
 }
