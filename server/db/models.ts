@@ -43,5 +43,6 @@ export function initModels(sequelize: Sequelize) {
   registerLogbookIndexHooks(sequelize);
   registerHandoverDraftHooks();
   // Reference data is cached (lib/reference-cache.ts); a write to any of these forgets it.
-  watchReferenceModels([Station, PlantUnit, Crew, UnitDesignVersion, LimitSetVersion, PlausibleRangeVersion, StationSettingsRow, CrewSwap]);
+  // Users too: people's names, roles and crews (users/people.ts's directory).
+  watchReferenceModels([Station, PlantUnit, Crew, UnitDesignVersion, LimitSetVersion, PlausibleRangeVersion, StationSettingsRow, CrewSwap, User]);
 }

@@ -9,7 +9,9 @@ import { limitsInForce } from '../../server/features/plant/index';
 import { LimitSetVersion } from '../../server/features/plant/model';
 import { unitOfWork } from '../../server/lib/unit-of-work';
 import { startingLimits } from '../../shared/calc/limits';
-import { closeAll, db, makeStation } from './support/test-app';
+import { namesOf } from '../../server/features/users/index';
+import { User } from '../../server/features/users/model';
+import { closeAll, db, makeStation, makeUser } from './support/test-app';
 
 let stationId = 0;
 let unitId = 0;
@@ -61,5 +63,14 @@ describe('reference data cache', () => {
     expect(now.id).not.toBe(before.id);
     // A moment before it still has the earlier set.
     expect((await limitsInForce(unitId, new Date(created.effectiveFrom.getTime() - 1))).id).toBe(before.id);
+  });
+
+  it('people’s names come from memory, and a rename through the app is seen at once', async () => {
+    const person = await makeUser('operator');
+    expect((await namesOf([person.id])).get(person.id)).toBe(person.name);
+    await db().query('UPDATE users SET name = ? WHERE id = ?', { replacements: ['Renamed behind the app', person.id] });
+    expect((await namesOf([person.id])).get(person.id)).toBe(person.name);
+    await User.update({ name: 'Renamed by an administrator' }, { where: { id: person.id } });
+    expect((await namesOf([person.id])).get(person.id)).toBe('Renamed by an administrator');
   });
 });

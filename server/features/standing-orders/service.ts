@@ -1,6 +1,6 @@
 // Standing orders: a shift lead issues, everyone in scope acknowledges having read it.
 import { richTextToPlain, sanitizeRichText } from '../../lib/rich-text';
-import { Op, type Sequelize } from 'sequelize';
+import { Op, QueryTypes, type Sequelize } from 'sequelize';
 import { recordAudit } from '../../lib/audit';
 import { Conflict, Forbidden, NotFound, ValidationError } from '../../lib/errors';
 import { publish } from '../../lib/live';
@@ -27,7 +27,7 @@ export async function peopleInScope(order: StandingOrder) {
   });
 }
 
-function inScope(order: StandingOrder, user: { role: string; crewId: number | null; position?: string | null }) {
+function inScope(order: Pick<StandingOrder, 'crewIds' | 'positions'>, user: { role: string; crewId: number | null; position?: string | null }) {
   return (
     (inScopeRoles as readonly string[]).includes(user.role) &&
     (!order.crewIds.length || (user.crewId !== null && order.crewIds.includes(user.crewId))) &&
@@ -149,17 +149,28 @@ export async function presentOrder(order: StandingOrder, withPeople: boolean) {
  * their crew is on shift (always, where the station has no crew rotation or they have no crew).
  */
 export async function pendingFor(userId: number) {
-  const person = await findPerson(userId);
-  if (!person) return [];
+  // One statement (the front page asks it for everyone on every visit): the orders in force, the
+  // person, and whether they have read each one.
+  type Row = { id: number; stationId: number; title: string; bodyHtml: string; effectiveFrom: Date; crewIds: number[] | string; positions: string[] | string; role: string; crewId: number | null; position: string | null };
   const now = new Date();
-  const orders = await StandingOrder.findAll({ where: { effectiveFrom: { [Op.lte]: now }, [Op.or]: [{ effectiveTo: null }, { effectiveTo: { [Op.gt]: now } }] } });
-  const acked = new Set((await StandingOrderAck.findAll({ where: { userId, orderId: orders.map((o) => o.id) } })).map((a) => a.orderId));
+  const rows = await StandingOrder.sequelize!.query<Row>(
+    `SELECT o.id, o.station_id AS stationId, o.title, o.body_html AS bodyHtml, o.effective_from AS effectiveFrom, o.crew_ids AS crewIds, o.positions,
+       u.role, u.crew_id AS crewId, u.position
+     FROM users u
+     JOIN standing_orders o ON o.effective_from <= ? AND (o.effective_to IS NULL OR o.effective_to > ?)
+     WHERE u.id = ? AND NOT EXISTS (SELECT 1 FROM standing_order_acks a WHERE a.order_id = o.id AND a.user_id = u.id)
+     ORDER BY o.id`,
+    { replacements: [now, now, userId], type: QueryTypes.SELECT },
+  );
+  if (rows.length === 0) return [];
+  const list = <T,>(value: T[] | string): T[] => (typeof value === 'string' ? (JSON.parse(value) as T[]) : value) ?? [];
+  const person = { role: rows[0]!.role, crewId: rows[0]!.crewId, position: rows[0]!.position };
   const onShift = new Map<number, boolean>();
-  for (const stationId of new Set(orders.map((o) => o.stationId))) {
+  for (const stationId of new Set(rows.map((o) => o.stationId))) {
     const crewNow = person.crewId === null ? null : (await shiftChangeAt(stationId, now)).outgoingCrewId;
     onShift.set(stationId, crewNow === null || crewNow === person.crewId);
   }
-  return orders
-    .filter((o) => inScope(o, person) && !acked.has(o.id) && onShift.get(o.stationId))
-    .map((o) => ({ id: o.id, title: o.title, bodyHtml: o.bodyHtml, effectiveFrom: o.effectiveFrom.toISOString() }));
+  return rows
+    .filter((o) => inScope({ crewIds: list<number>(o.crewIds), positions: list<string>(o.positions) }, person) && onShift.get(o.stationId))
+    .map((o) => ({ id: Number(o.id), title: o.title, bodyHtml: o.bodyHtml, effectiveFrom: new Date(o.effectiveFrom).toISOString() }));
 }

@@ -343,6 +343,7 @@ export async function countersignQueue(actor: Actor) {
 }
 
 async function presentQueueEntries(entries: TrainingEntry[]) {
+  if (entries.length === 0) return [];
   const tasks = new Map((await QualificationTask.findAll({ where: { id: [...new Set(entries.map((e) => e.taskId))] } })).map((t) => [t.id, t]));
   const who = await namesOf(entries.flatMap((e) => [e.traineeId, e.supervisorId, e.countersignedBy]));
   return entries.map((e) => ({

@@ -2,13 +2,35 @@
 // a notice goes to. Nothing here writes.
 import { Op, type Transaction } from 'sequelize';
 import type { Role } from '../../../shared/roles';
+import { referenceRead } from '../../lib/reference-cache';
 import { User } from './model';
+
+type DirectoryEntry = { id: number; name: string; role: Role; crewId: number | null; active: boolean };
+
+/**
+ * Everyone's name, role, crew and whether they are active: asked by nearly every page (the names
+ * beside log entries, rounds and comments; the crew on shift), changed when an administrator edits
+ * a person. Kept as reference data (lib/reference-cache.ts): any write to users through the model
+ * forgets it, other nodes hear of it, and nothing is kept longer than a minute.
+ */
+function directory(transaction?: Transaction): Promise<{ list: DirectoryEntry[]; byId: Map<number, DirectoryEntry> }> {
+  return referenceRead(
+    'people-directory',
+    async () => {
+      const rows = await User.findAll({ attributes: ['id', 'name', 'role', 'crewId', 'active'], order: [['id', 'ASC']], transaction });
+      const list = rows.map((u) => ({ id: u.id, name: u.name, role: u.role, crewId: u.crewId, active: Boolean(u.active) }));
+      return { list, byId: new Map(list.map((p) => [p.id, p])) };
+    },
+    transaction,
+  );
+}
 
 /** Names by id for the ids given (nulls skipped); an id with no person is simply absent. */
 export async function namesOf(ids: readonly (number | null | undefined)[], transaction?: Transaction): Promise<Map<number, string>> {
   const wanted = [...new Set(ids.filter((id): id is number => typeof id === 'number'))];
   if (wanted.length === 0) return new Map();
-  return new Map((await User.findAll({ where: { id: wanted }, attributes: ['id', 'name'], transaction })).map((u) => [u.id, u.name]));
+  const { byId } = await directory(transaction);
+  return new Map(wanted.flatMap((id) => (byId.has(id) ? [[id, byId.get(id)!.name] as const] : [])));
 }
 
 export function findPerson(id: number, transaction?: Transaction) {
@@ -46,10 +68,8 @@ export function findPeople(filter: PeopleFilter, transaction?: Transaction) {
 }
 
 /** Anyone who is on any of these crews or is one of these people (the overview's crews and names at once). */
-export function peopleOnCrewsOrIds(crewIds: number[], ids: number[]) {
-  const anyOf: Record<string, unknown>[] = [];
-  if (crewIds.length) anyOf.push({ crewId: crewIds });
-  if (ids.length) anyOf.push({ id: ids });
-  if (!anyOf.length) return Promise.resolve([]);
-  return User.findAll({ where: { [Op.or]: anyOf }, attributes: ['id', 'name', 'role', 'crewId', 'active'] });
+export async function peopleOnCrewsOrIds(crewIds: number[], ids: number[]): Promise<DirectoryEntry[]> {
+  if (!crewIds.length && !ids.length) return [];
+  const { list } = await directory();
+  return list.filter((p) => (p.crewId !== null && crewIds.includes(p.crewId)) || ids.includes(p.id));
 }
