@@ -76,20 +76,18 @@ export async function openFlags(sequelize: Sequelize, unitIds: number[]) {
   const counts = new Map<number, { alarm: number; watch: number }>(unitIds.map((id) => [id, { alarm: 0, watch: 0 }]));
   const top = new Map<number, OverviewFlag[]>(unitIds.map((id) => [id, []]));
   if (!unitIds.length) return { counts, top };
-  const [grouped, leading] = await Promise.all([
-    sequelize.query<{ unitId: number; severity: 'watch' | 'alarm'; n: number }>(
-      `SELECT unit_id AS unitId, severity, COUNT(*) AS n FROM flags WHERE status = 'open' AND unit_id IN (?) GROUP BY unit_id, severity`,
-      { replacements: [unitIds], type: QueryTypes.SELECT },
-    ),
-    sequelize.query<{ id: number; unitId: number; parameter: string; origin: 'automatic' | 'manual'; severity: 'watch' | 'alarm'; lastValue: number | null; raisedAt: Date }>(
-      `SELECT id, unit_id AS unitId, parameter, origin, severity, last_value AS lastValue, raised_at AS raisedAt FROM (
-         SELECT f.*, ROW_NUMBER() OVER (PARTITION BY unit_id ORDER BY severity = 'alarm' DESC, raised_at DESC, id DESC) AS place
-         FROM flags f WHERE status = 'open' AND unit_id IN (?)) ranked
-       WHERE place <= ${TOP_FLAGS} ORDER BY unitId, place`,
-      { replacements: [unitIds], type: QueryTypes.SELECT },
-    ),
-  ]);
-  for (const g of grouped) counts.get(Number(g.unitId))![g.severity] = Number(g.n);
+  // One statement: the few leading flags of each unit, each row carrying its unit's counts.
+  const leading = await sequelize.query<{
+    id: number; unitId: number; parameter: string; origin: 'automatic' | 'manual'; severity: 'watch' | 'alarm'; lastValue: number | null; raisedAt: Date; alarms: number; watches: number;
+  }>(
+    `SELECT id, unit_id AS unitId, parameter, origin, severity, last_value AS lastValue, raised_at AS raisedAt, alarms, watches FROM (
+       SELECT f.*, ROW_NUMBER() OVER (PARTITION BY unit_id ORDER BY severity = 'alarm' DESC, raised_at DESC, id DESC) AS place,
+         SUM(severity = 'alarm') OVER (PARTITION BY unit_id) AS alarms, SUM(severity = 'watch') OVER (PARTITION BY unit_id) AS watches
+       FROM flags f WHERE status = 'open' AND unit_id IN (?)) ranked
+     WHERE place <= ${TOP_FLAGS} ORDER BY unitId, place`,
+    { replacements: [unitIds], type: QueryTypes.SELECT },
+  );
+  for (const f of leading) counts.set(Number(f.unitId), { alarm: Number(f.alarms), watch: Number(f.watches) });
   for (const f of leading) {
     const catalogued = checkCatalog[f.parameter as CheckKey];
     top.get(Number(f.unitId))!.push({

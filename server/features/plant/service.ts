@@ -42,7 +42,7 @@ export function allStations() {
 
 /** The station with the lowest id: the one pages without a unit or crew use. */
 export function firstStation() {
-  return Station.findOne({ order: [['id', 'ASC']] });
+  return referenceRead('first-station', () => Station.findOne({ order: [['id', 'ASC']] }));
 }
 
 export function findCrew(crewId: number) {
