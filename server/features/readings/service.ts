@@ -94,15 +94,8 @@ export async function storeReading(r: StoreReading, transaction: Transaction): P
     },
     { transaction },
   );
-  // The values (and the round's search document their hook writes) and the automatic flags do not
-  // depend on each other: sent together, the connection runs them back to back instead of each
-  // waiting for this process to see the other's answer (under load, a wait behind every other
-  // request). One connection, one transaction, statements in the order sent; the unit's turn
-  // (takeFlagTurn above) is already held, so the order between the two changes nothing.
-  const [, flagsRaised] = await Promise.all([
-    ReadingValue.bulkCreate(valueRows(reading.id, r.unitId, r.takenAt, judged.evaluation), { transaction }),
-    refreshAutomaticFlags(r.unitId, reading.id, r.takenAt, judged.evaluation, transaction),
-  ]);
+  await ReadingValue.bulkCreate(valueRows(reading.id, r.unitId, r.takenAt, judged.evaluation), { transaction });
+  const flagsRaised = await refreshAutomaticFlags(r.unitId, reading.id, r.takenAt, judged.evaluation, transaction);
   return { reading, flagsRaised };
 }
 
