@@ -175,13 +175,14 @@ type LogEntryRow = Pick<
  * asks again after a live event), where building a model instance per row was most of its cost.
  */
 async function entryRows(unitId: number, q: LogQuery): Promise<LogEntryRow[]> {
-  const where = ['unit_id = ?'];
-  const values: unknown[] = [unitId];
-  if (q.position) (where.push('position = ?'), values.push(q.position));
-  if (q.category) (where.push('category = ?'), values.push(q.category));
-  if (q.authorId) (where.push('author_id = ?'), values.push(q.authorId));
-  if (q.shiftStart) (where.push('shift_start = ?'), values.push(new Date(q.shiftStart)));
-  if (q.before) (where.push('id < ?'), values.push(q.before));
+  const filters: [string, unknown][] = [['unit_id = ?', unitId]];
+  if (q.position) filters.push(['position = ?', q.position]);
+  if (q.category) filters.push(['category = ?', q.category]);
+  if (q.authorId) filters.push(['author_id = ?', q.authorId]);
+  if (q.shiftStart) filters.push(['shift_start = ?', new Date(q.shiftStart)]);
+  if (q.before) filters.push(['id < ?', q.before]);
+  const where = filters.map(([condition]) => condition);
+  const values = filters.map(([, value]) => value);
   type Raw = Omit<LogEntryRow, 'late' | 'arrivedLate' | 'writtenAsTrainee' | 'carryToHandover'> & { late: number; arrivedLate: number; writtenAsTrainee: number; carryToHandover: number };
   const rows = await LogEntry.sequelize!.query<Raw>(
     `SELECT id, unit_id AS unitId, position, category, event_at AS eventAt, entered_at AS enteredAt, received_at AS receivedAt, shift_start AS shiftStart,
