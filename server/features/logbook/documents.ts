@@ -176,21 +176,29 @@ export async function indexDocuments(sequelize: Sequelize, kind: DocumentKind, i
 }
 
 /**
- * The shift and crew of each document whose source does not carry them: the shift that contains
- * its time, and the crew the rotation (or a swap) put on it, as the station's setup says now — the
- * same as a rebuild works out. Reference data, so read from the cache.
+ * The shift and crew of a document at one station: the shift that contains its time (unless the
+ * source already carries its shift), and the crew a swap or else the rotation put on that shift,
+ * as the station's setup says now. Reference data, so read from the cache once per station.
  */
+async function shiftAndCrewAt(stationId: number, transaction: Transaction | null | undefined) {
+  const { settings, rotation } = await stationShiftSetup(stationId, transaction);
+  const swaps = new Map((await swapsOfStation(stationId, transaction ?? undefined)).map((s) => [s.shiftStart.getTime(), s.crewId]));
+  return (occurredAt: Date, knownShiftStart: Date | null) => {
+    const shiftStart = knownShiftStart ?? shiftStartFor(occurredAt, settings.timeZone, settings.shiftChangeTimes);
+    return { shiftStart, crewId: swaps.get(shiftStart.getTime()) ?? crewFromRotation(rotation, shiftStart, settings.shiftChangeTimes.length) };
+  };
+}
+
+/** A refresh's rows, before they are written: shift and crew where the source does not carry them. */
 async function fillShiftsAndCrews(rows: DocumentRow[], transaction: Transaction | null | undefined) {
+  const resolvers = new Map<number, Awaited<ReturnType<typeof shiftAndCrewAt>>>();
   for (const row of rows) {
     if (row.shift_start != null && row.crew_id != null) continue;
     const stationId = Number(row.station_id);
-    const { settings, rotation } = await stationShiftSetup(stationId, transaction);
-    const shiftStart = row.shift_start != null ? new Date(row.shift_start as string | Date) : shiftStartFor(new Date(row.occurred_at as string | Date), settings.timeZone, settings.shiftChangeTimes);
+    if (!resolvers.has(stationId)) resolvers.set(stationId, await shiftAndCrewAt(stationId, transaction));
+    const { shiftStart, crewId } = resolvers.get(stationId)!(new Date(row.occurred_at as string | Date), row.shift_start != null ? new Date(row.shift_start as string | Date) : null);
     row.shift_start = shiftStart;
-    if (row.crew_id == null) {
-      const swaps = await swapsOfStation(stationId, transaction ?? undefined);
-      row.crew_id = swaps.find((s) => s.shiftStart.getTime() === shiftStart.getTime())?.crewId ?? crewFromRotation(rotation, shiftStart, settings.shiftChangeTimes.length);
-    }
+    row.crew_id ??= crewId;
   }
 }
 
@@ -220,12 +228,9 @@ async function assignShiftsAndCrews(sequelize: Sequelize, transaction: Transacti
   for (const row of rows) (byStation.get(row.stationId) ?? byStation.set(row.stationId, []).get(row.stationId)!).push(row);
   const updates = new Map<string, number[]>(); // "shiftStartMs|crewId" → document ids
   for (const [stationId, docs] of byStation) {
-    const { settings, rotation } = await stationShiftSetup(stationId, transaction);
-    const swaps = new Map((await swapsOfStation(stationId, transaction ?? undefined)).map((s) => [s.shiftStart.getTime(), s.crewId]));
-    const perDay = settings.shiftChangeTimes.length;
+    const resolve = await shiftAndCrewAt(stationId, transaction);
     for (const doc of docs) {
-      const shiftStart = doc.shiftStart ? new Date(doc.shiftStart) : shiftStartFor(new Date(doc.occurredAt), settings.timeZone, settings.shiftChangeTimes);
-      const crewId = swaps.get(shiftStart.getTime()) ?? crewFromRotation(rotation, shiftStart, perDay);
+      const { shiftStart, crewId } = resolve(new Date(doc.occurredAt), doc.shiftStart ? new Date(doc.shiftStart) : null);
       const key = `${shiftStart.getTime()}|${crewId ?? ''}`;
       (updates.get(key) ?? updates.set(key, []).get(key)!).push(doc.id);
     }
