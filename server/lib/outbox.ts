@@ -8,6 +8,7 @@ import { isRetryable } from './unit-of-work';
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import type { Mailer } from './mailer';
 import { logger } from './logger';
+import { jsonColumn } from './json-column';
 
 export type Notice = { kind: string; refId: number; to: string[]; subject: string; text: string };
 
@@ -121,7 +122,7 @@ export function makeOutboxSender(sequelize: Sequelize, mailer: Mailer, options: 
     let sent = 0;
     let failed = 0;
     for (const row of rows) {
-      const to = typeof row.recipients === 'string' ? (JSON.parse(row.recipients) as string[]) : row.recipients;
+      const to = jsonColumn<string[]>(row.recipients);
       try {
         // A stable Message-ID: should a row ever go out twice (a sender killed between the SMTP
         // reply and the mark), the receiving side can tell it is the same message.

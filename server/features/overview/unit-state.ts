@@ -2,6 +2,7 @@
 // the handover of the coming change. Each reader takes every unit at once (one or two statements),
 // so the page costs the same number of queries for two units as for twenty.
 import { Op, QueryTypes, type Sequelize } from 'sequelize';
+import { jsonColumn } from '../../lib/json-column';
 import { checkCatalog, type CheckKey } from '../../../shared/calc/check-catalog';
 import type { Evaluation } from '../../../shared/calc/evaluate';
 import type { Status } from '../../../shared/calc/limits';
@@ -28,7 +29,6 @@ export async function latestRounds(sequelize: Sequelize, unitIds: number[]) {
      LEFT JOIN reading_amendments a ON a.id = (SELECT MAX(x.id) FROM reading_amendments x WHERE x.reading_set_id = r.id)`,
     { replacements: unitIds, type: QueryTypes.SELECT },
   );
-  const parsed = (value: Evaluation | string): Evaluation => (typeof value === 'string' ? (JSON.parse(value) as Evaluation) : value);
   return new Map(
     rows.map((r) => {
       const amended = r.amendedResults !== null;
@@ -41,7 +41,7 @@ export async function latestRounds(sequelize: Sequelize, unitIds: number[]) {
         needsCountersign: Boolean(r.recordedAsTrainee) && !Number(r.countersigned),
         amended,
         worstStatus: (amended ? r.amendedWorstStatus : r.worstStatus)!,
-        checks: keyChecks(parsed(amended ? r.amendedResults! : r.results)),
+        checks: keyChecks(jsonColumn<Evaluation>(amended ? r.amendedResults! : r.results)),
       };
       return [round.unitId, round];
     }),

@@ -2,6 +2,7 @@
 import { richTextToPlain, sanitizeRichText } from '../../lib/rich-text';
 import { Op, QueryTypes, type Sequelize } from 'sequelize';
 import { recordAudit } from '../../lib/audit';
+import { jsonColumn } from '../../lib/json-column';
 import { Conflict, Forbidden, NotFound, ValidationError } from '../../lib/errors';
 import { publish } from '../../lib/live';
 import { unitOfWork } from '../../lib/unit-of-work';
@@ -163,7 +164,6 @@ export async function pendingFor(userId: number) {
     { replacements: [now, now, userId], type: QueryTypes.SELECT },
   );
   if (rows.length === 0) return [];
-  const list = <T,>(value: T[] | string): T[] => (typeof value === 'string' ? (JSON.parse(value) as T[]) : value) ?? [];
   const person = { role: rows[0]!.role, crewId: rows[0]!.crewId, position: rows[0]!.position };
   const onShift = new Map<number, boolean>();
   for (const stationId of new Set(rows.map((o) => o.stationId))) {
@@ -171,6 +171,6 @@ export async function pendingFor(userId: number) {
     onShift.set(stationId, crewNow === null || crewNow === person.crewId);
   }
   return rows
-    .filter((o) => inScope({ crewIds: list<number>(o.crewIds), positions: list<string>(o.positions) }, person) && onShift.get(o.stationId))
+    .filter((o) => inScope({ crewIds: jsonColumn<number[]>(o.crewIds) ?? [], positions: jsonColumn<string[]>(o.positions) ?? [] }, person) && onShift.get(o.stationId))
     .map((o) => ({ id: Number(o.id), title: o.title, bodyHtml: o.bodyHtml, effectiveFrom: new Date(o.effectiveFrom).toISOString() }));
 }
