@@ -210,12 +210,9 @@ const entriesPage = coalesced(
     await settingsForUnit(unitId);
     const entries = await entryRows(unitId, q);
     const ids = entries.map((e) => e.id);
+    const amendments = ids.length ? await LogAmendment.findAll({ where: { entryId: ids }, order: [['id', 'ASC']] }) : [];
     const shifts = [...new Set(entries.map((e) => e.shiftStart.getTime()))].map((t) => new Date(t));
-    // Both at once: outside any transaction, each takes its own pooled connection.
-    const [amendments, reviews] = await Promise.all([
-      ids.length ? LogAmendment.findAll({ where: { entryId: ids }, order: [['id', 'ASC']] }) : [],
-      shifts.length ? LogReview.findAll({ where: { unitId, shiftStart: shifts } }) : [],
-    ]);
+    const reviews = shifts.length ? await LogReview.findAll({ where: { unitId, shiftStart: shifts } }) : [];
     const people = new Map(
       await namesOf([...entries.map((e) => e.authorId), ...amendments.map((a) => a.authorId), ...reviews.map((r) => r.reviewedBy)]),
     );
