@@ -17,9 +17,10 @@ import type { Model, ModelStatic, Transaction } from 'sequelize';
 import { openTransaction } from '../db/sequelize';
 
 let generation = 0;
-const entries = new Map<string, { generation: number; readAt: number; value: Promise<unknown> }>();
+// `answered`: the read behind `value` has finished (see referenceRead: a transaction waits only for those).
+const entries = new Map<string, { generation: number; readAt: number; value: Promise<unknown>; answered: boolean }>();
 const MAX_AGE_MS = 60_000;
-const fresh = (hit: { generation: number; readAt: number } | undefined): hit is { generation: number; readAt: number; value: Promise<unknown> } =>
+const fresh = (hit: { generation: number; readAt: number } | undefined): hit is { generation: number; readAt: number; value: Promise<unknown>; answered: boolean } =>
   hit !== undefined && hit.generation === generation && Date.now() - hit.readAt < MAX_AGE_MS;
 // Keys built from times (crew swaps asked for by shift) keep coming; a bound keeps memory flat.
 const MAX_ENTRIES = 2_000;
@@ -31,21 +32,28 @@ export async function referenceRead<T>(key: string, load: () => Promise<T>, tran
   const tx = transaction ?? openTransaction();
   const hit = entries.get(key);
   if (tx && wroteReference.has(tx)) return load();
-  if (fresh(hit)) return hit.value as Promise<T>;
+  // A transaction never waits for a read still running outside it: under load that read can be
+  // queued for a pooled connection while every connection is held by transactions waiting for it,
+  // and all of them stood still until the pool's 60 s acquire timeout (seen in bench:load). It reads
+  // through its own connection instead.
+  if (fresh(hit) && (!tx || hit.answered)) return hit.value as Promise<T>;
   if (tx) {
     if (begunIn.get(tx) !== generation) return load();
     // Kept once read, not shared while reading: a failure of the transaction is its own.
     const readIn = generation;
     const result = await load();
-    if (generation === readIn && !fresh(entries.get(key))) entries.set(key, { generation: readIn, readAt: Date.now(), value: Promise.resolve(result) });
+    if (generation === readIn && !fresh(entries.get(key))) entries.set(key, { generation: readIn, readAt: Date.now(), value: Promise.resolve(result), answered: true });
     return result;
   }
   const value = load();
   if (entries.size >= MAX_ENTRIES) entries.clear();
   // Stamped with the generation the read began in: a change while it runs makes it stale at once.
-  entries.set(key, { generation, readAt: Date.now(), value });
+  const entry = { generation, readAt: Date.now(), value: value as Promise<unknown>, answered: false };
+  entries.set(key, entry);
   try {
-    return await value;
+    const result = await value;
+    entry.answered = true;
+    return result;
   } catch (error) {
     // A failed read (the database away) is not remembered.
     if (entries.get(key)?.value === value) entries.delete(key);

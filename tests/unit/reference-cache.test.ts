@@ -72,4 +72,22 @@ describe('the reference data cache', () => {
     expect(await referenceRead(k, source.load)).toBe('v1');
     expect(source.calls()).toBe(1);
   });
+
+  it('inside a transaction, never waits for a read still running outside it (that read may be queued for a connection the transaction holds)', async () => {
+    const k = freshKey();
+    forgetReferenceData();
+    // A read outside any transaction that has not answered yet: under load it can be waiting for a
+    // pooled connection while every connection is held by transactions that would wait for it.
+    let release!: (value: string) => void;
+    const outside = referenceRead(k, () => new Promise<string>((r) => (release = r)));
+    const tx = {} as Transaction;
+    noteTransactionBegun(tx);
+    const source = counting(['through-tx']);
+    const inside = await Promise.race([referenceRead(k, source.load, tx), new Promise((r) => setTimeout(() => r('waited for the outside read'), 50))]);
+    expect(inside).toBe('through-tx');
+    release('outside');
+    expect(await outside).toBe('outside');
+    // Once it has answered, a transaction takes the kept value like everyone else.
+    expect(await referenceRead(k, source.load, tx)).toBe('outside');
+  });
 });
